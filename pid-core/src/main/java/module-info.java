@@ -1,0 +1,11 @@
+/**
+ * Loopwright's PID core: the controller, its immutable settings and the exact discretisation of
+ * each term. The only runtime dependency is the SLF4J API, which is never used per update.
+ */
+module org.loopwright.pid {
+    requires org.slf4j;
+
+    exports org.loopwright.pid;
+    exports org.loopwright.pid.form;
+    exports org.loopwright.pid.discrete;
+}

@@ -1,0 +1,474 @@
+package org.loopwright.pid;
+
+import java.util.Objects;
+
+import org.loopwright.pid.discrete.DerivativeMethod;
+import org.loopwright.pid.discrete.DiscretePid;
+import org.loopwright.pid.discrete.IntegralMethod;
+import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.pid.form.PidGains;
+
+/**
+ * Everything a controller is configured with, validated once and immutable afterwards. The
+ * coefficients for the configured sample period are computed here, so a controller that adopts
+ * these settings does no more than read them.
+ *
+ * <p>Example: a PI controller with Kc = 2, Ti = 30 s, sampled every 0.1 s, output 0–100 %:
+ * <pre>{@code
+ * ControllerSettings s = ControllerSettings.builder()
+ *         .gains(IdealGains.pi(2.0, 30.0))
+ *         .samplePeriodSeconds(0.1)
+ *         .outputRange(0.0, 100.0)
+ *         .build();
+ * }</pre>
+ *
+ * <p>Thread-safe: immutable.
+ */
+public final class ControllerSettings {
+
+    /** Default derivative filter ratio N = Td/Tf (common practice: N between 8 and 20). */
+    public static final double DEFAULT_DERIVATIVE_FILTER_RATIO = 10.0;
+
+    private final PidGains gains;
+    private final double samplePeriodSeconds;
+    private final double proportionalSetpointWeight;
+    private final double derivativeSetpointWeight;
+    private final double derivativeFilterRatio;
+    private final double derivativeFilterTimeSeconds;
+    private final IntegralMethod integralMethod;
+    private final DerivativeMethod derivativeMethod;
+    private final Action action;
+    private final double outputMin;
+    private final double outputMax;
+    private final WindupProtection windupProtection;
+    private final double trackingTimeSeconds;
+    private final double outputSlewPerSecond;
+    private final double setpointSlewPerSecond;
+    private final FaultPolicy faultPolicy;
+    private final double safeOutput;
+    private final double errorDeadband;
+    private final double wrapSpan;
+    private final OutputKind outputKind;
+
+    // resolved once, read by the controller on every update
+    final double proportionalGain;
+    final double integralGain;
+    final double derivativeGain;
+    final double filterTimeSeconds;
+    final double sign;
+    final DiscretePid fixedPeriod;
+    private final boolean explicitFilterTime;
+    private final boolean explicitTrackingTime;
+
+    private ControllerSettings(Builder b) {
+        gains = Objects.requireNonNull(b.gains, "gains");
+        integralMethod = Objects.requireNonNull(b.integralMethod, "integralMethod");
+        derivativeMethod = Objects.requireNonNull(b.derivativeMethod, "derivativeMethod");
+        action = Objects.requireNonNull(b.action, "action");
+        windupProtection = Objects.requireNonNull(b.windupProtection, "windupProtection");
+        faultPolicy = Objects.requireNonNull(b.faultPolicy, "faultPolicy");
+        outputKind = Objects.requireNonNull(b.outputKind, "outputKind");
+
+        samplePeriodSeconds = positiveFinite("samplePeriodSeconds", b.samplePeriodSeconds);
+        proportionalSetpointWeight = weight("proportionalSetpointWeight", b.proportionalSetpointWeight);
+        derivativeSetpointWeight = weight("derivativeSetpointWeight", b.derivativeSetpointWeight);
+        derivativeFilterRatio = positiveFinite("derivativeFilterRatio", b.derivativeFilterRatio);
+        if (!Double.isNaN(b.derivativeFilterTimeSeconds)) {
+            positiveFinite("derivativeFilterTimeSeconds", b.derivativeFilterTimeSeconds);
+        }
+        if (Double.isNaN(b.outputMin) || b.outputMin == Double.POSITIVE_INFINITY) {
+            throw new InvalidSettingException("outputMin", b.outputMin, "must be a number below +infinity");
+        }
+        if (Double.isNaN(b.outputMax) || b.outputMax == Double.NEGATIVE_INFINITY) {
+            throw new InvalidSettingException("outputMax", b.outputMax, "must be a number above -infinity");
+        }
+        if (b.outputMin > b.outputMax) {
+            throw new InvalidSettingException("outputMin", b.outputMin,
+                    "must be <= outputMax (outputMax=" + b.outputMax + ")");
+        }
+        outputMin = b.outputMin;
+        outputMax = b.outputMax;
+        outputSlewPerSecond = positiveOrInfinite("outputSlewPerSecond", b.outputSlewPerSecond);
+        setpointSlewPerSecond = positiveOrInfinite("setpointSlewPerSecond", b.setpointSlewPerSecond);
+        if (!Double.isFinite(b.safeOutput)) {
+            throw new InvalidSettingException("safeOutput", b.safeOutput, "must be finite");
+        }
+        safeOutput = b.safeOutput;
+        errorDeadband = nonNegativeFinite("errorDeadband", b.errorDeadband);
+        wrapSpan = nonNegativeFinite("wrapSpan", b.wrapSpan);
+
+        ParallelGains parallel = gains.toParallel();
+        proportionalGain = parallel.proportionalGain();
+        integralGain = parallel.integralGain();
+        derivativeGain = parallel.derivativeGain();
+        explicitFilterTime = !Double.isNaN(b.derivativeFilterTimeSeconds);
+        explicitTrackingTime = !Double.isNaN(b.trackingTimeSeconds);
+        filterTimeSeconds = resolveFilterTime(b.derivativeFilterTimeSeconds);
+        derivativeFilterTimeSeconds = filterTimeSeconds;
+        trackingTimeSeconds = resolveTrackingTime(b.trackingTimeSeconds);
+        sign = action.sign();
+
+        if (derivativeGain > 0.0 && !derivativeMethod.isStable(samplePeriodSeconds, filterTimeSeconds)) {
+            throw new InvalidSettingException("samplePeriodSeconds", samplePeriodSeconds,
+                    "must be < 2 * derivativeFilterTimeSeconds for the forward-Euler derivative"
+                            + " (derivativeFilterTimeSeconds=" + filterTimeSeconds + ")");
+        }
+        fixedPeriod = DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
+                integralMethod, derivativeMethod, samplePeriodSeconds);
+    }
+
+    /** A builder with the defaults: reverse action, b = 1, c = 0, N = 10, Tustin integral,
+     * backward-Euler derivative, unlimited output, back-calculation, hold on faults. */
+    public static Builder builder() {
+        return new Builder();
+    }
+
+    /** A builder that starts from these settings, for a retune that changes a few of them. */
+    public Builder toBuilder() {
+        Builder b = new Builder();
+        b.gains = gains;
+        b.samplePeriodSeconds = samplePeriodSeconds;
+        b.proportionalSetpointWeight = proportionalSetpointWeight;
+        b.derivativeSetpointWeight = derivativeSetpointWeight;
+        b.derivativeFilterRatio = derivativeFilterRatio;
+        b.derivativeFilterTimeSeconds = Double.NaN;
+        b.integralMethod = integralMethod;
+        b.derivativeMethod = derivativeMethod;
+        b.action = action;
+        b.outputMin = outputMin;
+        b.outputMax = outputMax;
+        b.windupProtection = windupProtection;
+        b.trackingTimeSeconds = Double.NaN;
+        b.outputSlewPerSecond = outputSlewPerSecond;
+        b.setpointSlewPerSecond = setpointSlewPerSecond;
+        b.faultPolicy = faultPolicy;
+        b.safeOutput = safeOutput;
+        b.errorDeadband = errorDeadband;
+        b.wrapSpan = wrapSpan;
+        b.outputKind = outputKind;
+        if (explicitFilterTime) {
+            b.derivativeFilterTimeSeconds = derivativeFilterTimeSeconds;
+        }
+        if (explicitTrackingTime) {
+            b.trackingTimeSeconds = trackingTimeSeconds;
+        }
+        return b;
+    }
+
+    private double resolveFilterTime(double explicit) {
+        if (!Double.isNaN(explicit)) {
+            return explicit;
+        }
+        if (derivativeGain == 0.0) {
+            return 0.0;
+        }
+        if (proportionalGain == 0.0) {
+            throw new InvalidSettingException("derivativeFilterTimeSeconds", explicit,
+                    "must be given when proportionalGain = 0, since Td/N is undefined");
+        }
+        return derivativeGain / proportionalGain / derivativeFilterRatio;
+    }
+
+    /** Tt = √(Ti·Td) for PID and Ti for PI (Åström &amp; Hägglund 2006, §3.5, a rule of thumb). */
+    private double resolveTrackingTime(double explicit) {
+        if (!Double.isNaN(explicit)) {
+            return positiveFinite("trackingTimeSeconds", explicit);
+        }
+        if (integralGain == 0.0 || proportionalGain == 0.0) {
+            return samplePeriodSeconds;
+        }
+        double integralTime = proportionalGain / integralGain;
+        double derivativeTime = derivativeGain / proportionalGain;
+        return derivativeTime > 0.0 ? Math.sqrt(integralTime * derivativeTime) : integralTime;
+    }
+
+    private static double positiveFinite(String field, double value) {
+        if (!Double.isFinite(value) || value <= 0.0) {
+            throw new InvalidSettingException(field, value, "must be finite and > 0");
+        }
+        return value;
+    }
+
+    private static double nonNegativeFinite(String field, double value) {
+        if (!Double.isFinite(value) || value < 0.0) {
+            throw new InvalidSettingException(field, value, "must be finite and >= 0");
+        }
+        return value;
+    }
+
+    private static double positiveOrInfinite(String field, double value) {
+        if (Double.isNaN(value) || value <= 0.0) {
+            throw new InvalidSettingException(field, value, "must be > 0 (infinity for no limit)");
+        }
+        return value;
+    }
+
+    private static double weight(String field, double value) {
+        if (!Double.isFinite(value) || value < 0.0 || value > 1.0) {
+            throw new InvalidSettingException(field, value, "must be between 0 and 1");
+        }
+        return value;
+    }
+
+    /** The gains as given, in their own form. */
+    public PidGains gains() {
+        return gains;
+    }
+
+    /** The gains as the controller runs them. */
+    public ParallelGains parallelGains() {
+        return gains.toParallel();
+    }
+
+    /** The sample period h in seconds for the fixed-period update. */
+    public double samplePeriodSeconds() {
+        return samplePeriodSeconds;
+    }
+
+    /** Setpoint weight b of the proportional term, 0–1. */
+    public double proportionalSetpointWeight() {
+        return proportionalSetpointWeight;
+    }
+
+    /** Setpoint weight c of the derivative term, 0–1; 0 is derivative on measurement. */
+    public double derivativeSetpointWeight() {
+        return derivativeSetpointWeight;
+    }
+
+    /** The derivative filter ratio N (used when no filter time is given). */
+    public double derivativeFilterRatio() {
+        return derivativeFilterRatio;
+    }
+
+    /** The derivative filter time Tf in seconds as resolved (0 when there is no derivative action). */
+    public double derivativeFilterTimeSeconds() {
+        return derivativeFilterTimeSeconds;
+    }
+
+    /** How the integral is discretised. */
+    public IntegralMethod integralMethod() {
+        return integralMethod;
+    }
+
+    /** How the filtered derivative is discretised. */
+    public DerivativeMethod derivativeMethod() {
+        return derivativeMethod;
+    }
+
+    /** Direct or reverse action. */
+    public Action action() {
+        return action;
+    }
+
+    /** Lowest output (may be −∞). */
+    public double outputMin() {
+        return outputMin;
+    }
+
+    /** Highest output (may be +∞). */
+    public double outputMax() {
+        return outputMax;
+    }
+
+    /** The windup protection scheme. */
+    public WindupProtection windupProtection() {
+        return windupProtection;
+    }
+
+    /** Tracking time Tt in seconds for back-calculation, as resolved. */
+    public double trackingTimeSeconds() {
+        return trackingTimeSeconds;
+    }
+
+    /** Largest output change per second (+∞ for none). */
+    public double outputSlewPerSecond() {
+        return outputSlewPerSecond;
+    }
+
+    /** Largest setpoint change per second seen by the law (+∞ for none). */
+    public double setpointSlewPerSecond() {
+        return setpointSlewPerSecond;
+    }
+
+    /** What to output on a faulty sample. */
+    public FaultPolicy faultPolicy() {
+        return faultPolicy;
+    }
+
+    /** The output for {@link FaultPolicy#SAFE_OUTPUT}, clamped to the range when used. */
+    public double safeOutput() {
+        return safeOutput;
+    }
+
+    /** Errors smaller than this are treated as zero; larger ones are reduced by it (no step at its edge). */
+    public double errorDeadband() {
+        return errorDeadband;
+    }
+
+    /** The span of a circular process variable (360 for degrees), or 0 for an ordinary one. */
+    public double wrapSpan() {
+        return wrapSpan;
+    }
+
+    /** Position or increment output. */
+    public OutputKind outputKind() {
+        return outputKind;
+    }
+
+    /** The difference-equation coefficients at the configured sample period. */
+    public DiscretePid discretePid() {
+        return fixedPeriod;
+    }
+
+    /** The difference-equation coefficients at another sample period, as the variable-period update uses them. */
+    public DiscretePid discretePid(double periodSeconds) {
+        positiveFinite("periodSeconds", periodSeconds);
+        return DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
+                integralMethod, derivativeMethod, periodSeconds);
+    }
+
+    /** Mutable builder; {@link #build()} validates every value. Not thread-safe. */
+    public static final class Builder {
+        private PidGains gains;
+        private double samplePeriodSeconds = Double.NaN;
+        private double proportionalSetpointWeight = 1.0;
+        private double derivativeSetpointWeight = 0.0;
+        private double derivativeFilterRatio = DEFAULT_DERIVATIVE_FILTER_RATIO;
+        private double derivativeFilterTimeSeconds = Double.NaN;
+        private IntegralMethod integralMethod = IntegralMethod.TUSTIN;
+        private DerivativeMethod derivativeMethod = DerivativeMethod.BACKWARD_EULER;
+        private Action action = Action.REVERSE;
+        private double outputMin = Double.NEGATIVE_INFINITY;
+        private double outputMax = Double.POSITIVE_INFINITY;
+        private WindupProtection windupProtection = WindupProtection.BACK_CALCULATION;
+        private double trackingTimeSeconds = Double.NaN;
+        private double outputSlewPerSecond = Double.POSITIVE_INFINITY;
+        private double setpointSlewPerSecond = Double.POSITIVE_INFINITY;
+        private FaultPolicy faultPolicy = FaultPolicy.HOLD;
+        private double safeOutput = 0.0;
+        private double errorDeadband = 0.0;
+        private double wrapSpan = 0.0;
+        private OutputKind outputKind = OutputKind.POSITION;
+
+        private Builder() {
+        }
+
+        /** The gains, in any form (required). */
+        public Builder gains(PidGains value) {
+            gains = value;
+            return this;
+        }
+
+        /** The sample period h in seconds (required, &gt; 0). */
+        public Builder samplePeriodSeconds(double value) {
+            samplePeriodSeconds = value;
+            return this;
+        }
+
+        /** Setpoint weights b (proportional) and c (derivative), each 0–1. */
+        public Builder setpointWeights(double proportional, double derivative) {
+            proportionalSetpointWeight = proportional;
+            derivativeSetpointWeight = derivative;
+            return this;
+        }
+
+        /** Derivative filter as N: Tf = Td/N (ideal Td). */
+        public Builder derivativeFilterRatio(double value) {
+            derivativeFilterRatio = value;
+            derivativeFilterTimeSeconds = Double.NaN;
+            return this;
+        }
+
+        /** Derivative filter as a time constant Tf in seconds. */
+        public Builder derivativeFilterTimeSeconds(double value) {
+            derivativeFilterTimeSeconds = value;
+            return this;
+        }
+
+        /** Integral discretisation. */
+        public Builder integralMethod(IntegralMethod value) {
+            integralMethod = value;
+            return this;
+        }
+
+        /** Derivative discretisation. */
+        public Builder derivativeMethod(DerivativeMethod value) {
+            derivativeMethod = value;
+            return this;
+        }
+
+        /** Direct or reverse action. */
+        public Builder action(Action value) {
+            action = value;
+            return this;
+        }
+
+        /** Output range; use infinities for an unlimited side. */
+        public Builder outputRange(double min, double max) {
+            outputMin = min;
+            outputMax = max;
+            return this;
+        }
+
+        /** Windup protection scheme. */
+        public Builder windupProtection(WindupProtection value) {
+            windupProtection = value;
+            return this;
+        }
+
+        /** Tracking time Tt in seconds for back-calculation (default √(Ti·Td), or Ti for PI). */
+        public Builder trackingTimeSeconds(double value) {
+            trackingTimeSeconds = value;
+            return this;
+        }
+
+        /** Output slew limit in units per second (+∞ for none). */
+        public Builder outputSlewPerSecond(double value) {
+            outputSlewPerSecond = value;
+            return this;
+        }
+
+        /** Setpoint slew limit in units per second (+∞ for none). */
+        public Builder setpointSlewPerSecond(double value) {
+            setpointSlewPerSecond = value;
+            return this;
+        }
+
+        /** What to output on a faulty sample; the safe output is used by {@link FaultPolicy#SAFE_OUTPUT}. */
+        public Builder faultPolicy(FaultPolicy policy, double safeOutputValue) {
+            faultPolicy = policy;
+            safeOutput = safeOutputValue;
+            return this;
+        }
+
+        /** Error deadband (0 for none). */
+        public Builder errorDeadband(double value) {
+            errorDeadband = value;
+            return this;
+        }
+
+        /** Circular process variable of this span (360 for degrees); 0 for an ordinary one. */
+        public Builder wrapSpan(double value) {
+            wrapSpan = value;
+            return this;
+        }
+
+        /** Position or increment output. */
+        public Builder outputKind(OutputKind value) {
+            outputKind = value;
+            return this;
+        }
+
+        /**
+         * Validates and freezes the settings.
+         *
+         * @throws InvalidSettingException naming the field, the value and what is allowed
+         */
+        public ControllerSettings build() {
+            if (gains == null) {
+                throw new InvalidSettingException("gains", null, "must be given");
+            }
+            return new ControllerSettings(this);
+        }
+    }
+}

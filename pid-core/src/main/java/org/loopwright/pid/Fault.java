@@ -1,0 +1,15 @@
+package org.loopwright.pid;
+
+/** The condition of the last sample, as the controller's status reports it. */
+public enum Fault {
+    /** A normal sample. */
+    NONE,
+    /** The setpoint was NaN or infinite. */
+    SETPOINT_NOT_FINITE,
+    /** The measurement was NaN or infinite. */
+    MEASUREMENT_NOT_FINITE,
+    /** The period was NaN, infinite, zero or negative. */
+    PERIOD_NOT_VALID,
+    /** The feedforward input was NaN or infinite. */
+    FEEDFORWARD_NOT_FINITE
+}

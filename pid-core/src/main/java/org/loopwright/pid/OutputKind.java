@@ -1,0 +1,12 @@
+package org.loopwright.pid;
+
+/** Whether the controller emits the actuator's position or the change in it. */
+public enum OutputKind {
+    /** The output is the actuator position (a heater power, a valve opening). */
+    POSITION,
+    /**
+     * The output is the change since the last sample (velocity form), for actuators that integrate
+     * their input such as motor-driven valves. The first sample emits 0.
+     */
+    INCREMENT
+}

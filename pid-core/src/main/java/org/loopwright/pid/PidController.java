@@ -1,0 +1,468 @@
+package org.loopwright.pid;
+
+import java.util.Objects;
+
+import org.loopwright.pid.discrete.DerivativeMethod;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+
+/**
+ * A discrete PID controller with the behaviour of an industrial one: setpoint weights, a filtered
+ * derivative, output range and slew limits, windup protection, bumpless manual, tracking and
+ * retune, feedforward, a deadband, a circular process variable, incremental output and a fault
+ * policy for bad samples.
+ *
+ * <p>The law, in output units (Åström &amp; Hägglund, <i>Advanced PID Control</i>, 2006, ch. 3;
+ * Åström &amp; Murray, <i>Feedback Systems</i>, 2nd ed., 2021, §11.5):
+ * <pre>
+ *   u = Kp·(b·r − y) + I + D + uff,   I' = Ki·e + (u_limited − u)/Tt,   Tf·D' + D = Kd·(c·r − y)'
+ * </pre>
+ * each term discretised as {@link org.loopwright.pid.discrete} describes. At the first sample every
+ * dynamic state is zero; the recursions apply from the second sample on.
+ *
+ * <p>Example: {@code double heaterPercent = controller.update(60.0, bathTemperature);} once per
+ * sample period.
+ *
+ * <p>Not thread-safe: one loop thread calls {@code update} and the mode and input methods;
+ * {@link #retune} may be called from any thread, and the next update adopts the new settings whole
+ * and without a bump.
+ */
+public final class PidController {
+
+    private static final Logger LOG = LoggerFactory.getLogger(PidController.class);
+
+    private volatile ControllerSettings published;
+    private ControllerSettings active;
+
+    // inputs that the caller sets between updates
+    private double feedforward;
+    private boolean feedforwardOn;
+    private double manualValue;
+    private double trackValue = Double.NaN;
+    private double actuatorPosition = Double.NaN;
+    private Mode mode = Mode.AUTOMATIC;
+
+    // dynamic state
+    private boolean started;
+    private boolean rebalancePending;
+    private double integral;
+    private double derivativeState;
+    private double previousError;
+    private double previousSetpoint;
+    private double previousMeasurement;
+    private double previousUnlimited;
+    private double previousOutput;
+    private double previousFeedforward;
+    private boolean feedforwardApplied;
+
+    // status of the last sample
+    private double proportionalTerm;
+    private double integralTerm;
+    private double derivativeTerm;
+    private double feedforwardTerm;
+    private double emitted;
+    private Fault fault = Fault.NONE;
+    private long faultCount;
+
+    /** A controller in automatic mode with every state zero. */
+    public PidController(ControllerSettings settings) {
+        this.published = Objects.requireNonNull(settings, "settings");
+        this.active = settings;
+        reset();
+    }
+
+    /**
+     * One fixed-period update with the configured sample period.
+     *
+     * @param setpoint    r, in process units
+     * @param measurement y, in process units
+     * @return the output (or its increment, for {@link OutputKind#INCREMENT}); never NaN, always in range
+     */
+    public double update(double setpoint, double measurement) {
+        ControllerSettings s = published;
+        return step(s, setpoint, measurement, s.samplePeriodSeconds(), true);
+    }
+
+    /**
+     * One variable-period update: the coefficients are computed for this period.
+     *
+     * @param periodSeconds time since the previous update; a non-finite or non-positive one is a fault
+     */
+    public double update(double setpoint, double measurement, double periodSeconds) {
+        ControllerSettings s = published;
+        return step(s, setpoint, measurement, periodSeconds, false);
+    }
+
+    private double step(ControllerSettings s, double r, double y, double h, boolean fixedPeriod) {
+        if (s != active) {
+            adopt(s);
+        }
+        Fault seen = classify(r, y, h);
+        if (seen != Fault.NONE) {
+            return onFault(s, seen);
+        }
+
+        double b0;
+        double b1;
+        double ad;
+        double bd;
+        if (fixedPeriod) {
+            b0 = s.fixedPeriod.integralWeightOnCurrent();
+            b1 = s.fixedPeriod.integralWeightOnPrevious();
+            ad = s.fixedPeriod.derivativePole();
+            bd = s.fixedPeriod.derivativeGain();
+        } else {
+            DerivativeMethod method = s.derivativeMethod().isStable(h, s.filterTimeSeconds)
+                    ? s.derivativeMethod() : DerivativeMethod.BACKWARD_EULER;
+            b0 = s.integralMethod().weightOnCurrent(s.integralGain, h);
+            b1 = s.integralMethod().weightOnPrevious(s.integralGain, h);
+            boolean hasDerivative = s.derivativeGain > 0.0;
+            ad = hasDerivative ? method.pole(h, s.filterTimeSeconds) : 0.0;
+            bd = hasDerivative ? method.gain(s.derivativeGain, h, s.filterTimeSeconds) : 0.0;
+        }
+
+        double rampedSetpoint = started ? slew(previousSetpoint, r, s.setpointSlewPerSecond() * h) : r;
+        double error = errorOf(s, rampedSetpoint, y);
+        double proportional = s.proportionalGain * proportionalInput(s, rampedSetpoint, y, error);
+        double uff = feedforwardOn ? feedforward : 0.0;
+
+        double lo = s.outputMin();
+        double hi = s.outputMax();
+        if (started) {
+            double maxStep = s.outputSlewPerSecond() * h;
+            lo = Math.max(lo, previousOutput - maxStep);
+            hi = Math.min(hi, previousOutput + maxStep);
+        }
+
+        double derivative = 0.0;
+        double increment = 0.0;
+        double next = integral;
+        if (started) {
+            double derivativeInputChange = s.sign * (s.derivativeSetpointWeight() * (rampedSetpoint - previousSetpoint)
+                    - wrap(s, y - previousMeasurement));
+            derivative = ad * derivativeState + bd * derivativeInputChange;
+            increment = b0 * error + b1 * previousError;
+            next += increment + backCalculation(s, h);
+            if (feedforwardOn != feedforwardApplied) {
+                // switching feedforward on or off moves the integral so that the output does not step
+                next += feedforwardApplied ? previousFeedforward : -uff;
+            }
+        }
+
+        double unlimited;
+        double output;
+        switch (mode) {
+            case MANUAL -> {
+                output = clamp(clamp(manualValue, lo, hi), s.outputMin(), s.outputMax());
+                unlimited = output;
+                next = integral;
+                rebalancePending = true;
+            }
+            case TRACKING -> {
+                output = clamp(Double.isFinite(trackValue) ? trackValue : previousOutput, s.outputMin(), s.outputMax());
+                unlimited = output;
+                next = integral;
+                rebalancePending = true;
+            }
+            default -> {
+                if (rebalancePending && started) {
+                    next = previousOutput - proportional - derivative - uff;
+                }
+                unlimited = proportional + next + derivative + uff;
+                output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
+                if (s.windupProtection() == WindupProtection.CLAMPING && output != unlimited
+                        && (unlimited > output ? increment > 0.0 : increment < 0.0)) {
+                    next -= increment;
+                    unlimited = proportional + next + derivative + uff;
+                    output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
+                }
+                rebalancePending = false;
+            }
+        }
+
+        double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
+
+        integral = next;
+        derivativeState = derivative;
+        previousError = error;
+        previousSetpoint = rampedSetpoint;
+        previousMeasurement = y;
+        previousUnlimited = unlimited;
+        previousOutput = output;
+        previousFeedforward = uff;
+        feedforwardApplied = feedforwardOn;
+        started = true;
+
+        proportionalTerm = proportional;
+        integralTerm = next;
+        derivativeTerm = derivative;
+        feedforwardTerm = uff;
+        emitted = result;
+        fault = Fault.NONE;
+        return result;
+    }
+
+    private Fault classify(double r, double y, double h) {
+        if (!Double.isFinite(r)) {
+            return Fault.SETPOINT_NOT_FINITE;
+        }
+        if (!Double.isFinite(y)) {
+            return Fault.MEASUREMENT_NOT_FINITE;
+        }
+        if (!(h > 0.0) || h == Double.POSITIVE_INFINITY) {
+            return Fault.PERIOD_NOT_VALID;
+        }
+        if (feedforwardOn && !Double.isFinite(feedforward)) {
+            return Fault.FEEDFORWARD_NOT_FINITE;
+        }
+        return Fault.NONE;
+    }
+
+    /** A faulty sample never reaches the state; the policy decides the output. */
+    private double onFault(ControllerSettings s, Fault seen) {
+        faultCount++;
+        fault = seen;
+        double output = previousOutput;
+        if (s.faultPolicy() == FaultPolicy.SAFE_OUTPUT) {
+            output = clamp(s.safeOutput(), s.outputMin(), s.outputMax());
+            rebalancePending = true;
+        }
+        double result = s.outputKind() == OutputKind.INCREMENT ? output - previousOutput : output;
+        previousOutput = output;
+        emitted = result;
+        return result;
+    }
+
+    /** Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output. */
+    private double backCalculation(ControllerSettings s, double h) {
+        WindupProtection scheme = s.windupProtection();
+        if (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING) {
+            return 0.0;
+        }
+        double applied = scheme == WindupProtection.ACTUATOR_TRACKING && Double.isFinite(actuatorPosition)
+                ? actuatorPosition : previousOutput;
+        // h/Tt capped at 1: the discrete tracking never over-corrects
+        return Math.min(h / s.trackingTimeSeconds(), 1.0) * (applied - previousUnlimited);
+    }
+
+    /** Adopts newly published settings so that the output at the last inputs does not change. */
+    private void adopt(ControllerSettings next) {
+        if (started) {
+            double oldProportional = active.proportionalGain
+                    * proportionalInput(active, previousSetpoint, previousMeasurement,
+                            errorOf(active, previousSetpoint, previousMeasurement));
+            double newError = errorOf(next, previousSetpoint, previousMeasurement);
+            double newProportional = next.proportionalGain
+                    * proportionalInput(next, previousSetpoint, previousMeasurement, newError);
+            integral += oldProportional - newProportional;
+            if (next.derivativeGain == 0.0) {
+                integral += derivativeState;
+                derivativeState = 0.0;
+            }
+            previousError = newError;
+        }
+        active = next;
+    }
+
+    private static double errorOf(ControllerSettings s, double setpoint, double measurement) {
+        return deadband(s.sign * wrap(s, setpoint - measurement), s.errorDeadband());
+    }
+
+    /** b·r − y with the action's sign, less whatever the deadband removed from the error. */
+    private static double proportionalInput(ControllerSettings s, double setpoint, double measurement, double error) {
+        double rawError = s.sign * wrap(s, setpoint - measurement);
+        double weighted = rawError - s.sign * (1.0 - s.proportionalSetpointWeight()) * setpoint;
+        return weighted - (rawError - error);
+    }
+
+    private static double wrap(ControllerSettings s, double difference) {
+        double span = s.wrapSpan();
+        return span > 0.0 ? difference - span * Math.floor(difference / span + 0.5) : difference;
+    }
+
+    private static double deadband(double error, double band) {
+        if (error > band) {
+            return error - band;
+        }
+        return error < -band ? error + band : 0.0;
+    }
+
+    private static double slew(double from, double to, double maxStep) {
+        return clamp(to, from - maxStep, from + maxStep);
+    }
+
+    private static double clamp(double value, double lo, double hi) {
+        return value < lo ? lo : (value > hi ? hi : value);
+    }
+
+    /**
+     * Publishes new settings; the next update adopts them whole and rebalances the integral so the
+     * output does not step. Safe to call from any thread.
+     */
+    public void retune(ControllerSettings settings) {
+        published = Objects.requireNonNull(settings, "settings");
+        LOG.debug("retune published: {}", settings.gains());
+    }
+
+    /** The settings the next update will use. */
+    public ControllerSettings settings() {
+        return published;
+    }
+
+    /** Switches to manual; the output stays where it is until {@link #manualOutput(double)} moves it. */
+    public void switchToManual() {
+        if (mode != Mode.MANUAL) {
+            manualValue = previousOutput;
+            mode = Mode.MANUAL;
+        }
+    }
+
+    /** Switches to tracking: the output follows {@link #trackValue(double)}. */
+    public void switchToTracking() {
+        mode = Mode.TRACKING;
+    }
+
+    /** Switches to automatic; the first automatic output equals the last output (bumpless). */
+    public void switchToAutomatic() {
+        mode = Mode.AUTOMATIC;
+    }
+
+    /** The current mode. */
+    public Mode mode() {
+        return mode;
+    }
+
+    /**
+     * Sets the operator's output for manual mode.
+     *
+     * @return false, and nothing changes, when the value is not finite
+     */
+    public boolean manualOutput(double value) {
+        if (!Double.isFinite(value)) {
+            return false;
+        }
+        manualValue = value;
+        return true;
+    }
+
+    /** Sets the external value that tracking mode follows; a non-finite one holds the output. */
+    public void trackValue(double value) {
+        trackValue = value;
+    }
+
+    /** Sets the actuator's measured position for {@link WindupProtection#ACTUATOR_TRACKING}. */
+    public void actuatorPosition(double value) {
+        actuatorPosition = value;
+    }
+
+    /** Sets the feedforward input, added to the output before the limits while feedforward is on. */
+    public void feedforward(double value) {
+        feedforward = value;
+    }
+
+    /** Switches the feedforward on or off; either switch is bumpless. */
+    public void feedforwardOn(boolean on) {
+        feedforwardOn = on;
+    }
+
+    /** Clears every state and counter, back to a controller that has seen no sample. */
+    public void reset() {
+        ControllerSettings s = active;
+        started = false;
+        rebalancePending = false;
+        integral = 0.0;
+        derivativeState = 0.0;
+        previousError = 0.0;
+        previousSetpoint = 0.0;
+        previousMeasurement = 0.0;
+        previousUnlimited = 0.0;
+        previousOutput = clamp(0.0, s.outputMin(), s.outputMax());
+        previousFeedforward = 0.0;
+        feedforwardApplied = feedforwardOn;
+        manualValue = previousOutput;
+        proportionalTerm = 0.0;
+        integralTerm = 0.0;
+        derivativeTerm = 0.0;
+        feedforwardTerm = 0.0;
+        emitted = 0.0;
+        fault = Fault.NONE;
+        faultCount = 0;
+    }
+
+    /** The value the last update returned. */
+    public double output() {
+        return emitted;
+    }
+
+    /** The actuator position the last update asked for (equal to {@link #output()} for position output). */
+    public double position() {
+        return previousOutput;
+    }
+
+    /** The proportional contribution of the last good sample. */
+    public double proportionalTerm() {
+        return proportionalTerm;
+    }
+
+    /** The integral contribution of the last good sample. */
+    public double integralTerm() {
+        return integralTerm;
+    }
+
+    /** The derivative contribution of the last good sample. */
+    public double derivativeTerm() {
+        return derivativeTerm;
+    }
+
+    /** The feedforward contribution of the last good sample. */
+    public double feedforwardTerm() {
+        return feedforwardTerm;
+    }
+
+    /** The fault of the last sample, {@link Fault#NONE} when it was good. */
+    public Fault fault() {
+        return fault;
+    }
+
+    /** Faulty samples seen since construction or the last reset. */
+    public long faultCount() {
+        return faultCount;
+    }
+
+    /** A copy of the whole dynamic state, for a warm restart. */
+    public StateSnapshot snapshot() {
+        ControllerSettings s = active;
+        return new StateSnapshot(s.action(), s.outputKind(), s.outputMin(), s.outputMax(), s.wrapSpan(),
+                mode, started, integral, derivativeState, previousError, previousSetpoint, previousMeasurement,
+                previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied, manualValue, faultCount);
+    }
+
+    /**
+     * Restores a snapshot; the next automatic output equals the snapshot's last output (bumpless
+     * restart), even when the gains have changed since.
+     *
+     * @throws IllegalArgumentException when the snapshot was taken with a different action, output
+     *                                  kind, output range or wrap span
+     */
+    public void restore(StateSnapshot snapshot) {
+        ControllerSettings s = published;
+        snapshot.requireCompatibleWith(s);
+        active = s;
+        mode = snapshot.mode();
+        started = snapshot.started();
+        integral = snapshot.integral();
+        derivativeState = s.derivativeGain > 0.0 ? snapshot.derivativeState() : 0.0;
+        previousError = errorOf(s, snapshot.previousSetpoint(), snapshot.previousMeasurement());
+        previousSetpoint = snapshot.previousSetpoint();
+        previousMeasurement = snapshot.previousMeasurement();
+        previousUnlimited = snapshot.previousUnlimited();
+        previousOutput = snapshot.previousOutput();
+        previousFeedforward = snapshot.previousFeedforward();
+        feedforwardApplied = snapshot.feedforwardApplied();
+        manualValue = snapshot.manualValue();
+        faultCount = snapshot.faultCount();
+        rebalancePending = started;
+        fault = Fault.NONE;
+        LOG.debug("state restored: output {}", previousOutput);
+    }
+}

@@ -1,0 +1,62 @@
+package org.loopwright.pid.form;
+
+import org.loopwright.pid.InvalidSettingException;
+
+/**
+ * Ideal (non-interacting, "standard") gains: u = Kc·(e + (1/Ti)·∫e dt + Td·de/dt).
+ * Ti = ∞ means no integral action; Td = 0 no derivative action.
+ *
+ * <p>Example: Kc = 2, Ti = 30 s, Td = 5 s is {@code new IdealGains(2.0, 30.0, 5.0)}.
+ *
+ * @param gain           Kc, finite and &ge; 0
+ * @param integralTime   Ti in seconds, &gt; 0, or {@link Double#POSITIVE_INFINITY}
+ * @param derivativeTime Td in seconds, finite and &ge; 0
+ */
+public record IdealGains(double gain, double integralTime, double derivativeTime) implements PidGains {
+
+    /** Validates every value; see the record description for the allowed ranges. */
+    public IdealGains {
+        GainChecks.nonNegativeFinite("gain", gain);
+        GainChecks.positiveOrInfinite("integralTime", integralTime);
+        GainChecks.nonNegativeFinite("derivativeTime", derivativeTime);
+    }
+
+    /** PI or P-only gains: no derivative action. */
+    public static IdealGains pi(double gain, double integralTime) {
+        return new IdealGains(gain, integralTime, 0.0);
+    }
+
+    @Override
+    public ControllerForm form() {
+        return ControllerForm.IDEAL;
+    }
+
+    /** Kp = Kc, Ki = Kc/Ti, Kd = Kc·Td (Åström &amp; Hägglund 2006, §3.4). */
+    @Override
+    public ParallelGains toParallel() {
+        double integralGain = Double.isInfinite(integralTime) ? 0.0 : gain / integralTime;
+        return new ParallelGains(gain, integralGain, gain * derivativeTime);
+    }
+
+    /**
+     * The series (interacting) equivalent, which exists only when Ti &ge; 4·Td
+     * (Åström &amp; Hägglund 2006, eq. 3.10): with s = √(1 − 4·Td/Ti),
+     * Kc' = Kc·(1 + s)/2, Ti' = Ti·(1 + s)/2, Td' = Ti·(1 − s)/2.
+     *
+     * @throws InvalidSettingException naming Ti and Td when Ti &lt; 4·Td
+     */
+    public SeriesGains toSeries() {
+        if (derivativeTime == 0.0 || Double.isInfinite(integralTime)) {
+            return new SeriesGains(gain, integralTime, derivativeTime);
+        }
+        if (integralTime < 4.0 * derivativeTime) {
+            throw new InvalidSettingException("integralTime", integralTime,
+                    "must be >= 4 * derivativeTime for a series form to exist (derivativeTime="
+                            + derivativeTime + ")");
+        }
+        double root = Math.sqrt(1.0 - 4.0 * derivativeTime / integralTime);
+        return new SeriesGains(gain * (1.0 + root) / 2.0,
+                integralTime * (1.0 + root) / 2.0,
+                integralTime * (1.0 - root) / 2.0);
+    }
+}

@@ -1,0 +1,19 @@
+package org.loopwright.pid.form;
+
+/**
+ * PID gains in one of the three standard forms. Every form converts exactly to
+ * {@link ParallelGains}, which is how the controller runs it.
+ */
+public sealed interface PidGains permits ParallelGains, IdealGains, SeriesGains {
+
+    /** The form these gains are written in. */
+    ControllerForm form();
+
+    /** The exact parallel equivalent. */
+    ParallelGains toParallel();
+
+    /** Whether the gains contain integral action. */
+    default boolean hasIntegralAction() {
+        return toParallel().integralGain() > 0.0;
+    }
+}

@@ -1,0 +1,42 @@
+package org.loopwright.sim.cli;
+
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/**
+ * The command-line harness: {@code java -jar loopwright.jar <command> ...}. Exit codes: 0 success,
+ * 1 an internal error, 2 bad input (a file, an option or a value).
+ */
+@Command(name = "loopwright", mixinStandardHelpOptions = true, version = "loopwright 0.1.0",
+        description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
+        subcommands = {CommandLine.HelpCommand.class})
+public final class LoopwrightCommand implements Runnable {
+
+    /** Exit code for bad input. */
+    public static final int BAD_INPUT = 2;
+
+    @CommandLine.Spec
+    private CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        spec.commandLine().usage(spec.commandLine().getOut());
+    }
+
+    /** A command line with this project's exit codes and error handling. */
+    public static CommandLine commandLine() {
+        CommandLine cli = new CommandLine(new LoopwrightCommand());
+        cli.setExitCodeExceptionMapper(e -> BAD_INPUT);
+        cli.setParameterExceptionHandler((ex, args) -> {
+            ex.getCommandLine().getErr().println(ex.getMessage());
+            ex.getCommandLine().usage(ex.getCommandLine().getErr());
+            return BAD_INPUT;
+        });
+        return cli;
+    }
+
+    /** Entry point of the shaded jar. */
+    public static void main(String[] args) {
+        System.exit(commandLine().execute(args));
+    }
+}

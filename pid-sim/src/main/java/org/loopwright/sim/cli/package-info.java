@@ -1,0 +1,2 @@
+/** The command-line harness and its sub-commands. */
+package org.loopwright.sim.cli;
