@@ -12,13 +12,12 @@ import org.loopwright.sim.simulate.Trajectory;
  *
  * <p>Definitions (Åström &amp; Murray, <i>Feedback Systems</i>, 2nd ed., 2021, §5.3 for the step
  * figures; the integral criteria as in Åström &amp; Hägglund, <i>Advanced PID Control</i>, 2006, §4.4):
- * with y₀ the output at the window's start and y∞ its final value, the mean over the window's last
- * {@value #FINAL_SHARE_PERCENT} % (at least one sample; for a settled response this is its last value,
- * for one still oscillating it is the centre of the swing),
+ * with y₀ the output at the window's start and y∞ its value at the window's end,
  * <ul>
  * <li>rise time: from reaching y₀ + 10 % to y₀ + 90 % of y∞ − y₀ (linear interpolation between samples);</li>
  * <li>settling time: from the window's start until the output stays within ±2 % of |y∞ − y₀| around y∞
- *     (resolved to the sample); not settled (NaN) when it is outside the band during the final stretch;</li>
+ *     (resolved to the sample); not settled (NaN) when it is still outside the band during the window's
+ *     last {@value #FINAL_SHARE_PERCENT} %;</li>
  * <li>overshoot: the largest excursion beyond y∞ in percent of |y∞ − y₀|; peak time: when it occurs;</li>
  * <li>steady-state error: r − y at the window's end;</li>
  * <li>IAE, ISE, ITAE: ∫|e|dt, ∫e²dt, ∫(t − t₀)|e|dt with e = r − y, from the window's start to the end of
@@ -45,7 +44,7 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
     /** The share of the step that counts as settled (2 %). */
     public static final double SETTLING_BAND = 0.02;
 
-    /** The share of the window, in percent, over whose end the final value is averaged. */
+    /** The final share of the window, in percent, in which a settled response must stay within the band. */
     public static final int FINAL_SHARE_PERCENT = 5;
 
     /**
@@ -85,11 +84,7 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
         double t0 = trajectory.time(first);
         double y0 = trajectory.process(first);
         int tail = Math.max(1, (last - first + 1) * FINAL_SHARE_PERCENT / 100);
-        double yEnd = 0.0;
-        for (int k = last - tail + 1; k <= last; k++) {
-            yEnd += trajectory.process(k);
-        }
-        yEnd /= tail;
+        double yEnd = trajectory.process(last);
         double step = yEnd - y0;
         double scale = Math.max(Math.abs(y0), Math.abs(yEnd));
         boolean moved = Math.abs(step) > 1e-9 * Math.max(1.0, scale);
@@ -188,7 +183,7 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
 
     /**
      * The first sample instant after which the output stays within the band; NaN when it is still
-     * outside during the final stretch (from {@code finalStart}) that defines the final value.
+     * outside during the final stretch (from {@code finalStart}).
      */
     private static double settlingTime(Trajectory trajectory, int first, int finalStart, int last, double target,
             double band) {
