@@ -1,5 +1,6 @@
 package org.loopwright.sim.metrics;
 
+import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.Trajectory;
 
@@ -54,7 +55,7 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
     public static ResponseMetrics of(Scenario scenario, Trajectory trajectory) {
         double start = scenario.setpoint().isEmpty() ? 0.0 : scenario.setpoint().get(0).atSeconds();
         double end = Double.POSITIVE_INFINITY;
-        for (var load : scenario.disturbances()) {
+        for (LoadStep load : scenario.disturbances()) {
             if (load.atSeconds() > start) {
                 end = load.atSeconds();
                 break;

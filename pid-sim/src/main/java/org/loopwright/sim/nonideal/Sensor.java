@@ -1,5 +1,6 @@
 package org.loopwright.sim.nonideal;
 
+import java.util.Arrays;
 import java.util.SplittableRandom;
 
 /**
@@ -25,9 +26,12 @@ public final class Sensor {
         reset(0.0);
     }
 
-    /** Back to the start: the same random streams again, the delay line filled with {@code processValue}. */
+    /**
+     * Back to the start: the same random streams again (three small objects are made here, never
+     * per sample), the delay line filled with {@code processValue}.
+     */
     public void reset(double processValue) {
-        java.util.Arrays.fill(delayLine, processValue);
+        Arrays.fill(delayLine, processValue);
         next = 0;
         SplittableRandom root = new SplittableRandom(seed);
         noise = root.split();

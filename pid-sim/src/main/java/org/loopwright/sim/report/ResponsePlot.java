@@ -10,6 +10,7 @@ import org.knowm.xchart.VectorGraphicsEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
+import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.loopwright.sim.simulate.Trajectory;
 
@@ -55,6 +56,7 @@ public final class ResponsePlot {
         }
         line(chart, "controller output", time, output, 1);
         chart.setYAxisGroupTitle(1, "controller output");
+        chart.getStyler().setYAxisGroupPosition(1, Styler.YAxisPosition.Right);
         return chart;
     }
 
@@ -75,6 +77,9 @@ public final class ResponsePlot {
                 .yAxisTitle(yAxisTitle).build();
         chart.getStyler().setMarkerSize(0);
         chart.getStyler().setChartBackgroundColor(java.awt.Color.WHITE);
+        chart.getStyler().setXAxisDecimalPattern("0.###");
+        chart.getStyler().setXAxisTickMarkSpacingHint(120);
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.InsideSE);
         return chart;
     }
 

@@ -2,10 +2,17 @@ package org.loopwright.sim.scenario;
 
 import static java.util.Map.entry;
 
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Iterator;
 import java.util.List;
 import java.util.function.Supplier;
+
+import com.fasterxml.jackson.databind.JsonNode;
 
 import org.loopwright.pid.Action;
 import org.loopwright.pid.onoff.OnOffSettings;
@@ -121,10 +128,10 @@ public final class ScenarioFile {
 
     /** The text of the built-in demo scenario, as an example of the format. */
     public static String waterBathDemoText() {
-        try (var in = ScenarioFile.class.getResourceAsStream(WATER_BATH)) {
-            return new String(in.readAllBytes(), java.nio.charset.StandardCharsets.UTF_8);
-        } catch (java.io.IOException e) {
-            throw new java.io.UncheckedIOException(e);
+        try (InputStream in = ScenarioFile.class.getResourceAsStream(WATER_BATH)) {
+            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
         }
     }
 
@@ -343,7 +350,7 @@ public final class ScenarioFile {
 
         /** A whole number (a seed, a count of samples). */
         private long whole(String pointer, boolean nonNegative) {
-            var node = doc.node(pointer);
+            JsonNode node = doc.node(pointer);
             String key = doc.keyName(pointer);
             boolean ok = node.isIntegralNumber() && node.canConvertToLong() && (!nonNegative || node.longValue() >= 0)
                     && (!nonNegative || node.longValue() <= Integer.MAX_VALUE);
@@ -357,7 +364,7 @@ public final class ScenarioFile {
         /** Keys of other plant types are errors, so no key is silently ignored. */
         private void allow(String p, String type, String... keys) {
             List<String> allowed = List.of(keys);
-            var names = doc.node(p).fieldNames();
+            Iterator<String> names = doc.node(p).fieldNames();
             while (names.hasNext()) {
                 String key = names.next();
                 if (!allowed.contains(key)) {

@@ -1,5 +1,7 @@
 package org.loopwright.sim.simulate;
 
+import java.util.Arrays;
+
 /**
  * A closed-loop run, one row per sample k: the sample instant, the setpoint r(k), the measurement
  * y(k) the controller read (NaN for a dropout), the controller output u(k) held from that instant,
@@ -95,31 +97,31 @@ public final class Trajectory {
 
     /** A copy of the sample instants. */
     public double[] times() {
-        return java.util.Arrays.copyOf(time, length);
+        return Arrays.copyOf(time, length);
     }
 
     /** A copy of the setpoints. */
     public double[] setpoints() {
-        return java.util.Arrays.copyOf(setpoint, length);
+        return Arrays.copyOf(setpoint, length);
     }
 
     /** A copy of the measurements. */
     public double[] measurements() {
-        return java.util.Arrays.copyOf(measurement, length);
+        return Arrays.copyOf(measurement, length);
     }
 
     /** A copy of the controller outputs. */
     public double[] outputs() {
-        return java.util.Arrays.copyOf(output, length);
+        return Arrays.copyOf(output, length);
     }
 
     /** A copy of the disturbances. */
     public double[] disturbances() {
-        return java.util.Arrays.copyOf(disturbance, length);
+        return Arrays.copyOf(disturbance, length);
     }
 
     /** A copy of the true process outputs. */
     public double[] processOutputs() {
-        return java.util.Arrays.copyOf(process, length);
+        return Arrays.copyOf(process, length);
     }
 }
