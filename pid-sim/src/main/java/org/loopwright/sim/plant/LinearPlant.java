@@ -26,7 +26,7 @@ import org.hipparchus.linear.RealMatrix;
  */
 public final class LinearPlant implements Plant {
 
-    private static final int CACHED_LENGTHS = 16;
+    private static final int CACHED_LENGTHS = 64;
     private static final int INITIAL_PIECES = 16;
 
     private final TransferFunction model;

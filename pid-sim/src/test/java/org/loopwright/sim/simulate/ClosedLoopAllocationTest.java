@@ -32,25 +32,32 @@ class ClosedLoopAllocationTest {
     private static final ControllerSettings PID = ControllerSettings.builder()
             .gains(new IdealGains(1.2, 20.0, 2.0)).samplePeriodSeconds(0.1).outputRange(-50.0, 50.0).build();
 
-    static Stream<Arguments> loops() {
+    /** A scenario with every non-ideal part but jitter, setpoint steps and ramps, a load step inside a period. */
+    private static Scenario.Builder everything() {
         double duration = (WARM_UP + MEASURED) * 0.1 + 1.0;
-        Scenario.Builder fopdt = Scenario.builder().plant(TransferFunction.fopdt(2.0, 30.0, 5.55)).controller(PID)
+        return Scenario.builder().plant(TransferFunction.fopdt(2.0, 30.0, 5.55)).controller(PID)
                 .setpoint(SetpointChange.step(0.0, 10.0), new SetpointChange(50.0, 20.0, 30.0))
                 .disturbance(new LoadStep(100.03, -3.0))
                 .actuator(new ActuatorModel(-40.0, 40.0, 100.0, 0.2))
                 .sensor(new SensorModel(0.05, 0.01, 3, 0.0, 0.01))
                 .durationSeconds(duration);
+    }
+
+    static Stream<Arguments> loops() {
         OnOffSettings thermostat = new OnOffSettings(0.0, 2000.0, 0.5, 20.0, 20.0, Action.REVERSE);
         return Stream.of(
-                Arguments.of("fopdt with every non-ideal part", fopdt.build()),
-                Arguments.of("sopdt", fopdt.plant(TransferFunction.sopdt(1.0, 10.0, 3.0, 1.0)).build()),
+                Arguments.of("fopdt with every non-ideal part", everything().build()),
+                Arguments.of("sopdt", everything().plant(TransferFunction.sopdt(1.0, 10.0, 3.0, 1.0)).build()),
+                Arguments.of("sopdt without dead time, jittered samples", everything()
+                        .plant(TransferFunction.sopdt(1.0, 10.0, 3.0, 0.0))
+                        .sensor(new SensorModel(0.05, 0.01, 3, 0.03, 0.01)).build()),
                 Arguments.of("thermal zone, on-off", Scenario.builder()
                         .plant(new ThermalZoneModel(21_000.0, 5.0, 20.0, 2_000.0, 1.0))
                         .onOffController(thermostat, 1.0).setpoint(SetpointChange.step(0.0, 60.0))
                         .durationSeconds((WARM_UP + MEASURED) * 1.0 + 1.0).build()),
-                Arguments.of("dc motor with friction", fopdt.plant(new DcMotorModel(2.0, 0.1, 0.1, 0.1, 0.01,
+                Arguments.of("dc motor with friction", everything().plant(new DcMotorModel(2.0, 0.1, 0.1, 0.1, 0.01,
                         0.01, 0.0, 0.04, 0.05, MotorOutput.POSITION, 5e-3)).build()),
-                Arguments.of("tank", fopdt.plant(new TankModel(0.5, 0.01, 0.2, 0.05)).build()));
+                Arguments.of("tank", everything().plant(new TankModel(0.5, 0.01, 0.2, 0.05)).build()));
     }
 
     @ParameterizedTest(name = "{0}")
