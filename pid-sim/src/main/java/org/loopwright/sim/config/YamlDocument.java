@@ -169,12 +169,22 @@ public final class YamlDocument {
             return list;
         }
 
+        /** YAML 1.1's .inf, -.inf and .nan, which Jackson tokenises as floats but cannot convert itself. */
+        private double floatValue(String text) throws IOException {
+            return switch (text) {
+                case ".inf", ".Inf", ".INF", "+.inf", "+.Inf", "+.INF" -> Double.POSITIVE_INFINITY;
+                case "-.inf", "-.Inf", "-.INF" -> Double.NEGATIVE_INFINITY;
+                case ".nan", ".NaN", ".NAN" -> Double.NaN;
+                default -> parser.getDoubleValue();
+            };
+        }
+
         private JsonNode scalar(JsonToken token) throws IOException {
             return switch (token) {
                 case VALUE_NUMBER_INT -> parser.getNumberType() == JsonParser.NumberType.BIG_INTEGER
                         ? NODES.numberNode(parser.getBigIntegerValue())
                         : NODES.numberNode(parser.getLongValue());
-                case VALUE_NUMBER_FLOAT -> NODES.numberNode(parser.getDoubleValue());
+                case VALUE_NUMBER_FLOAT -> NODES.numberNode(floatValue(parser.getText()));
                 case VALUE_TRUE -> NODES.booleanNode(true);
                 case VALUE_FALSE -> NODES.booleanNode(false);
                 case VALUE_NULL -> NODES.nullNode();
@@ -327,7 +337,8 @@ public final class YamlDocument {
         }
         double number = value.doubleValue();
         if (!rule.accepts(number)) {
-            throw error(pointer, key + " must be " + rule.description() + ": " + key + "=" + sourceText(pointer));
+            String allowed = rule.description().isEmpty() ? rule.describeNumber() : rule.description();
+            throw error(pointer, key + " must be " + allowed + ": " + key + "=" + sourceText(pointer));
         }
         return number;
     }

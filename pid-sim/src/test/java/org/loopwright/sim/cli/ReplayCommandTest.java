@@ -162,6 +162,15 @@ class ReplayCommandTest {
     }
 
     @Test
+    void unwritableOutputExitsWithTwo() throws IOException {
+        Path controller = file("c.yaml", PI_CONTROLLER);
+        Path trace = file("t.csv", "time,setpoint,measurement\n0,1,0\n");
+        assertThat(run("replay", "--controller", controller.toString(), "--trace", trace.toString(),
+                "--out", dir.toString())).isEqualTo(2);
+        assertThat(err.toString()).startsWith(dir.toAbsolutePath() + ": cannot be written (");
+    }
+
+    @Test
     void onlyOneOfControllerAndTraceExitsWithTwo() throws IOException {
         Path controller = file("c.yaml", PI_CONTROLLER);
         assertThat(run("replay", "--controller", controller.toString())).isEqualTo(2);

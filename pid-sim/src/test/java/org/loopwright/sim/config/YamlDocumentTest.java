@@ -115,4 +115,15 @@ class YamlDocumentTest {
         assertThatThrownBy(() -> empty.requiredNumber("/gain", NumberRule.ANY))
                 .hasMessage("empty.yaml:1:1: missing key 'gain' (a number)");
     }
+
+    @Test
+    void yamlInfinitiesAreNumbersThatOnlyTheAnyRuleAccepts() {
+        YamlDocument limits = YamlDocument.parse("limits.yaml", "high: .inf\nlow: -.inf\n");
+        assertThat(limits.requiredNumber("/high", NumberRule.ANY)).isEqualTo(Double.POSITIVE_INFINITY);
+        assertThat(limits.requiredNumber("/low", NumberRule.ANY)).isEqualTo(Double.NEGATIVE_INFINITY);
+        assertThatThrownBy(() -> limits.requiredNumber("/high", NumberRule.FINITE))
+                .hasMessage("limits.yaml:1:1: high must be finite: high=.inf");
+        assertThatThrownBy(() -> YamlDocument.parse("nan.yaml", "x: .nan\n").requiredNumber("/x", NumberRule.ANY))
+                .hasMessage("nan.yaml:1:1: x must be a number: x=.nan");
+    }
 }
