@@ -86,7 +86,7 @@ public final class YamlDocument {
         Map<String, TextPosition> positions = new HashMap<>();
         Map<String, String> sourceText = new HashMap<>();
         try (JsonParser parser = YAML.createParser(new StringReader(text))) {
-            Builder builder = new Builder(fileName, parser, positions, sourceText);
+            TreeBuilder builder = new TreeBuilder(fileName, parser, positions, sourceText);
             JsonToken first = parser.nextToken();
             JsonNode root;
             if (first == null) {
@@ -112,13 +112,13 @@ public final class YamlDocument {
     }
 
     /** Builds the tree from the token stream, recording positions and the source text of scalars. */
-    private static final class Builder {
+    private static final class TreeBuilder {
         private final String fileName;
         private final JsonParser parser;
         private final Map<String, TextPosition> positions;
         private final Map<String, String> sourceText;
 
-        Builder(String fileName, JsonParser parser, Map<String, TextPosition> positions,
+        TreeBuilder(String fileName, JsonParser parser, Map<String, TextPosition> positions,
                 Map<String, String> sourceText) {
             this.fileName = fileName;
             this.parser = parser;
@@ -418,6 +418,15 @@ public final class YamlDocument {
             throw error(pointer, key + " must be a non-empty text: " + key + "=" + sourceText(pointer));
         }
         return value.asText();
+    }
+
+    /**
+     * An optional non-empty text value, with a value for when the key is absent.
+     *
+     * @throws InputFileException when the key is present but its value is not a text or is empty
+     */
+    public String optionalText(String pointer, String absent) {
+        return has(pointer) ? requiredText(pointer) : absent;
     }
 
     private static String parentOf(String pointer) {

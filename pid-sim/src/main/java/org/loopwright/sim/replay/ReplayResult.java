@@ -17,7 +17,7 @@ import org.loopwright.sim.config.Keywords;
  * contributions (those of the last good sample on a faulty row), the status, the actuator position
  * and the period used.
  *
- * <p>Thread-safe: not shared; the arrays are owned by this object and never handed out.
+ * <p>Thread-safe: immutable once the replay has filled it (its arrays are never handed out).
  */
 public final class ReplayResult {
 

@@ -119,7 +119,7 @@ public final class ReplaySummary {
                     kinds.add(ReplayResult.STATUS_WORDS.word(fault) + " " + faults.get(fault));
                 }
             }
-            lines.add("Faults: " + faultRows() + " rows (" + String.join(", ", kinds) + ")");
+            lines.add("Faults: " + faultRows() + (faultRows() == 1 ? " row (" : " rows (") + String.join(", ", kinds) + ")");
         }
         lines.add("Output: min " + number(outputMin) + ", max " + number(outputMax) + ", mean " + number(outputMean));
         if (Double.isInfinite(limitMin) && Double.isInfinite(limitMax)) {

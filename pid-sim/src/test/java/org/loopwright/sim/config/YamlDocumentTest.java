@@ -47,6 +47,7 @@ class YamlDocumentTest {
     @Test
     void typedReadersReturnTheValues() {
         assertThat(doc.requiredText("/name")).isEqualTo("bath warm-up");
+        assertThat(doc.optionalText("/title", "untitled")).isEqualTo("untitled");
         assertThat(doc.requiredNumber("/duration", NumberRule.POSITIVE)).isEqualTo(600.0);
         assertThat(doc.requiredChoice("/plant/kind", KINDS)).isEqualTo("FO");
         assertThat(doc.optionalChoice("/plant/shape", KINDS, "SO")).isEqualTo("SO");

@@ -130,7 +130,7 @@ class ReplayTest {
         assertThat(summary.totalSeconds()).isEqualTo(2.0);
         assertThat(summary.lines()).containsExactly(
                 "Rows: 4, 2.000 s",
-                "Faults: 1 rows (measurement-not-finite 1)",
+                "Faults: 1 row (measurement-not-finite 1)",
                 "Output: min 5.000, max 10.000, mean 8.750",
                 "Time in saturation: 1.500 s of 2.000 s (75.0 %) at output-min 0.000 or output-max 10.000");
         StringBuilder csv = new StringBuilder();
