@@ -145,9 +145,9 @@ class ReplayTest {
     }
 
     @Test
-    void everyFaultHasAStatusWord() {
-        for (Fault fault : Fault.values()) {
-            assertThat(ReplayResult.STATUS_WORDS.word(fault)).isNotBlank();
-        }
+    void statusWordsAreNormalOrTheFaultInLowerCaseWithHyphens() {
+        assertThat(ReplayResult.statusWord(Fault.NONE)).isEqualTo("normal");
+        assertThat(ReplayResult.statusWord(Fault.MEASUREMENT_NOT_FINITE)).isEqualTo("measurement-not-finite");
+        assertThat(ReplayResult.statusWord(Fault.PERIOD_NOT_VALID)).isEqualTo("period-not-valid");
     }
 }
