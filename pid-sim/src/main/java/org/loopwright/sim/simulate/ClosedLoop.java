@@ -18,8 +18,11 @@ import org.loopwright.sim.scenario.SetpointChange;
  *     the advance at its own time;</li>
  * <li>y(k) is read through the sensor (delay, noise, quantisation, dropout) and r(k) is taken from
  *     the setpoint profile at t(k);</li>
- * <li>u(k) is computed and handed to the actuator, which delivers it over [t(k), t(k+1)).</li>
+ * <li>u(k) is computed and handed to the actuator, which delivers it over [t(k), t(k+1)); the
+ *     controller is told what was delivered (for actuator-tracking anti-windup).</li>
  * </ol>
+ * An incremental (velocity-form) PID controller is taken to drive an integrating actuator: u(k) is
+ * then the position that actuator reaches, as the controller reports it.
  *
  * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
  * cached its discretisation after the first samples). Usable from a benchmark:
@@ -144,6 +147,7 @@ public final class ClosedLoop {
         double y = sensor.read(process);
         double u = law.update(r, y, instant);
         delivered = actuator.deliver(u, periodSeconds);
+        law.delivered(delivered);
         trajectory.record(instant, r, y, u, load, process, delivered, law.atLimit() || actuator.limited());
         previousInstant = instant;
         previousDelay = delay;

@@ -1,5 +1,6 @@
 package org.loopwright.sim.simulate;
 
+import org.loopwright.pid.OutputKind;
 import org.loopwright.pid.PidController;
 import org.loopwright.pid.onoff.OnOffController;
 
@@ -12,24 +13,36 @@ abstract sealed class FeedbackLaw {
     /** Whether the last output sits at one of the controller's own finite limits. */
     abstract boolean atLimit();
 
+    /** What the actuator delivered from this sample on, for a controller that tracks its actuator. */
+    abstract void delivered(double value);
+
     abstract void reset();
 
     static final class Pid extends FeedbackLaw {
         private final PidController controller;
         private final double min;
         private final double max;
+        private final boolean incremental;
         private double last;
 
         Pid(PidController controller) {
             this.controller = controller;
             this.min = controller.settings().outputMin();
             this.max = controller.settings().outputMax();
+            this.incremental = controller.settings().outputKind() == OutputKind.INCREMENT;
+        }
+
+        /** An incremental controller drives an integrating actuator: the loop sees the position it reaches. */
+        @Override
+        double update(double setpoint, double measurement, double nowSeconds) {
+            double u = controller.update(setpoint, measurement);
+            last = incremental ? controller.position() : u;
+            return last;
         }
 
         @Override
-        double update(double setpoint, double measurement, double nowSeconds) {
-            last = controller.update(setpoint, measurement);
-            return last;
+        void delivered(double value) {
+            controller.actuatorPosition(value);
         }
 
         @Override
@@ -59,6 +72,11 @@ abstract sealed class FeedbackLaw {
         @Override
         boolean atLimit() {
             return false;
+        }
+
+        @Override
+        void delivered(double value) {
+            // an on-off controller does not track its actuator
         }
 
         @Override
