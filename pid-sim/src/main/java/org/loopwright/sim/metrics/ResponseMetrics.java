@@ -2,6 +2,7 @@ package org.loopwright.sim.metrics;
 
 import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.SetpointChange;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -50,14 +51,20 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
 
     /**
      * The metrics of a scenario's run: the window starts at the first setpoint change (0 without one)
-     * and the step figures end at the first load step after it (or the end of the run).
+     * and the step figures end at the next setpoint change or load step after it (or the end of the run).
      */
     public static ResponseMetrics of(Scenario scenario, Trajectory trajectory) {
         double start = scenario.setpoint().isEmpty() ? 0.0 : scenario.setpoint().get(0).atSeconds();
         double end = Double.POSITIVE_INFINITY;
+        for (SetpointChange change : scenario.setpoint()) {
+            if (change.atSeconds() > start) {
+                end = change.atSeconds();
+                break;
+            }
+        }
         for (LoadStep load : scenario.disturbances()) {
             if (load.atSeconds() > start) {
-                end = load.atSeconds();
+                end = Math.min(end, load.atSeconds());
                 break;
             }
         }
