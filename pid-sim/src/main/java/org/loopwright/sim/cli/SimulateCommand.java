@@ -25,7 +25,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /**
- * {@code simulate [SCENARIO.yaml] [--out DIR] [--json]}: runs a closed-loop scenario, writes
+ * {@code simulate [SCENARIO.yaml] [--out DIR] [--json] [--show-demo]}: runs a closed-loop scenario, writes
  * {@code trajectory.csv}, {@code response.png} and {@code response.svg} into DIR, and prints the
  * metrics as a table (or one JSON object with {@code --json}). Without a scenario it runs the
  * built-in water-bath demo and says so (on standard error, so that JSON output stays clean).
@@ -37,7 +37,7 @@ import picocli.CommandLine.Model.CommandSpec;
 public final class SimulateCommand implements Callable<Integer> {
 
     @Parameters(index = "0", arity = "0..1", paramLabel = "SCENARIO.yaml",
-            description = "The scenario file (see the scenario file format in the README).")
+            description = "The scenario file (YAML; --show-demo prints an example of the format).")
     private Path scenarioFile;
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
@@ -47,6 +47,9 @@ public final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--json", description = "Print the metrics as one JSON object instead of a table.")
     private boolean json;
 
+    @Option(names = "--show-demo", description = "Print the built-in demo scenario (an example of the format) and stop.")
+    private boolean showDemo;
+
     @Spec
     private CommandSpec spec;
 
@@ -54,6 +57,11 @@ public final class SimulateCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
+        if (showDemo) {
+            out.print(ScenarioFile.waterBathDemoText());
+            out.flush();
+            return 0;
+        }
         Scenario scenario;
         String title;
         try {

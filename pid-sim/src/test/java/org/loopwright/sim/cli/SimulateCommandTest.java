@@ -62,6 +62,14 @@ class SimulateCommandTest {
     }
 
     @Test
+    void showDemoPrintsAScenarioThatReadsBack(@TempDir Path dir) throws IOException {
+        assertThat(run("simulate", "--show-demo")).isZero();
+        Path copy = dir.resolve("bath.yaml");
+        Files.writeString(copy, out.toString());
+        assertThat(org.loopwright.sim.scenario.ScenarioFile.read(copy).durationSeconds()).isEqualTo(7200.0);
+    }
+
+    @Test
     void badScenarioExitsWithTwoAndALocatedMessage(@TempDir Path dir) throws IOException {
         Path scenario = dir.resolve("bad.yaml");
         Files.writeString(scenario, "controller: {form: ideal, gain: 1, sample-period: 1}\nplant: {type: fopdt}\n"
