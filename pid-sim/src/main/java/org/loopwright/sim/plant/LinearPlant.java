@@ -16,7 +16,7 @@ import org.hipparchus.linear.RealMatrix;
  * pieces (value, length) in a queue that starts with L seconds of zero input, and each advance
  * integrates exactly across the piece boundaries that fall inside it. Nothing is rounded.
  *
- * <p>Φ and Γ are cached by interval length (the last {@value #CACHED_LENGTHS} lengths), so a
+ * <p>Φ and Γ are cached by interval length (the last 64 lengths), so a
  * fixed-period simulation computes them once or twice and then allocates nothing. A biproper
  * transfer function (deg N = deg D) feeds the held input straight through to {@link #output()}.
  *
