@@ -27,16 +27,19 @@ public final class Sensor {
     }
 
     /**
-     * Back to the start: the same random streams again (three small objects are made here, never
-     * per sample), the delay line filled with {@code processValue}.
+     * Back to the start: the same random streams again, the delay line filled with {@code processValue}.
+     * A sensor with any random part makes its three small generators here (never per sample); an
+     * ideal or deterministic one allocates nothing.
      */
     public void reset(double processValue) {
         Arrays.fill(delayLine, processValue);
         next = 0;
-        SplittableRandom root = new SplittableRandom(seed);
-        noise = root.split();
-        dropouts = root.split();
-        jitter = root.split();
+        if (model.noiseStdDev() > 0.0 || model.dropoutProbability() > 0.0 || model.jitterSeconds() > 0.0) {
+            SplittableRandom root = new SplittableRandom(seed);
+            noise = root.split();
+            dropouts = root.split();
+            jitter = root.split();
+        }
     }
 
     /**

@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.lang.management.ManagementFactory;
 import java.util.stream.Stream;
 
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
@@ -78,5 +79,26 @@ class ClosedLoopAllocationTest {
         long allocated = threads.getThreadAllocatedBytes(thread) - before;
         assertThat(taken).isEqualTo(MEASURED);
         assertThat(allocated).as("bytes over %d steps", MEASURED).isZero();
+    }
+
+    /** A benchmark runs the loop for ever by rewinding it: with a deterministic sensor that allocates nothing either. */
+    @Test
+    void rewindingADeterministicLoopAllocatesNothing() {
+        com.sun.management.ThreadMXBean threads =
+                (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
+        ClosedLoop loop = new ClosedLoop(everything().sensor(new SensorModel(0.0, 0.01, 2, 0.0, 0.0))
+                .durationSeconds(100.0).build());
+        for (int i = 0; i < WARM_UP; i++) {
+            if (!loop.step()) {
+                loop.rewind();
+            }
+        }
+        long before = threads.getThreadAllocatedBytes(Thread.currentThread().getId());
+        for (int i = 0; i < MEASURED; i++) {
+            if (!loop.step()) {
+                loop.rewind();
+            }
+        }
+        assertThat(threads.getThreadAllocatedBytes(Thread.currentThread().getId()) - before).isZero();
     }
 }
