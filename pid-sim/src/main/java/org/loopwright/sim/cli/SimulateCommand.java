@@ -10,6 +10,7 @@ import java.util.concurrent.Callable;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseWindow;
 import org.loopwright.sim.report.MetricsReport;
 import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.report.TrajectoryCsv;
@@ -93,6 +94,8 @@ public final class SimulateCommand implements Callable<Integer> {
         } else {
             out.printf("%s: %d samples every %s s over %s s%n", title, trajectory.length(),
                     scenario.samplePeriodSeconds(), scenario.durationSeconds());
+            out.println("Step figures " + ResponseWindow.of(scenario).describe()
+                    + " (the first setpoint change until the next change or load step); integrals to the end:");
             out.print(MetricsReport.table(metrics, cycle));
             out.println("Wrote trajectory.csv, response.png and response.svg in " + outDirectory);
         }

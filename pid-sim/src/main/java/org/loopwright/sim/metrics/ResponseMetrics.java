@@ -1,8 +1,6 @@
 package org.loopwright.sim.metrics;
 
-import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
-import org.loopwright.sim.scenario.SetpointChange;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -50,25 +48,11 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
     public static final int FINAL_SHARE_PERCENT = 5;
 
     /**
-     * The metrics of a scenario's run: the window starts at the first setpoint change (0 without one)
-     * and the step figures end at the next setpoint change or load step after it (or the end of the run).
+     * The metrics of a scenario's run over its {@link ResponseWindow#of(Scenario) response window}.
      */
     public static ResponseMetrics of(Scenario scenario, Trajectory trajectory) {
-        double start = scenario.setpoint().isEmpty() ? 0.0 : scenario.setpoint().get(0).atSeconds();
-        double end = Double.POSITIVE_INFINITY;
-        for (SetpointChange change : scenario.setpoint()) {
-            if (change.atSeconds() > start) {
-                end = change.atSeconds();
-                break;
-            }
-        }
-        for (LoadStep load : scenario.disturbances()) {
-            if (load.atSeconds() > start) {
-                end = Math.min(end, load.atSeconds());
-                break;
-            }
-        }
-        return of(trajectory, start, end);
+        ResponseWindow window = ResponseWindow.of(scenario);
+        return of(trajectory, window.startSeconds(), window.endSeconds());
     }
 
     /**

@@ -7,7 +7,9 @@ import org.junit.jupiter.api.Test;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.SetpointChange;
 import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 
@@ -78,5 +80,18 @@ class ResponseMetricsTest {
         assertThat(ResponseMetrics.peakDeviation(t, 0.0)).isCloseTo(0.25, within(1e-6));
         // ∫ of 0.25·(1 − e^(−2t)) over 30 s with closed-loop time constant 2/(1+3) = 0.5 s
         assertThat(ResponseMetrics.loadIae(t, 0.0)).isCloseTo(0.25 * (30.0 - 0.5), within(0.01));
+    }
+
+    @Test
+    void windowRunsFromTheFirstSetpointChangeToTheNextChangeOrLoadStep() {
+        ControllerSettings c = pi(1.0, 5.0, 0.1);
+        Scenario.Builder b = Scenario.builder().plant(TransferFunction.firstOrder(1.0, 1.0)).controller(c)
+                .durationSeconds(100.0);
+        assertThat(ResponseWindow.of(b.build())).isEqualTo(new ResponseWindow(0.0, Double.POSITIVE_INFINITY));
+        Scenario stepped = b.setpoint(SetpointChange.step(10.0, 1.0),
+                SetpointChange.step(60.0, 2.0))
+                .disturbance(new LoadStep(40.5, 1.0)).build();
+        assertThat(ResponseWindow.of(stepped)).isEqualTo(new ResponseWindow(10.0, 40.5));
+        assertThat(ResponseWindow.of(stepped).describe()).isEqualTo("from 10 s to 40.5 s");
     }
 }
