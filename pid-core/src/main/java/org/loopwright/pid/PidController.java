@@ -94,12 +94,13 @@ public final class PidController {
     }
 
     private double step(ControllerSettings s, double r, double y, double h, boolean fixedPeriod) {
-        if (s != active) {
-            adopt(s);
-        }
         Fault seen = classify(r, y, h);
         if (seen != Fault.NONE) {
             return onFault(s, seen);
+        }
+        if (s != active) {
+            // adopted on a good sample only, so that a fault never touches the state
+            adopt(s);
         }
 
         double b0;
@@ -218,13 +219,19 @@ public final class PidController {
         return Fault.NONE;
     }
 
-    /** A faulty sample never reaches the state; the policy decides the output. */
+    /**
+     * A faulty sample never reaches the state; the policy of the latest settings decides the output,
+     * which stays within their range. The safe output is applied at once, past the slew limit: it is
+     * a safety action.
+     */
     private double onFault(ControllerSettings s, Fault seen) {
         faultCount++;
         fault = seen;
-        double output = previousOutput;
+        double output = clamp(previousOutput, s.outputMin(), s.outputMax());
         if (s.faultPolicy() == FaultPolicy.SAFE_OUTPUT) {
             output = clamp(s.safeOutput(), s.outputMin(), s.outputMax());
+        }
+        if (output != previousOutput) {
             rebalancePending = true;
         }
         double result = s.outputKind() == OutputKind.INCREMENT ? output - previousOutput : output;
@@ -233,10 +240,14 @@ public final class PidController {
         return result;
     }
 
-    /** Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output. */
+    /**
+     * Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output.
+     * Without integral action there is nothing to wind up, and the integral (then a fixed bias) stays.
+     */
     private double backCalculation(ControllerSettings s, double h) {
         WindupProtection scheme = s.windupProtection();
-        if (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING) {
+        if (s.integralGain == 0.0
+                || (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING)) {
             return 0.0;
         }
         double applied = scheme == WindupProtection.ACTUATOR_TRACKING && Double.isFinite(actuatorPosition)
