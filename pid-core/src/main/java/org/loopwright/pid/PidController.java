@@ -181,6 +181,11 @@ public final class PidController {
             }
         }
 
+        if (!(Double.isFinite(error) && Double.isFinite(next) && Double.isFinite(derivative)
+                && Double.isFinite(unlimited))) {
+            // finite inputs far too large for the gains: the sample is dropped like a faulty one
+            return onFault(s, Fault.ARITHMETIC_OVERFLOW);
+        }
         double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
 
         integral = next;

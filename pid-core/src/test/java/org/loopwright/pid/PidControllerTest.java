@@ -127,4 +127,18 @@ class PidControllerTest {
         assertThat(c.update(5.0, 1.0)).isEqualTo(3.0);
         assertThat(c.fault()).isEqualTo(Fault.NONE);
     }
+
+    @Test
+    void finiteInputsThatOverflowTheLawAreDroppedLikeAFault() {
+        PidController c = new PidController(pid().outputRange(-5.0, 5.0).build());
+        c.update(1.0, 0.5);
+        StateSnapshot before = c.snapshot();
+        double held = c.position();
+        // r − y overflows to +∞ although both inputs are finite
+        assertThat(c.update(Double.MAX_VALUE, -Double.MAX_VALUE)).isEqualTo(held);
+        assertThat(c.fault()).isEqualTo(Fault.ARITHMETIC_OVERFLOW);
+        assertThat(c.snapshot()).usingRecursiveComparison().ignoringFields("faultCount").isEqualTo(before);
+        assertThat(c.update(1.0, 0.5)).isBetween(-5.0, 5.0);
+        assertThat(c.fault()).isEqualTo(Fault.NONE);
+    }
 }
