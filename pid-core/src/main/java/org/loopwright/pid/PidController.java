@@ -160,7 +160,8 @@ public final class PidController {
                 rebalancePending = true;
             }
             case TRACKING -> {
-                output = clamp(Double.isFinite(trackValue) ? trackValue : previousOutput, s.outputMin(), s.outputMax());
+                double target = Double.isFinite(trackValue) ? trackValue : previousOutput;
+                output = clamp(clamp(target, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
                 rebalancePending = true;
@@ -168,6 +169,8 @@ public final class PidController {
             default -> {
                 if (rebalancePending && started) {
                     next = previousOutput - proportional - derivative - uff;
+                    // nothing was integrated on this sample, so conditional integration has nothing to undo
+                    increment = 0.0;
                 }
                 unlimited = proportional + next + derivative + uff;
                 output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());

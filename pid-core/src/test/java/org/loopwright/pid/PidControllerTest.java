@@ -141,4 +141,23 @@ class PidControllerTest {
         assertThat(c.update(1.0, 0.5)).isBetween(-5.0, 5.0);
         assertThat(c.fault()).isEqualTo(Fault.NONE);
     }
+
+    @Test
+    void returnToAutomaticAtTheRangeLimitIsBumplessUnderClamping() {
+        // The rebalanced output lands on the limit; a rounding error of one ulp beyond it must not
+        // make conditional integration take back an increment that was never added.
+        PidController c = new PidController(ControllerSettings.builder().gains(new IdealGains(3.7, 0.9, 0.3))
+                .samplePeriodSeconds(0.25).outputRange(-80.03691700225966, -72.83335190695308)
+                .windupProtection(WindupProtection.CLAMPING).action(Action.DIRECT).build());
+        c.trackValue(-72.83335190695308);
+        java.util.Random rnd = new java.util.Random(7);
+        for (int k = 0; k < 2000; k++) {
+            c.switchToTracking();
+            c.update(-15.5, -14.0 + rnd.nextGaussian());
+            double last = c.position();
+            c.switchToAutomatic();
+            c.update(-15.5, -14.0 + rnd.nextGaussian());
+            assertThat(c.position()).isCloseTo(last, org.assertj.core.api.Assertions.within(1e-9));
+        }
+    }
 }
