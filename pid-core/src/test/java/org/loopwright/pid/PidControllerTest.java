@@ -235,4 +235,35 @@ class PidControllerTest {
         assertThat(c.update(1.0, 1.0)).isCloseTo(2.0, within(1e-12));
         assertThat(c.mode()).isEqualTo(Mode.MANUAL);
     }
+
+    @ParameterizedTest
+    @EnumSource(IntegralMethod.class)
+    void startingRuleAndTheIntegralOverOnePeriod(IntegralMethod method) {
+        // Issue 2's starting rule: at the first sample I = D = 0; then the integral over [t(k−1), t(k)]
+        // is h·e(k−1) (forward Euler), h·e(k) (backward Euler) or h·(e(k−1) + e(k))/2 (Tustin).
+        // Ki = 0.5, h = 0.1, errors 1 then 3.
+        for (DerivativeMethod derivative : DerivativeMethod.values()) {
+            PidController c = new PidController(ControllerSettings.builder().gains(new ParallelGains(1.0, 0.5, 0.2)).derivativeFilterTimeSeconds(0.1)
+                    .samplePeriodSeconds(0.1).integralMethod(method).derivativeMethod(derivative).build());
+            c.update(1.0, 0.0);
+            assertThat(c.integralTerm()).isZero();
+            assertThat(c.derivativeTerm()).isZero();
+            assertThat(c.output()).isEqualTo(1.0);
+            c.update(3.0, 0.0);
+            double expected = switch (method) {
+                case FORWARD_EULER -> 0.5 * 0.1 * 1.0;
+                case BACKWARD_EULER -> 0.5 * 0.1 * 3.0;
+                case TUSTIN -> 0.5 * 0.1 * 2.0;
+            };
+            assertThat(c.integralTerm()).isCloseTo(expected, within(1e-15));
+        }
+    }
+
+    @Test
+    void seriesFormFiltersTheIdealDerivativeTime() {
+        // series Kc' = 1, Ti' = 4, Td' = 1 is ideal Td = 0.8 (A&H 2006 §3.4); N = 10 gives Tf = 0.08
+        ControllerSettings s = ControllerSettings.builder().gains(new org.loopwright.pid.form.SeriesGains(1.0, 4.0, 1.0))
+                .samplePeriodSeconds(0.01).build();
+        assertThat(s.derivativeFilterTimeSeconds()).isCloseTo(0.08, within(1e-15));
+    }
 }
