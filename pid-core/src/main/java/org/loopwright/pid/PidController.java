@@ -168,14 +168,12 @@ public final class PidController {
                 output = clamp(clamp(manualValue, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
-                rebalancePending = true;
             }
             case TRACKING -> {
                 double target = Double.isFinite(trackValue) ? trackValue : previousOutput;
                 output = clamp(clamp(target, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
-                rebalancePending = true;
             }
             default -> {
                 if (rebalancePending && started) {
@@ -191,7 +189,6 @@ public final class PidController {
                     unlimited = proportional + next + derivative + uff;
                     output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
                 }
-                rebalancePending = false;
             }
         }
 
@@ -202,6 +199,8 @@ public final class PidController {
         }
         double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
 
+        // outside automatic the integral is not the law's own: the next automatic sample rebalances it
+        rebalancePending = mode != Mode.AUTOMATIC;
         integral = next;
         derivativeState = derivative;
         previousError = error;

@@ -266,4 +266,18 @@ class PidControllerTest {
                 .samplePeriodSeconds(0.01).build();
         assertThat(s.derivativeFilterTimeSeconds()).isCloseTo(0.08, within(1e-15));
     }
+
+    @Test
+    void anOverflowingSampleKeepsTheRebalanceOfTheReturnToAutomatic() {
+        PidController c = new PidController(pid().build());
+        c.update(1.0, 0.0);
+        c.switchToManual();
+        c.manualOutput(30.0);
+        c.update(1.0, 0.0);
+        c.update(1.0, 0.0);
+        c.switchToAutomatic();
+        c.update(Double.MAX_VALUE, -Double.MAX_VALUE);
+        assertThat(c.fault()).isEqualTo(Fault.ARITHMETIC_OVERFLOW);
+        assertThat(c.update(1.0, 0.0)).isCloseTo(30.0, within(1e-12));
+    }
 }
