@@ -243,7 +243,8 @@ class PidControllerTest {
         // is h·e(k−1) (forward Euler), h·e(k) (backward Euler) or h·(e(k−1) + e(k))/2 (Tustin).
         // Ki = 0.5, h = 0.1, errors 1 then 3.
         for (DerivativeMethod derivative : DerivativeMethod.values()) {
-            PidController c = new PidController(ControllerSettings.builder().gains(new ParallelGains(1.0, 0.5, 0.2)).derivativeFilterTimeSeconds(0.1)
+            PidController c = new PidController(ControllerSettings.builder().gains(new ParallelGains(1.0, 0.5, 0.2))
+                    .derivativeFilterTimeSeconds(0.1)
                     .samplePeriodSeconds(0.1).integralMethod(method).derivativeMethod(derivative).build());
             c.update(1.0, 0.0);
             assertThat(c.integralTerm()).isZero();
@@ -279,5 +280,34 @@ class PidControllerTest {
         c.update(Double.MAX_VALUE, -Double.MAX_VALUE);
         assertThat(c.fault()).isEqualTo(Fault.ARITHMETIC_OVERFLOW);
         assertThat(c.update(1.0, 0.0)).isCloseTo(30.0, within(1e-12));
+    }
+
+    @Test
+    void retuneAtUnchangedInputsMovesTheOutputOnlyByTheNewIntegralStep() {
+        // Kc 2 → 6, Ti 8 → 4, Td 1 → 0 (the derivative, decayed to 0 at constant inputs, folds into I):
+        // the output moves by the new controller's own integral step Ki'·h·e = 1.5·0.1·0.5 only
+        PidController c = new PidController(pid().build());
+        for (int k = 0; k < 200; k++) {
+            c.update(1.0, 0.5);
+        }
+        double last = c.position();
+        c.retune(pid().gains(IdealGains.pi(6.0, 4.0)).setpointWeights(0.5, 0.0).build());
+        assertThat(c.update(1.0, 0.5) - last).isCloseTo(1.5 * 0.1 * 0.5, within(1e-9));
+    }
+
+    @Test
+    void manualToAutomaticAndBackIsBumpless() {
+        PidController c = new PidController(pid().build());
+        for (int k = 0; k < 50; k++) {
+            c.update(1.0, 0.2);
+        }
+        double auto = c.position();
+        c.switchToManual();
+        assertThat(c.update(1.0, 0.9)).isEqualTo(auto);
+        c.manualOutput(12.5);
+        assertThat(c.update(1.0, 0.9)).isEqualTo(12.5);
+        c.switchToAutomatic();
+        assertThat(c.update(1.0, 0.4)).isCloseTo(12.5, within(1e-12));
+        assertThat(c.mode()).isEqualTo(Mode.AUTOMATIC);
     }
 }
