@@ -24,9 +24,9 @@ public final class RelaySettings {
     /** Default number of cycles whose period and amplitude are averaged. */
     public static final int DEFAULT_MEASURED_CYCLES = 3;
     /** Default number of cycles discarded while the oscillation settles. */
-    public static final int DEFAULT_SETTLING_CYCLES = 1;
+    public static final int DEFAULT_SETTLING_CYCLES = 2;
     /** Default largest relative spread of period and amplitude among the measured cycles. */
-    public static final double DEFAULT_CYCLE_TOLERANCE = 0.05;
+    public static final double DEFAULT_CYCLE_TOLERANCE = 0.02;
 
     private final double setpoint;
     private final double bias;
