@@ -1,5 +1,7 @@
 package org.loopwright.pid.tuning;
 
+import java.util.Locale;
+
 import org.loopwright.pid.InvalidSettingException;
 
 /**
@@ -38,8 +40,7 @@ public final class SmithTwoPoint {
      * @param stepTimeSeconds  when the input stepped
      * @param inputChange      the size of the input step, finite and non-zero
      * @throws InvalidSettingException for arrays of different lengths, too few samples, times not
-     *                                 increasing, no change in the output or crossings that
-     *                                 cannot be told apart at this sample rate
+     *                                 increasing, non-finite values or no change in the output
      */
     public static FopdtModel estimate(double[] timesSeconds, double[] outputs, double stepTimeSeconds,
                                       double inputChange) {
@@ -70,11 +71,7 @@ public final class SmithTwoPoint {
         }
         double t28 = crossingTime(timesSeconds, outputs, before, initial, change, FIRST_FRACTION);
         double t63 = crossingTime(timesSeconds, outputs, before, initial, change, SECOND_FRACTION);
-        double timeConstant = 1.5 * (t63 - t28);
-        if (!(timeConstant > 0.0)) {
-            throw new InvalidSettingException("timesSeconds", "t28=" + t28 + ", t63=" + t63,
-                    "must resolve the 28.3 % and 63.2 % points apart (sample faster)");
-        }
+        double timeConstant = 1.5 * (t63 - t28); // > 0: the 63.2 % point is interpolated after the 28.3 % one
         double deadTime = Math.max(0.0, t63 - stepTimeSeconds - timeConstant);
         return new FopdtModel(change / inputChange, timeConstant, deadTime);
     }
@@ -88,11 +85,8 @@ public final class SmithTwoPoint {
                 return t[i - 1] + (fraction - previous) / (current - previous) * (t[i] - t[i - 1]);
             }
         }
-        if (from == 0 && (y[0] - initial) / change >= fraction) {
-            return t[0];
-        }
         throw new InvalidSettingException("outputs", "last=" + y[y.length - 1],
-                "must reach " + fraction * 100.0 + " % of the change after the step");
+                "must reach " + String.format(Locale.ROOT, "%.1f", fraction * 100.0) + " % of the change after the step");
     }
 
     private static void checkSamples(double[] t, double[] y) {
