@@ -1,32 +1,32 @@
 package org.loopwright.sim.replay;
 
-import static java.util.Map.entry;
-
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 import org.apache.commons.csv.CSVFormat;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.Fault;
 import org.loopwright.pid.Mode;
-import org.loopwright.sim.config.Keywords;
 
 /**
  * What a {@link Replay} produced, row by row: the output, the proportional, integral and derivative
  * contributions (those of the last good sample on a faulty row), the status, the actuator position
  * and the period used.
  *
- * <p>Thread-safe: not shared; the arrays are owned by this object and never handed out.
+ * <p>Thread-safe: immutable once the replay has filled it (its arrays are never handed out).
  */
 public final class ReplayResult {
 
-    /** The words of the {@code status} column: {@code normal} or the fault seen. */
-    public static final Keywords<Fault> STATUS_WORDS = Keywords.of(entry("normal", Fault.NONE),
-            entry("setpoint-not-finite", Fault.SETPOINT_NOT_FINITE),
-            entry("measurement-not-finite", Fault.MEASUREMENT_NOT_FINITE),
-            entry("period-not-valid", Fault.PERIOD_NOT_VALID),
-            entry("feedforward-not-finite", Fault.FEEDFORWARD_NOT_FINITE));
+    /**
+     * The word the {@code status} column writes: {@code normal} for a good sample, else the fault's
+     * name in lower case with hyphens ({@code measurement-not-finite}), so a fault added to the core
+     * later gets a word too.
+     */
+    public static String statusWord(Fault fault) {
+        return fault == Fault.NONE ? "normal" : fault.name().toLowerCase(Locale.ROOT).replace('_', '-');
+    }
 
     /** The per-row columns a replay fills. */
     static final class Columns {
@@ -140,7 +140,7 @@ public final class ReplayResult {
             row.add(Double.toString(proportional(k)));
             row.add(Double.toString(integral(k)));
             row.add(Double.toString(derivative(k)));
-            row.add(STATUS_WORDS.word(status(k)));
+            row.add(statusWord(status(k)));
             printRow(format, out, row);
         }
     }

@@ -116,10 +116,10 @@ public final class ReplaySummary {
             List<String> kinds = new ArrayList<>();
             for (Fault fault : Fault.values()) {
                 if (faults.containsKey(fault)) {
-                    kinds.add(ReplayResult.STATUS_WORDS.word(fault) + " " + faults.get(fault));
+                    kinds.add(ReplayResult.statusWord(fault) + " " + faults.get(fault));
                 }
             }
-            lines.add("Faults: " + faultRows() + " rows (" + String.join(", ", kinds) + ")");
+            lines.add("Faults: " + faultRows() + (faultRows() == 1 ? " row (" : " rows (") + String.join(", ", kinds) + ")");
         }
         lines.add("Output: min " + number(outputMin) + ", max " + number(outputMax) + ", mean " + number(outputMean));
         if (Double.isInfinite(limitMin) && Double.isInfinite(limitMax)) {
