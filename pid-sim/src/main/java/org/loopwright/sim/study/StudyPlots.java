@@ -115,7 +115,7 @@ public final class StudyPlots {
     private static XYChart chart(String title, String xTitle, String yTitle) {
         XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT).title(title).xAxisTitle(xTitle)
                 .yAxisTitle(yTitle).build();
-        chart.getStyler().setMarkerSize(0);
+        chart.getStyler().setMarkerSize(10); // only the −1 point has a marker
         return chart;
     }
 
