@@ -1,9 +1,11 @@
 package org.loopwright.sim.cli;
 
 import java.io.PrintWriter;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import java.util.Set;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
@@ -59,14 +61,15 @@ final class TuningReport {
 
     /** Every candidate in one table, then the rules that do not apply and why. */
     static void printTable(PrintWriter out, List<TuningCandidate> candidates, List<RuleNotApplicable> skipped) {
-        String format = "%-16s %10s %10s %10s %8s %8s %6s %10s %10s %10s%n";
-        out.printf(Locale.ROOT, format, "rule", "gain", "Ti [s]", "Td [s]", "PM [deg]", "GM", "Ms", "overshoot%",
+        String format = "%-16s %-4s %10s %10s %10s %8s %8s %6s %10s %10s %10s%n";
+        out.printf(Locale.ROOT, format, "rule", "type", "gain", "Ti [s]", "Td [s]", "PM [deg]", "GM", "Ms", "overshoot%",
                 "settle [s]", "load IAE");
         for (TuningCandidate c : candidates) {
             IdealGains i = c.ideal();
             Optional<StabilityMargins> m = c.margins();
             Optional<ResponseMetrics> r = c.setpointResponse();
-            out.printf(Locale.ROOT, format, c.tuning().rule().label(), num(i.gain()), num(i.integralTime()),
+            out.printf(Locale.ROOT, format, c.tuning().rule().label(),
+                    c.tuning().type().name().toLowerCase(Locale.ROOT), num(i.gain()), num(i.integralTime()),
                     num(i.derivativeTime()), m.map(x -> num(phaseMargin(x))).orElse("-"),
                     m.map(x -> num(gainMargin(x))).orElse("-"), m.map(x -> num(x.sensitivityPeak().value())).orElse("-"),
                     r.map(x -> num(x.overshootPercent())).orElse("-"), r.map(x -> num(x.settlingTimeSeconds())).orElse("-"),
@@ -75,10 +78,12 @@ final class TuningReport {
         for (RuleNotApplicable s : skipped) {
             out.println("not applicable: " + s.rule().label() + " (" + s.type() + "): " + s.reason());
         }
+        Set<String> cited = new LinkedHashSet<>();
         for (TuningCandidate c : candidates) {
-            out.println("source of " + c.tuning().rule().label() + ": " + c.tuning().citation()
+            cited.add("source of " + c.tuning().rule().label() + ": " + c.tuning().citation()
                     + (c.tuning().note().isEmpty() ? "" : "; " + c.tuning().note()));
         }
+        cited.forEach(out::println);
     }
 
     /** The JSON object of one candidate. */
