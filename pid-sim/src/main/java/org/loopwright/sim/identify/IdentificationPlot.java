@@ -35,10 +35,11 @@ public final class IdentificationPlot {
             fitted[i] = model.responseAt(t[i]);
         }
         String title = String.format(Locale.ROOT, "%s fit of %s: RMSE %.4g, R² %.4f", model.kind().label(),
-                test.fileName(), model.rmse(), model.rSquared());
+                Path.of(test.fileName()).getFileName(), model.rmse(), model.rSquared());
         XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT).title(title).xAxisTitle("time [s]")
                 .yAxisTitle("output").build();
         chart.getStyler().setMarkerSize(3);
+        chart.getStyler().setXAxisTickMarkSpacingHint(120);
         XYSeries measured = chart.addSeries("measured output", t, test.outputs());
         measured.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
         measured.setMarker(SeriesMarkers.CIRCLE);
