@@ -120,11 +120,11 @@ public final class RelayExperiment {
             }
         }
         previousError = error;
-        if (status == RelayStatus.RUNNING && elapsedSeconds - lastSwitchSeconds > settings.maxHalfPeriodSeconds()) {
-            return abort(RelayStatus.ABORTED_NO_OSCILLATION, h, measurement);
-        }
-        if (status != RelayStatus.RUNNING) {
+        if (status == RelayStatus.SUCCEEDED) {
             return previousOutput;
+        }
+        if (elapsedSeconds - lastSwitchSeconds > settings.maxHalfPeriodSeconds()) {
+            return abort(RelayStatus.ABORTED_NO_OSCILLATION, h, measurement);
         }
         return high ? highOutput : lowOutput;
     }
@@ -153,10 +153,7 @@ public final class RelayExperiment {
         if (withinTolerance(periods, meanPeriod, tolerance) && withinTolerance(amplitudes, meanAmplitude, tolerance)) {
             oscillationAmplitude = meanAmplitude;
             ultimatePeriodSeconds = meanPeriod;
-            if (meanAmplitude <= hysteresis) {
-                status = RelayStatus.ABORTED_NO_OSCILLATION;
-                return;
-            }
+            // a > ε always: a cycle holds a sample above setpoint + ε and one below setpoint − ε
             ultimateGain = 4.0 * settings.relayAmplitude()
                     / (Math.PI * Math.sqrt(meanAmplitude * meanAmplitude - hysteresis * hysteresis));
             status = RelayStatus.SUCCEEDED;
@@ -204,11 +201,9 @@ public final class RelayExperiment {
                     + fmt(settings.excursionLimit());
             case ABORTED_TIMEOUT -> "aborted: no stable limit cycle within timeoutSeconds="
                     + fmt(settings.timeoutSeconds()) + " (" + completedCycles + " cycles completed)";
-            case ABORTED_NO_OSCILLATION -> Double.isNaN(oscillationAmplitude)
-                    ? "aborted: no oscillation, the relay did not switch for more than maxHalfPeriodSeconds="
-                            + fmt(settings.maxHalfPeriodSeconds()) + " (at " + fmt(elapsedSeconds) + " s)"
-                    : "aborted: no oscillation beyond the hysteresis: amplitude=" + fmt(oscillationAmplitude)
-                            + ", hysteresis=" + fmt(hysteresis);
+            case ABORTED_NO_OSCILLATION -> "aborted: no oscillation, the relay did not switch for more than"
+                    + " maxHalfPeriodSeconds=" + fmt(settings.maxHalfPeriodSeconds()) + " (at " + fmt(elapsedSeconds)
+                    + " s)";
             case ABORTED_INVALID_SAMPLE -> "aborted: invalid sample, h must be finite and > 0 and the measurement"
                     + " finite: h=" + abortStep + ", measurement=" + abortMeasurement;
         };

@@ -103,6 +103,9 @@ public final class TuneCommand implements Callable<Integer> {
             if (controllerOut != null && rule == null) {
                 throw new BadInput("--write-controller needs --rule: which rule's settings to write");
             }
+            if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
+                throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
+            }
             double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
             List<TuningRule> rules = rule == null ? Arrays.stream(TuningRule.values())
                     .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));

@@ -73,6 +73,17 @@ class TuneCommandTest {
     }
 
     @Test
+    void closedLoopTimeSetsLambda() throws Exception {
+        // lambda PI (Rivera et al. 1986), λ = 4 on K = 1, T = 5, L = 1: Kc = (10 + 1)/(2·4) = 1.375, Ti = 5.5
+        JsonNode node = JSON.readTree(CommandRun.of("tune", "--process-gain", "1", "--time-constant", "5",
+                "--dead-time", "1", "--rule", "lambda", "--closed-loop-time", "4", "--json").out());
+
+        assertThat(node.get("ideal").get("gain").asDouble()).isCloseTo(1.375, within(1e-12));
+        assertThat(node.get("ideal").get("integral_time").asDouble()).isCloseTo(5.5, within(1e-12));
+        assertThat(node.get("note").asText()).isEqualTo("lambda = 4.000 s");
+    }
+
+    @Test
     void ultimatePointRulesHaveNoMarginsWithoutAModel() throws Exception {
         // Tyreus–Luyben PID on Ku = 8, Pu = 4: Kc = 8/2.2 = 3.6363636, Ti = 8.8, Td = 4/6.3 = 0.6349206
         CommandRun run = CommandRun.of("tune", "--ultimate-gain", "8", "--ultimate-period", "4", "--rule",
@@ -132,6 +143,9 @@ class TuneCommandTest {
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
                         "--write-controller", "x.yaml"},
                         "--write-controller needs --rule: which rule's settings to write"),
+                Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
+                        "--rule", "amigo", "--closed-loop-time", "2"},
+                        "--closed-loop-time applies to the simc and lambda rules only: --rule=amigo"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
                         "--rule", "lambda", "--closed-loop-time", "-2"},
                         "closedLoopTimeSeconds must be finite and > 0 (NaN for the rule's default):"
