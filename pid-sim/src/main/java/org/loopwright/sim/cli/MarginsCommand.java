@@ -2,6 +2,7 @@ package org.loopwright.sim.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
@@ -35,6 +36,9 @@ import picocli.CommandLine.Spec;
                 "loop as sampled (controller at z = e^(jωh), plant by its zero-order-hold equivalent),",
                 "with closed-loop stability decided from the poles. Needs a linear plant and a PID controller."})
 public final class MarginsCommand implements Callable<Integer> {
+
+    /** The table lists this many phase crossovers at most (JSON lists them all). */
+    private static final int LISTED_CROSSINGS = 6;
 
     @Spec
     private CommandSpec spec;
@@ -142,10 +146,15 @@ public final class MarginsCommand implements Callable<Integer> {
 
     private static void crossings(PrintWriter out, String name, StabilityMargins m) {
         if (m.phaseCrossings().size() > 1 || m.gainCrossings().size() > 1) {
-            out.println("every crossover, " + name + ":");
-            for (PhaseCrossing c : m.phaseCrossings()) {
+            out.println("crossovers, " + name + ":");
+            List<PhaseCrossing> phases = m.phaseCrossings();
+            for (PhaseCrossing c : phases.subList(0, Math.min(phases.size(), LISTED_CROSSINGS))) {
                 out.printf(Locale.ROOT, "  phase crossover at %.6g rad/s, gain margin %.4g%n",
                         c.frequencyRadPerSecond(), c.gainMargin());
+            }
+            if (phases.size() > LISTED_CROSSINGS) {
+                out.printf(Locale.ROOT, "  ... %d more phase crossovers up to %.6g rad/s (all in --json)%n",
+                        phases.size() - LISTED_CROSSINGS, phases.get(phases.size() - 1).frequencyRadPerSecond());
             }
             for (GainCrossing c : m.gainCrossings()) {
                 out.printf(Locale.ROOT, "  gain crossover at %.6g rad/s, phase margin %.2f deg%n",

@@ -159,6 +159,30 @@ class LoopAnalysisTest {
     }
 
     @Test
+    void integratingPlantWithDeadTimeHasItsAnalyticMargins() {
+        // Analytic: L = Kp·K·e^{−sL}/s has phase −90° − ωL, so the phase crossover is ω = π/(2L) with gain margin
+        // π/(2·L·K·Kp); |L| = 1 at ω = K·Kp, where the phase margin is 90° − K·Kp·L (in radians → degrees).
+        double gain = 0.5;
+        double deadTime = 0.8;
+        double kp = 0.6;
+        StabilityMargins m = LoopAnalysis.continuous(TransferFunction.integrating(gain, deadTime), settings(kp, 0, 0, 0.1));
+        assertThat(m.phaseCrossover().orElseThrow().frequencyRadPerSecond()).isCloseTo(Math.PI / (2 * deadTime), within(1e-10));
+        assertThat(m.phaseCrossover().orElseThrow().gainMargin()).isCloseTo(Math.PI / (2 * deadTime * gain * kp), within(1e-9));
+        assertThat(m.gainCrossover().orElseThrow().frequencyRadPerSecond()).isCloseTo(gain * kp, within(1e-10));
+        assertThat(m.gainCrossover().orElseThrow().phaseMarginDegrees())
+                .isCloseTo(90.0 - Math.toDegrees(gain * kp * deadTime), within(1e-8));
+        // and sampled with a fractional delay (0.8 s = 2.67 periods), the margin still puts a pole on the circle
+        for (double h : new double[] {0.3, 0.05}) {
+            ControllerSettings s = ControllerSettings.builder().gains(new ParallelGains(kp, 0.1, 0))
+                    .samplePeriodSeconds(h).build();
+            TransferFunction plant = TransferFunction.integrating(gain, deadTime);
+            PhaseCrossing pc = LoopAnalysis.sampled(plant, s).margins().phaseCrossover().orElseThrow();
+            List<Complex> poles = LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(plant, s, h).times(pc.gainMargin()));
+            assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
+        }
+    }
+
+    @Test
     void samplingTheThirdOrderLoopAtNyquistCrossingAgreesWithThePoles() {
         // A P loop on a first-order ZOH plant crosses the negative real axis at z = −1: the classic critical
         // gain K·b/(1+a) = 1 with a = e^{−h/T}, b = 1 − a (Åström & Wittenmark, §3.4 / §2.3 ZOH sampling).
