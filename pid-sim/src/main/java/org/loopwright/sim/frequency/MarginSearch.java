@@ -17,7 +17,9 @@ import org.hipparchus.optim.univariate.UnivariateObjectiveFunction;
  * Finds the margins of a loop L on a frequency band: a logarithmic grid brackets every crossing
  * (a sign change of ln|L| for a gain crossover, of sin(arg L) with L on the negative real axis for a
  * phase crossover), then Hipparchus' bracketing Brent solver refines each to machine accuracy; the
- * grid maximum of |S| and |T| is refined by Brent's optimiser between its neighbours.
+ * grid maximum of |S| and |T| is refined by Brent's optimiser between its neighbours. A loop with a
+ * dead time crosses the negative real axis without end; the crossings whose gain margin lies more
+ * than 20 dB above the smallest one cannot matter first and are left out.
  *
  * <p>A sampled loop ends at the Nyquist frequency, where L(e^{jπ}) is real: if it is negative
  * there, that end point is a phase crossover too (the Nyquist curve meets its mirror image there).
@@ -28,6 +30,8 @@ final class MarginSearch {
     private static final int SOLVER_ORDER = 5;
     private static final double RELATIVE_ACCURACY = 1e-14;
     private static final double FUNCTION_ACCURACY = 1e-15;
+    /** Phase crossovers whose gain margin exceeds the smallest by more than this factor (20 dB) are left out. */
+    static final double REPORTED_GAIN_MARGIN_SPAN = 10.0;
     /** The last grid point of a sampled loop stops this far short of Nyquist (its end is treated apart). */
     private static final double NYQUIST_GAP = 1e-7;
 
@@ -46,12 +50,13 @@ final class MarginSearch {
             values[i] = loop.at(omega[i]);
         }
         List<GainCrossing> gainCrossings = new ArrayList<>();
-        List<PhaseCrossing> phaseCrossings = new ArrayList<>();
+        List<Integer> phaseBrackets = new ArrayList<>();
         UnivariateFunction logGain = w -> Math.log(loop.at(w).norm());
         UnivariateFunction phaseSine = w -> {
             Complex l = loop.at(w);
             return l.getImaginary() / l.norm();
         };
+        double smallestEstimate = Double.POSITIVE_INFINITY;
         for (int i = 0; i + 1 < count; i++) {
             Complex a = values[i];
             Complex b = values[i + 1];
@@ -62,18 +67,29 @@ final class MarginSearch {
                 double w = refine(logGain, omega[i], omega[i + 1]);
                 gainCrossings.add(new GainCrossing(w, phaseMarginDegrees(loop.at(w))));
             }
-            if ((a.getImaginary() >= 0.0) != (b.getImaginary() >= 0.0)) {
-                double w = refine(phaseSine, omega[i], omega[i + 1]);
-                Complex l = loop.at(w);
-                if (l.getReal() < 0.0) {
-                    phaseCrossings.add(new PhaseCrossing(w, 1.0 / l.norm()));
-                }
+            if ((a.getImaginary() >= 0.0) != (b.getImaginary() >= 0.0) && (a.getReal() < 0.0 || b.getReal() < 0.0)) {
+                phaseBrackets.add(i);
+                smallestEstimate = Math.min(smallestEstimate, 1.0 / Math.max(a.norm(), b.norm()));
+            }
+        }
+        List<PhaseCrossing> phaseCrossings = new ArrayList<>();
+        for (int i : phaseBrackets) {
+            if (1.0 / Math.max(values[i].norm(), values[i + 1].norm()) > REPORTED_GAIN_MARGIN_SPAN * smallestEstimate) {
+                continue; // far beyond the smallest margin: cannot matter, not worth refining
+            }
+            double w = refine(phaseSine, omega[i], omega[i + 1]);
+            Complex l = loop.at(w);
+            if (l.getReal() < 0.0) {
+                phaseCrossings.add(new PhaseCrossing(w, 1.0 / l.norm()));
             }
         }
         Complex atEnd = loop.at(band.highestRadPerSecond());
         if (band.endsAtNyquist() && atEnd.getReal() < 0.0) {
             phaseCrossings.add(new PhaseCrossing(band.highestRadPerSecond(), 1.0 / atEnd.norm()));
         }
+        double smallest = phaseCrossings.stream().mapToDouble(PhaseCrossing::gainMargin).min()
+                .orElse(Double.POSITIVE_INFINITY);
+        phaseCrossings.removeIf(c -> c.gainMargin() > REPORTED_GAIN_MARGIN_SPAN * smallest);
         Peak ms = peak(loop, omega, band, true);
         Peak mt = peak(loop, omega, band, false);
         return new StabilityMargins(phaseCrossings, gainCrossings, ms, mt);

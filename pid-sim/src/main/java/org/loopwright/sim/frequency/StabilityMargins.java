@@ -15,7 +15,8 @@ import java.util.OptionalDouble;
  * Ms between 1.4 and 2, gain margin above 2, phase margin above 30°–45°.
  * Thread-safe: immutable.
  *
- * @param phaseCrossings           every phase crossover, by rising frequency
+ * @param phaseCrossings           every phase crossover whose gain margin is within 20 dB of the smallest, by
+ *                                 rising frequency (a dead time makes endless ones of ever larger margin)
  * @param gainCrossings            every gain crossover, by rising frequency
  * @param sensitivityPeak          Ms and its frequency
  * @param complementaryPeak        Mt and its frequency

@@ -64,9 +64,13 @@ public final class DiscretisationStudy {
     public static List<Double> defaultPeriods(double crossoverRadPerSecond) {
         List<Double> periods = new ArrayList<>();
         for (double wh : DEFAULT_CROSSOVER_TIMES_PERIOD) {
-            periods.add(new BigDecimal(wh / crossoverRadPerSecond).round(new MathContext(2)).doubleValue());
+            periods.add(twoDigits(wh / crossoverRadPerSecond));
         }
         return periods;
+    }
+
+    private static double twoDigits(double value) {
+        return new BigDecimal(value).round(new MathContext(2)).doubleValue();
     }
 
     /**
@@ -106,8 +110,8 @@ public final class DiscretisationStudy {
         Experiments experiments = new Experiments(plant, setpointStep, loadStep, scenario.durationSeconds());
 
         double finest = Collections.min(periodsSeconds);
-        double reference = Math.max(Math.min(REFERENCE_CROSSOVER_TIMES_PERIOD / crossover, finest / 10.0),
-                scenario.durationSeconds() / MAX_REFERENCE_SAMPLES);
+        double reference = twoDigits(Math.max(Math.min(REFERENCE_CROSSOVER_TIMES_PERIOD / crossover, finest / 10.0),
+                scenario.durationSeconds() / MAX_REFERENCE_SAMPLES));
         List<StudyRow> rows = new ArrayList<>();
         rows.add(continuousRow(continuous, experiments, settings, reference));
         ContinuousController design = new ContinuousController(settings);

@@ -32,7 +32,9 @@ public final class StudyPlots {
 
     private static final int WIDTH = 900;
     private static final int HEIGHT = 560;
-    private static final int POINTS = 500;
+    private static final int POINTS = 200;
+    /** A step response is thinned to about this many points (the SVG grows with every point). */
+    private static final int MAX_STEP_POINTS = 400;
     private static final double DECADES_AROUND_CROSSOVER = 2.0;
     /** The Nyquist plot shows −3 … 1 on the real axis; farther points are left out. */
     private static final double NYQUIST_REACH = 4.0;
@@ -188,11 +190,13 @@ public final class StudyPlots {
         if (run == null) {
             return;
         }
-        double[] t = new double[run.length()];
-        double[] y = new double[run.length()];
-        for (int k = 0; k < run.length(); k++) {
-            t[k] = run.time(k);
-            y[k] = run.process(k);
+        int stride = Math.max(1, run.length() / MAX_STEP_POINTS);
+        int count = (run.length() + stride - 1) / stride;
+        double[] t = new double[count];
+        double[] y = new double[count];
+        for (int i = 0; i < count; i++) {
+            t[i] = run.time(i * stride);
+            y[i] = run.process(i * stride);
         }
         line(chart.addSeries(name, t, y));
     }

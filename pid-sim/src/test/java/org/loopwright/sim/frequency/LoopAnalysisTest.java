@@ -74,21 +74,43 @@ class LoopAnalysisTest {
     }
 
     @Test
-    void everyPhaseCrossingOfADeadTimeLoopIsReported() {
-        // Analytic: e^{−sL}/(Ts+1) crosses −180° (mod 360°) wherever ωL + atan(ωT) = (2k+1)π; each found
-        // crossing must satisfy that equation and the margins must grow with frequency (|G| falls).
-        double lag = 1.0;
+    void everyPhaseCrossingOfADeadTimeLoopWithinTwentyDecibelsIsReported() {
+        // Analytic: e^{−sL}/(Ts+1) crosses −180° (mod 360°) wherever ωL + atan(ωT) = (2k+1)π, with gain margin
+        // √(1+ω²T²)/Kp there. Each crossing is solved here independently by bisection; the analysis must report
+        // exactly those within 20 dB (a factor 10) of the smallest margin, in order.
+        double lag = 0.2;
         double deadTime = 2.0;
+        double kp = 0.5;
         TransferFunction plant = new TransferFunction(new double[] {1}, new double[] {lag, 1}, deadTime);
-        StabilityMargins m = LoopAnalysis.continuous(plant, settings(0.5, 0, 0, 0.01));
+        StabilityMargins m = LoopAnalysis.continuous(plant, settings(kp, 0, 0, 0.01));
+        List<Double> expected = new java.util.ArrayList<>();
+        double smallest = Double.NaN;
+        for (int k = 0; ; k++) {
+            double target = (2 * k + 1) * Math.PI;
+            double lo = 0.0;
+            double hi = target / deadTime;
+            for (int i = 0; i < 200; i++) {
+                double mid = 0.5 * (lo + hi);
+                if (mid * deadTime + Math.atan(mid * lag) < target) {
+                    lo = mid;
+                } else {
+                    hi = mid;
+                }
+            }
+            double margin = Math.hypot(1.0, lo * lag) / kp;
+            if (k == 0) {
+                smallest = margin;
+            }
+            if (margin > 10 * smallest) {
+                break;
+            }
+            expected.add(lo);
+        }
         List<PhaseCrossing> crossings = m.phaseCrossings();
-        assertThat(crossings.size()).isGreaterThan(10);
-        double previousMargin = 0.0;
+        assertThat(expected.size()).isGreaterThan(10);
+        assertThat(crossings).hasSize(expected.size());
         for (int k = 0; k < crossings.size(); k++) {
-            double w = crossings.get(k).frequencyRadPerSecond();
-            assertThat(w * deadTime + Math.atan(w * lag)).isCloseTo((2 * k + 1) * Math.PI, within(1e-8));
-            assertThat(crossings.get(k).gainMargin()).isGreaterThan(previousMargin);
-            previousMargin = crossings.get(k).gainMargin();
+            assertThat(crossings.get(k).frequencyRadPerSecond()).isCloseTo(expected.get(k), within(1e-9));
         }
         assertThat(m.phaseCrossover().orElseThrow()).isEqualTo(crossings.get(0));
     }
@@ -133,6 +155,30 @@ class LoopAnalysisTest {
                     .orElseThrow();
             assertThat(Math.abs(onCircle.getArgument())).isCloseTo(pc.frequencyRadPerSecond() * h, within(1e-6));
             assertThat(sm.stable()).isEqualTo(pc.gainMargin() > 1.0);
+        }
+    }
+
+    @Test
+    void integratingPlantWithDeadTimeHasItsAnalyticMargins() {
+        // Analytic: L = Kp·K·e^{−sL}/s has phase −90° − ωL, so the phase crossover is ω = π/(2L) with gain margin
+        // π/(2·L·K·Kp); |L| = 1 at ω = K·Kp, where the phase margin is 90° − K·Kp·L (in radians → degrees).
+        double gain = 0.5;
+        double deadTime = 0.8;
+        double kp = 0.6;
+        StabilityMargins m = LoopAnalysis.continuous(TransferFunction.integrating(gain, deadTime), settings(kp, 0, 0, 0.1));
+        assertThat(m.phaseCrossover().orElseThrow().frequencyRadPerSecond()).isCloseTo(Math.PI / (2 * deadTime), within(1e-10));
+        assertThat(m.phaseCrossover().orElseThrow().gainMargin()).isCloseTo(Math.PI / (2 * deadTime * gain * kp), within(1e-9));
+        assertThat(m.gainCrossover().orElseThrow().frequencyRadPerSecond()).isCloseTo(gain * kp, within(1e-10));
+        assertThat(m.gainCrossover().orElseThrow().phaseMarginDegrees())
+                .isCloseTo(90.0 - Math.toDegrees(gain * kp * deadTime), within(1e-8));
+        // and sampled with a fractional delay (0.8 s = 2.67 periods), the margin still puts a pole on the circle
+        for (double h : new double[] {0.3, 0.05}) {
+            ControllerSettings s = ControllerSettings.builder().gains(new ParallelGains(kp, 0.1, 0))
+                    .samplePeriodSeconds(h).build();
+            TransferFunction plant = TransferFunction.integrating(gain, deadTime);
+            PhaseCrossing pc = LoopAnalysis.sampled(plant, s).margins().phaseCrossover().orElseThrow();
+            List<Complex> poles = LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(plant, s, h).times(pc.gainMargin()));
+            assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
         }
     }
 

@@ -24,7 +24,7 @@ class StudyPlotsTest {
     void writesEveryPlotAsPngAndSvg(@TempDir Path directory) throws IOException {
         // Demo: a camera gimbal axis, 1/(s(0.05s+1)) with 10 ms of delay (invented, demo only).
         TransferFunction axis = new TransferFunction(new double[] {1}, new double[] {0.05, 1, 0}, 0.01);
-        ControllerSettings pid = ControllerSettings.builder().gains(new ParallelGains(6.0, 4.0, 0.4))
+        ControllerSettings pid = ControllerSettings.builder().gains(new ParallelGains(6.0, 4.0, 0.0))
                 .samplePeriodSeconds(0.005).build();
         Scenario scenario = Scenario.builder().plant(axis).controller(pid).setpoint(SetpointChange.step(0, 1))
                 .durationSeconds(3.0).build();
