@@ -1,6 +1,5 @@
 package org.loopwright.sim.cli;
 
-import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -66,7 +65,7 @@ public final class AutotuneCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() throws IOException {
+    public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         try {
@@ -91,18 +90,18 @@ public final class AutotuneCommand implements Callable<Integer> {
                 }
             }
             if (json) {
-                ObjectNode node = TuningReport.JSON.createObjectNode();
-                TuningReport.number(node, "ultimate_gain", relay.ultimateGain());
-                TuningReport.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
-                TuningReport.number(node, "oscillation_amplitude", relay.amplitude());
+                ObjectNode node = Json.object();
+                Json.number(node, "ultimate_gain", relay.ultimateGain());
+                Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
+                Json.number(node, "oscillation_amplitude", relay.amplitude());
                 node.put("cycles", relay.cycles());
-                TuningReport.number(node, "setpoint", relay.settings().setpoint());
-                TuningReport.number(node, "bias", relay.settings().bias());
-                TuningReport.number(node, "relay_amplitude", relay.settings().relayAmplitude());
-                TuningReport.number(node, "hysteresis", relay.settings().hysteresis());
+                Json.number(node, "setpoint", relay.settings().setpoint());
+                Json.number(node, "bias", relay.settings().bias());
+                Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
+                Json.number(node, "hysteresis", relay.settings().hysteresis());
                 relay.warnings().forEach(node.putArray("warnings")::add);
                 node.set("suggestions", TuningReport.json(suggestions));
-                out.println(TuningReport.JSON.writeValueAsString(node));
+                out.println(Json.pretty(node));
             } else {
                 RelaySimulationText.print(out, relay);
                 TuningReport.printTable(out, suggestions, List.of());

@@ -52,7 +52,7 @@ public final class IdentifyCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() throws IOException {
+    public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         ModelKind kind = switch (model) {
@@ -68,10 +68,9 @@ public final class IdentifyCommand implements Callable<Integer> {
         try {
             StepTest test = StepTestFile.read(file);
             IdentifiedModel fit = StepIdentification.identify(test, kind);
-            Files.createDirectories(outDirectory);
-            Path plot = IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);
+            Path plot = writePlot(test, fit, kind);
             if (json) {
-                out.println(TuningReport.JSON.writeValueAsString(json(fit)));
+                out.println(Json.pretty(json(fit)));
             } else {
                 printText(out, fit, plot);
             }
@@ -84,22 +83,31 @@ public final class IdentifyCommand implements Callable<Integer> {
         }
     }
 
+    private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) {
+        try {
+            Files.createDirectories(outDirectory);
+            return IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);
+        } catch (IOException e) {
+            throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+        }
+    }
+
     private static ObjectNode json(IdentifiedModel fit) {
-        ObjectNode node = TuningReport.JSON.createObjectNode();
+        ObjectNode node = Json.object();
         node.put("model", fit.kind().label());
-        TuningReport.number(node, "gain", fit.gain());
+        Json.number(node, "gain", fit.gain());
         double[] lags = fit.timeConstants();
         if (fit.kind() == ModelKind.FOPDT) {
-            TuningReport.number(node, "time_constant", lags[0]);
+            Json.number(node, "time_constant", lags[0]);
         } else {
             node.putArray("time_constants").add(lags[0]).add(lags[1]);
         }
-        TuningReport.number(node, "dead_time", fit.deadTimeSeconds());
-        TuningReport.number(node, "baseline", fit.baseline());
-        TuningReport.number(node, "step_time", fit.step().timeSeconds());
-        TuningReport.number(node, "input_change", fit.step().change());
-        TuningReport.number(node, "rmse", fit.rmse());
-        TuningReport.number(node, "r_squared", fit.rSquared());
+        Json.number(node, "dead_time", fit.deadTimeSeconds());
+        Json.number(node, "baseline", fit.baseline());
+        Json.number(node, "step_time", fit.step().timeSeconds());
+        Json.number(node, "input_change", fit.step().change());
+        Json.number(node, "rmse", fit.rmse());
+        Json.number(node, "r_squared", fit.rSquared());
         return node;
     }
 

@@ -83,7 +83,7 @@ public final class TuneCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() throws IOException {
+    public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         try {
@@ -130,7 +130,7 @@ public final class TuneCommand implements Callable<Integer> {
                 write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
             }
             if (json) {
-                out.println(TuningReport.JSON.writeValueAsString(rule == null ? TuningReport.json(candidates)
+                out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
                         : TuningReport.json(candidates.get(0))));
             } else {
                 out.println(fromModel

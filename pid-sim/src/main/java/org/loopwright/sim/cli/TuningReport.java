@@ -7,8 +7,6 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
@@ -24,8 +22,6 @@ import org.loopwright.sim.tuning.TuningCandidate;
 
 /** Writes tuning candidates as text (one block, or a comparison table) and as JSON, for tune and autotune. */
 final class TuningReport {
-
-    static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
     private TuningReport() {
     }
@@ -88,48 +84,48 @@ final class TuningReport {
 
     /** The JSON object of one candidate. */
     static ObjectNode json(TuningCandidate c) {
-        ObjectNode node = JSON.createObjectNode();
+        ObjectNode node = Json.object();
         node.put("rule", c.tuning().rule().label());
         node.put("type", c.tuning().type().name().toLowerCase(Locale.ROOT));
         node.put("citation", c.tuning().citation());
         node.put("note", c.tuning().note());
         IdealGains i = c.ideal();
         ObjectNode ideal = node.putObject("ideal");
-        number(ideal, "gain", i.gain());
-        number(ideal, "integral_time", i.integralTime());
-        number(ideal, "derivative_time", i.derivativeTime());
+        Json.number(ideal, "gain", i.gain());
+        Json.number(ideal, "integral_time", i.integralTime());
+        Json.number(ideal, "derivative_time", i.derivativeTime());
         ParallelGains p = c.parallel();
         ObjectNode parallel = node.putObject("parallel");
-        number(parallel, "proportional_gain", p.proportionalGain());
-        number(parallel, "integral_gain", p.integralGain());
-        number(parallel, "derivative_gain", p.derivativeGain());
+        Json.number(parallel, "proportional_gain", p.proportionalGain());
+        Json.number(parallel, "integral_gain", p.integralGain());
+        Json.number(parallel, "derivative_gain", p.derivativeGain());
         Optional<SeriesGains> series = c.series();
         if (series.isPresent()) {
             ObjectNode s = node.putObject("series");
-            number(s, "gain", series.get().gain());
-            number(s, "integral_time", series.get().integralTime());
-            number(s, "derivative_time", series.get().derivativeTime());
+            Json.number(s, "gain", series.get().gain());
+            Json.number(s, "integral_time", series.get().integralTime());
+            Json.number(s, "derivative_time", series.get().derivativeTime());
         } else {
             node.putNull("series");
         }
         Optional<StabilityMargins> m = c.margins();
-        number(node, "phase_margin_deg", m.map(TuningReport::phaseMargin).orElse(Double.NaN));
-        number(node, "gain_margin", m.map(TuningReport::gainMargin).orElse(Double.NaN));
-        number(node, "ms", m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));
+        Json.number(node, "phase_margin_deg", m.map(TuningReport::phaseMargin).orElse(Double.NaN));
+        Json.number(node, "gain_margin", m.map(TuningReport::gainMargin).orElse(Double.NaN));
+        Json.number(node, "ms", m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));
         if (c.setpointResponse().isPresent()) {
             ResponseMetrics r = c.setpointResponse().get();
             ObjectNode s = node.putObject("setpoint_step");
-            number(s, "rise_time", r.riseTimeSeconds());
-            number(s, "settling_time", r.settlingTimeSeconds());
-            number(s, "overshoot_percent", r.overshootPercent());
-            number(s, "iae", r.iae());
+            Json.number(s, "rise_time", r.riseTimeSeconds());
+            Json.number(s, "settling_time", r.settlingTimeSeconds());
+            Json.number(s, "overshoot_percent", r.overshootPercent());
+            Json.number(s, "iae", r.iae());
         } else {
             node.putNull("setpoint_step");
         }
         if (c.loadResponse().isPresent()) {
             ObjectNode l = node.putObject("load_step");
-            number(l, "iae", c.loadResponse().get().iae());
-            number(l, "peak_deviation", c.loadResponse().get().peakDeviation());
+            Json.number(l, "iae", c.loadResponse().get().iae());
+            Json.number(l, "peak_deviation", c.loadResponse().get().peakDeviation());
         } else {
             node.putNull("load_step");
         }
@@ -138,7 +134,7 @@ final class TuningReport {
 
     /** The JSON array of candidates. */
     static ArrayNode json(List<TuningCandidate> candidates) {
-        ArrayNode array = JSON.createArrayNode();
+        ArrayNode array = Json.array();
         candidates.forEach(c -> array.add(json(c)));
         return array;
     }
@@ -151,15 +147,6 @@ final class TuningReport {
     /** The smallest gain margin, infinity when the phase never reaches −180°. */
     static double gainMargin(StabilityMargins m) {
         return m.phaseCrossover().map(PhaseCrossing::gainMargin).orElse(Double.POSITIVE_INFINITY);
-    }
-
-    /** A finite number, or null for NaN and infinities (JSON has neither). */
-    static void number(ObjectNode node, String key, double value) {
-        if (Double.isFinite(value)) {
-            node.put(key, value);
-        } else {
-            node.putNull(key);
-        }
     }
 
     static String num(double value) {
