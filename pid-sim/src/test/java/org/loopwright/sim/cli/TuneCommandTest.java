@@ -73,6 +73,20 @@ class TuneCommandTest {
     }
 
     @Test
+    void seriesFormIsNullWhereItDoesNotExist() throws Exception {
+        // AMIGO PID with L = T = 2: Ti = (0.8 + 1.6)/(2 + 0.2)·2 = 2.1818, Td = 0.5·4/(0.6 + 2) = 0.7692;
+        // 4·Td = 3.08 > Ti, so no series form exists (Åström & Hägglund 2006, eq. 3.10)
+        JsonNode node = JSON.readTree(CommandRun.of("tune", "--process-gain", "1", "--time-constant", "2",
+                "--dead-time", "2", "--rule", "amigo", "--type", "pid", "--json").out());
+
+        assertThat(node.get("ideal").get("integral_time").asDouble()).isCloseTo(2.1818182, within(1e-6));
+        assertThat(node.get("ideal").get("derivative_time").asDouble()).isCloseTo(0.7692308, within(1e-6));
+        assertThat(node.get("series").isNull()).isTrue();
+        assertThat(CommandRun.of("tune", "--process-gain", "1", "--time-constant", "2", "--dead-time", "2", "--rule",
+                "amigo", "--type", "pid").out()).contains("series:   none (Ti < 4*Td)");
+    }
+
+    @Test
     void closedLoopTimeSetsLambda() throws Exception {
         // lambda PI (Rivera et al. 1986), λ = 4 on K = 1, T = 5, L = 1: Kc = (10 + 1)/(2·4) = 1.375, Ti = 5.5
         JsonNode node = JSON.readTree(CommandRun.of("tune", "--process-gain", "1", "--time-constant", "5",
