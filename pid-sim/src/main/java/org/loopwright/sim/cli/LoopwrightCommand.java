@@ -9,7 +9,8 @@ import picocli.CommandLine.Command;
  */
 @Command(name = "loopwright", mixinStandardHelpOptions = true, version = "loopwright 0.1.0",
         description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
-        subcommands = {CommandLine.HelpCommand.class, MarginsCommand.class, CompareCommand.class})
+        subcommands = {CommandLine.HelpCommand.class, ReplayCommand.class, MarginsCommand.class,
+                CompareCommand.class})
 public final class LoopwrightCommand implements Runnable {
 
     /** Exit code for bad input. */
