@@ -201,6 +201,25 @@ class LoopAnalysisTest {
     }
 
     @Test
+    void integralControlOfAPureDeadTimeHasItsAnalyticMargins() {
+        // Analytic: Ki·K·e^{−sL}/s has phase −90° − ωL: phase crossover π/(2L), gain margin π/(2·L·K·Ki).
+        // The plant has no dynamics at all (a static gain), the zero-order-hold equivalent is K·z^(−d) with
+        // one more sample when L is not whole; its gain margin must still put a pole on the unit circle.
+        double gain = 2.0;
+        double deadTime = 1.25;
+        double ki = 0.3;
+        TransferFunction plant = new TransferFunction(new double[] {gain}, new double[] {1}, deadTime);
+        ControllerSettings integralOnly = settings(0.0, ki, 0.0, 0.5);
+        PhaseCrossing pc = LoopAnalysis.continuous(plant, integralOnly).phaseCrossover().orElseThrow();
+        assertThat(pc.frequencyRadPerSecond()).isCloseTo(Math.PI / (2 * deadTime), within(1e-10));
+        assertThat(pc.gainMargin()).isCloseTo(Math.PI / (2 * deadTime * gain * ki), within(1e-9));
+        PhaseCrossing sampled = LoopAnalysis.sampled(plant, integralOnly).margins().phaseCrossover().orElseThrow();
+        List<Complex> poles = LoopAnalysis.closedLoopPoles(
+                LoopAnalysis.sampledLoop(plant, integralOnly, 0.5).times(sampled.gainMargin()));
+        assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
+    }
+
+    @Test
     void samplingTheThirdOrderLoopAtNyquistCrossingAgreesWithThePoles() {
         // A P loop on a first-order ZOH plant crosses the negative real axis at z = −1: the classic critical
         // gain K·b/(1+a) = 1 with a = e^{−h/T}, b = 1 − a (Åström & Wittenmark, §3.4 / §2.3 ZOH sampling).
