@@ -32,6 +32,8 @@ final class MarginSearch {
     private static final double FUNCTION_ACCURACY = 1e-15;
     /** Phase crossovers whose gain margin exceeds the smallest by more than this factor (20 dB) are left out. */
     static final double REPORTED_GAIN_MARGIN_SPAN = 10.0;
+    /** How far a grid estimate of a gain margin may be off, for skipping a bracket before refining it. */
+    private static final double GRID_ESTIMATE_SLACK = 2.0;
     /** The last grid point of a sampled loop stops this far short of Nyquist (its end is treated apart). */
     private static final double NYQUIST_GAP = 1e-7;
 
@@ -74,8 +76,9 @@ final class MarginSearch {
         }
         List<PhaseCrossing> phaseCrossings = new ArrayList<>();
         for (int i : phaseBrackets) {
-            if (1.0 / Math.max(values[i].norm(), values[i + 1].norm()) > REPORTED_GAIN_MARGIN_SPAN * smallestEstimate) {
-                continue; // far beyond the smallest margin: cannot matter, not worth refining
+            double estimate = 1.0 / Math.max(values[i].norm(), values[i + 1].norm());
+            if (estimate > GRID_ESTIMATE_SLACK * REPORTED_GAIN_MARGIN_SPAN * smallestEstimate) {
+                continue; // far beyond the smallest margin even allowing for the grid's coarseness: not refined
             }
             double w = refine(phaseSine, omega[i], omega[i + 1]);
             Complex l = loop.at(w);

@@ -116,24 +116,16 @@ class LoopAnalysisTest {
     }
 
     @Test
-    void sensitivityPeakOfThirdOrderLoopMatchesADenseScan() {
-        // Reference: a brute-force scan of |1/(1+L)| on 2·10⁵ points around the peak (no root finder involved).
+    void sensitivityPeaksOfThirdOrderLoopMatchTheirClosedForms() {
+        // Analytic, derived here for L = 4/(1+jω)³ with x = ω²:
+        // |1+L|² = 1 − 24(x − 1)/(1 + x)³, least at x = 2: Ms = 3 at ω = √2;
+        // |T|² = 16/((1 + x)³ − 24x + 24), largest where (1 + x)² = 8: Mt = 1 + √2 at ω = √(2√2 − 1).
         StabilityMargins m = LoopAnalysis.continuous(THIRD_ORDER, settings(4, 0, 0, 0.01));
-        double best = 0.0;
-        double where = 0.0;
-        for (int i = 0; i <= 200_000; i++) {
-            double w = 0.5 + 1.5 * i / 200_000;
-            Complex s = new Complex(0, w);
-            Complex l = s.add(1).pow(3).reciprocal().multiply(4.0);
-            double v = 1.0 / l.add(1).norm();
-            if (v > best) {
-                best = v;
-                where = w;
-            }
-        }
-        assertThat(m.sensitivityPeak().value()).isCloseTo(best, within(1e-9));
-        assertThat(m.sensitivityPeak().frequencyRadPerSecond()).isCloseTo(where, within(1e-5));
-        assertThat(m.complementaryPeak().value()).isGreaterThan(1.0);
+        assertThat(m.sensitivityPeak().value()).isCloseTo(3.0, within(1e-12));
+        assertThat(m.sensitivityPeak().frequencyRadPerSecond()).isCloseTo(Math.sqrt(2.0), within(1e-6));
+        assertThat(m.complementaryPeak().value()).isCloseTo(1.0 + Math.sqrt(2.0), within(1e-12));
+        assertThat(m.complementaryPeak().frequencyRadPerSecond())
+                .isCloseTo(Math.sqrt(2.0 * Math.sqrt(2.0) - 1.0), within(1e-6));
     }
 
     @Test
@@ -180,6 +172,51 @@ class LoopAnalysisTest {
             List<Complex> poles = LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(plant, s, h).times(pc.gainMargin()));
             assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
         }
+    }
+
+    @Test
+    void sampledDelayMarginAgreesWithThePolesWhenWholeSamplesOfDelayAreAdded() {
+        // Åström & Wittenmark, §3.4 (Nyquist criterion for sampled systems): m more samples of delay multiply
+        // L(e^{jωh}) by e^{−jωhm} exactly, turning the gain crossover by ω_c·h·m. So the loop stays stable while
+        // m·h is below the delay margin PM/ω_c and has a pole outside the unit circle once m·h exceeds it.
+        double h = 0.1;
+        TransferFunction plant = new TransferFunction(new double[] {1}, new double[] {2, 3, 1}, 0.25);
+        ControllerSettings s = settings(1.5, 0.6, 0.5, h);
+        StabilityMargins m = LoopAnalysis.sampled(plant, s).margins();
+        assertThat(m.gainCrossings()).hasSize(1);
+        double delayMargin = m.delayMarginSeconds().orElseThrow();
+        int critical = (int) Math.ceil(delayMargin / h);
+        assertThat(critical * h - delayMargin).isGreaterThan(1e-3); // not a tie
+        for (int extra : new int[] {critical - 1, critical}) {
+            TransferFunction delayed = new TransferFunction(plant.numerator(), plant.denominator(),
+                    plant.deadTimeSeconds() + extra * h);
+            SampledMargins d = LoopAnalysis.sampled(delayed, s);
+            assertThat(d.stable()).as("%d extra samples, delay margin %s s", extra, delayMargin)
+                    .isEqualTo(extra < critical);
+            assertThat(d.margins().gainCrossover().orElseThrow().phaseMarginDegrees()).isCloseTo(
+                    m.gainCrossover().orElseThrow().phaseMarginDegrees()
+                            - Math.toDegrees(m.gainCrossover().orElseThrow().frequencyRadPerSecond() * extra * h),
+                    within(1e-6));
+        }
+    }
+
+    @Test
+    void integralControlOfAPureDeadTimeHasItsAnalyticMargins() {
+        // Analytic: Ki·K·e^{−sL}/s has phase −90° − ωL: phase crossover π/(2L), gain margin π/(2·L·K·Ki).
+        // The plant has no dynamics at all (a static gain), the zero-order-hold equivalent is K·z^(−d) with
+        // one more sample when L is not whole; its gain margin must still put a pole on the unit circle.
+        double gain = 2.0;
+        double deadTime = 1.25;
+        double ki = 0.3;
+        TransferFunction plant = new TransferFunction(new double[] {gain}, new double[] {1}, deadTime);
+        ControllerSettings integralOnly = settings(0.0, ki, 0.0, 0.5);
+        PhaseCrossing pc = LoopAnalysis.continuous(plant, integralOnly).phaseCrossover().orElseThrow();
+        assertThat(pc.frequencyRadPerSecond()).isCloseTo(Math.PI / (2 * deadTime), within(1e-10));
+        assertThat(pc.gainMargin()).isCloseTo(Math.PI / (2 * deadTime * gain * ki), within(1e-9));
+        PhaseCrossing sampled = LoopAnalysis.sampled(plant, integralOnly).margins().phaseCrossover().orElseThrow();
+        List<Complex> poles = LoopAnalysis.closedLoopPoles(
+                LoopAnalysis.sampledLoop(plant, integralOnly, 0.5).times(sampled.gainMargin()));
+        assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
     }
 
     @Test
