@@ -20,6 +20,11 @@ import org.slf4j.LoggerFactory;
  * each term discretised as {@link org.loopwright.pid.discrete} describes. At the first sample every
  * dynamic state is zero; the recursions apply from the second sample on.
  *
+ * <p>Bumpless by one rule: whenever the integral is not the law's own (after manual, tracking, a
+ * safe output or a restore), the first automatic sample sets it so that the output equals the last
+ * output; a retune moves it so that P + I + D at the last inputs is unchanged. A faulty sample (see
+ * {@link Fault}) touches no state at all: it does not even adopt a pending retune.
+ *
  * <p>Example: {@code double heaterPercent = controller.update(60.0, bathTemperature);} once per
  * sample period.
  *
@@ -86,7 +91,13 @@ public final class PidController {
     /**
      * One variable-period update: the coefficients are computed for this period.
      *
+     * A forward-Euler derivative cannot run at a period of 2·Tf or more; for such a period this
+     * update uses backward Euler instead (the hot path does not throw).
+     *
+     * @param setpoint      r, in process units
+     * @param measurement   y, in process units
      * @param periodSeconds time since the previous update; a non-finite or non-positive one is a fault
+     * @return the output (or its increment, for {@link OutputKind#INCREMENT}); never NaN, always in range
      */
     public double update(double setpoint, double measurement, double periodSeconds) {
         ControllerSettings s = published;
@@ -94,12 +105,13 @@ public final class PidController {
     }
 
     private double step(ControllerSettings s, double r, double y, double h, boolean fixedPeriod) {
-        if (s != active) {
-            adopt(s);
-        }
         Fault seen = classify(r, y, h);
         if (seen != Fault.NONE) {
             return onFault(s, seen);
+        }
+        if (s != active) {
+            // adopted on a good sample only, so that a fault never touches the state
+            adopt(s);
         }
 
         double b0;
@@ -156,17 +168,18 @@ public final class PidController {
                 output = clamp(clamp(manualValue, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
-                rebalancePending = true;
             }
             case TRACKING -> {
-                output = clamp(Double.isFinite(trackValue) ? trackValue : previousOutput, s.outputMin(), s.outputMax());
+                double target = Double.isFinite(trackValue) ? trackValue : previousOutput;
+                output = clamp(clamp(target, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
-                rebalancePending = true;
             }
             default -> {
                 if (rebalancePending && started) {
                     next = previousOutput - proportional - derivative - uff;
+                    // nothing was integrated on this sample, so conditional integration has nothing to undo
+                    increment = 0.0;
                 }
                 unlimited = proportional + next + derivative + uff;
                 output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
@@ -176,12 +189,18 @@ public final class PidController {
                     unlimited = proportional + next + derivative + uff;
                     output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
                 }
-                rebalancePending = false;
             }
         }
 
+        if (!(Double.isFinite(error) && Double.isFinite(next) && Double.isFinite(derivative)
+                && Double.isFinite(unlimited))) {
+            // finite inputs far too large for the gains: the sample is dropped like a faulty one
+            return onFault(s, Fault.ARITHMETIC_OVERFLOW);
+        }
         double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
 
+        // outside automatic the integral is not the law's own: the next automatic sample rebalances it
+        rebalancePending = mode != Mode.AUTOMATIC;
         integral = next;
         derivativeState = derivative;
         previousError = error;
@@ -218,13 +237,19 @@ public final class PidController {
         return Fault.NONE;
     }
 
-    /** A faulty sample never reaches the state; the policy decides the output. */
+    /**
+     * A faulty sample never reaches the state; the policy of the latest settings decides the output,
+     * which stays within their range. The safe output is applied at once, past the slew limit: it is
+     * a safety action.
+     */
     private double onFault(ControllerSettings s, Fault seen) {
         faultCount++;
         fault = seen;
-        double output = previousOutput;
+        double output = clamp(previousOutput, s.outputMin(), s.outputMax());
         if (s.faultPolicy() == FaultPolicy.SAFE_OUTPUT) {
             output = clamp(s.safeOutput(), s.outputMin(), s.outputMax());
+        }
+        if (output != previousOutput) {
             rebalancePending = true;
         }
         double result = s.outputKind() == OutputKind.INCREMENT ? output - previousOutput : output;
@@ -233,10 +258,14 @@ public final class PidController {
         return result;
     }
 
-    /** Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output. */
+    /**
+     * Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output.
+     * Without integral action there is nothing to wind up, and the integral (then a fixed bias) stays.
+     */
     private double backCalculation(ControllerSettings s, double h) {
         WindupProtection scheme = s.windupProtection();
-        if (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING) {
+        if (s.integralGain == 0.0
+                || (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING)) {
             return 0.0;
         }
         double applied = scheme == WindupProtection.ACTUATOR_TRACKING && Double.isFinite(actuatorPosition)

@@ -43,7 +43,7 @@ class ExampleScenariosTest {
 
     @Test
     void boosterPumpRecoversTheLevelAfterTheDemandChanges() throws URISyntaxException {
-        Scenario s = ScenarioFile.read(example("booster-pump.yaml"));
+        Scenario s = ScenarioFile.read(example("booster-pump-tank.yaml"));
         Trajectory t = Simulation.run(s);
         assertThat(t.process(t.length() - 1)).isBetween(0.98, 1.02);
         assertThat(ResponseMetrics.peakDeviation(t, 600.0)).isGreaterThan(0.01);
