@@ -11,5 +11,10 @@ public enum Fault {
     /** The period was NaN, infinite, zero or negative. */
     PERIOD_NOT_VALID,
     /** The feedforward input was NaN or infinite. */
-    FEEDFORWARD_NOT_FINITE
+    FEEDFORWARD_NOT_FINITE,
+    /**
+     * The inputs were finite but so large that the law overflowed (an error, a term or the output
+     * beyond the range of a double); the sample is dropped like any other faulty one.
+     */
+    ARITHMETIC_OVERFLOW
 }

@@ -6,6 +6,10 @@ public enum Mode {
     AUTOMATIC,
     /** The operator sets the output; the range and slew limits still apply. */
     MANUAL,
-    /** The output follows an external value (another controller, a selector), within the range. */
+    /**
+     * The output follows an external value (another controller, a selector, the actuator's real
+     * position); the range and slew limits still apply, so entering tracking moves the output no
+     * faster than the slew limit allows.
+     */
     TRACKING
 }

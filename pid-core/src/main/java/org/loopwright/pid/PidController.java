@@ -94,12 +94,13 @@ public final class PidController {
     }
 
     private double step(ControllerSettings s, double r, double y, double h, boolean fixedPeriod) {
-        if (s != active) {
-            adopt(s);
-        }
         Fault seen = classify(r, y, h);
         if (seen != Fault.NONE) {
             return onFault(s, seen);
+        }
+        if (s != active) {
+            // adopted on a good sample only, so that a fault never touches the state
+            adopt(s);
         }
 
         double b0;
@@ -159,7 +160,8 @@ public final class PidController {
                 rebalancePending = true;
             }
             case TRACKING -> {
-                output = clamp(Double.isFinite(trackValue) ? trackValue : previousOutput, s.outputMin(), s.outputMax());
+                double target = Double.isFinite(trackValue) ? trackValue : previousOutput;
+                output = clamp(clamp(target, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
                 rebalancePending = true;
@@ -167,6 +169,8 @@ public final class PidController {
             default -> {
                 if (rebalancePending && started) {
                     next = previousOutput - proportional - derivative - uff;
+                    // nothing was integrated on this sample, so conditional integration has nothing to undo
+                    increment = 0.0;
                 }
                 unlimited = proportional + next + derivative + uff;
                 output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
@@ -180,6 +184,11 @@ public final class PidController {
             }
         }
 
+        if (!(Double.isFinite(error) && Double.isFinite(next) && Double.isFinite(derivative)
+                && Double.isFinite(unlimited))) {
+            // finite inputs far too large for the gains: the sample is dropped like a faulty one
+            return onFault(s, Fault.ARITHMETIC_OVERFLOW);
+        }
         double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
 
         integral = next;
@@ -218,13 +227,19 @@ public final class PidController {
         return Fault.NONE;
     }
 
-    /** A faulty sample never reaches the state; the policy decides the output. */
+    /**
+     * A faulty sample never reaches the state; the policy of the latest settings decides the output,
+     * which stays within their range. The safe output is applied at once, past the slew limit: it is
+     * a safety action.
+     */
     private double onFault(ControllerSettings s, Fault seen) {
         faultCount++;
         fault = seen;
-        double output = previousOutput;
+        double output = clamp(previousOutput, s.outputMin(), s.outputMax());
         if (s.faultPolicy() == FaultPolicy.SAFE_OUTPUT) {
             output = clamp(s.safeOutput(), s.outputMin(), s.outputMax());
+        }
+        if (output != previousOutput) {
             rebalancePending = true;
         }
         double result = s.outputKind() == OutputKind.INCREMENT ? output - previousOutput : output;
@@ -233,10 +248,14 @@ public final class PidController {
         return result;
     }
 
-    /** Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output. */
+    /**
+     * Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output.
+     * Without integral action there is nothing to wind up, and the integral (then a fixed bias) stays.
+     */
     private double backCalculation(ControllerSettings s, double h) {
         WindupProtection scheme = s.windupProtection();
-        if (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING) {
+        if (s.integralGain == 0.0
+                || (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING)) {
             return 0.0;
         }
         double applied = scheme == WindupProtection.ACTUATOR_TRACKING && Double.isFinite(actuatorPosition)
