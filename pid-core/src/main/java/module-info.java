@@ -8,4 +8,5 @@ module org.loopwright.pid {
     exports org.loopwright.pid;
     exports org.loopwright.pid.form;
     exports org.loopwright.pid.discrete;
+    exports org.loopwright.pid.runner;
 }
