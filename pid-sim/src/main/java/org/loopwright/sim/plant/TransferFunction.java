@@ -1,18 +1,23 @@
 package org.loopwright.sim.plant;
 
 import java.util.Arrays;
+import java.util.Optional;
 
 /**
  * A rational transfer function with a dead time, G(s) = N(s)/D(s)·e^(−sL), coefficients in
  * descending powers of s. Proper (deg N &le; deg D), with a non-zero leading denominator coefficient.
  *
- * <p>Example: 1/(s+1)³ is {@code new TransferFunction(new double[] {1}, new double[] {1, 3, 3, 1}, 0)}.
+ * <p>Example: 1/(s+1)³ is {@code new TransferFunction(new double[] {1}, new double[] {1, 3, 3, 1}, 0)};
+ * the factories build the common process models, for example {@code TransferFunction.fopdt(2.0, 30.0, 5.0)}
+ * for 2·e^(−5s)/(30s+1). Errors name the scenario file's key: {@code "time-constant must be finite and > 0:
+ * time-constant=-1.0"}.
  *
  * @param numerator        N(s), descending powers of s
  * @param denominator      D(s), descending powers of s
  * @param deadTimeSeconds  L &ge; 0
  */
-public record TransferFunction(double[] numerator, double[] denominator, double deadTimeSeconds) {
+public record TransferFunction(double[] numerator, double[] denominator, double deadTimeSeconds)
+        implements PlantModel {
 
     /** Validates and copies the coefficients. */
     public TransferFunction {
@@ -29,6 +34,60 @@ public record TransferFunction(double[] numerator, double[] denominator, double 
         if (!Double.isFinite(deadTimeSeconds) || deadTimeSeconds < 0.0) {
             throw new IllegalArgumentException("dead-time must be finite and >= 0: dead-time=" + deadTimeSeconds);
         }
+    }
+
+    /** K/(Ts+1). */
+    public static TransferFunction firstOrder(double gain, double timeConstantSeconds) {
+        return fopdt(gain, timeConstantSeconds, 0.0);
+    }
+
+    /** K·e^(−Ls)/(Ts+1): first order plus dead time. */
+    public static TransferFunction fopdt(double gain, double timeConstantSeconds, double deadTimeSeconds) {
+        return new TransferFunction(new double[] {Checks.finite("gain", gain)},
+                new double[] {Checks.positive("time-constant", timeConstantSeconds), 1.0}, deadTimeSeconds);
+    }
+
+    /** K·e^(−Ls)/((T1·s+1)(T2·s+1)): second order plus dead time from two time constants. */
+    public static TransferFunction sopdt(double gain, double firstTimeConstantSeconds,
+            double secondTimeConstantSeconds, double deadTimeSeconds) {
+        double t1 = Checks.positive("time-constants", firstTimeConstantSeconds);
+        double t2 = Checks.positive("time-constants", secondTimeConstantSeconds);
+        return new TransferFunction(new double[] {Checks.finite("gain", gain)}, new double[] {t1 * t2, t1 + t2, 1.0},
+                deadTimeSeconds);
+    }
+
+    /** K·ωn²·e^(−Ls)/(s² + 2ζωn·s + ωn²): second order plus dead time from natural frequency and damping. */
+    public static TransferFunction sopdtOscillatory(double gain, double naturalFrequencyRadPerSecond,
+            double damping, double deadTimeSeconds) {
+        double wn = Checks.positive("natural-frequency", naturalFrequencyRadPerSecond);
+        double zeta = Checks.positive("damping", damping);
+        return new TransferFunction(new double[] {Checks.finite("gain", gain) * wn * wn},
+                new double[] {1.0, 2.0 * zeta * wn, wn * wn}, deadTimeSeconds);
+    }
+
+    /** K·e^(−Ls)/s: integrating plus dead time (a level, a position). */
+    public static TransferFunction integrating(double gain, double deadTimeSeconds) {
+        return new TransferFunction(new double[] {Checks.finite("gain", gain)}, new double[] {1.0, 0.0}, deadTimeSeconds);
+    }
+
+    /** The same rational part with another dead time. */
+    public TransferFunction withDeadTime(double seconds) {
+        return new TransferFunction(numerator, denominator, seconds);
+    }
+
+    /** G(0) = N(0)/D(0): infinite (signed by N(0)) for an integrating plant. */
+    public double staticGain() {
+        return numerator[numerator.length - 1] / denominator[denominator.length - 1];
+    }
+
+    @Override
+    public Plant newPlant() {
+        return new LinearPlant(this);
+    }
+
+    @Override
+    public Optional<TransferFunction> linear() {
+        return Optional.of(this);
     }
 
     private static double[] finiteCopy(String field, double[] values) {

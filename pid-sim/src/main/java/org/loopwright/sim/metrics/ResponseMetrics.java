@@ -1,0 +1,191 @@
+package org.loopwright.sim.metrics;
+
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.simulate.Trajectory;
+
+/**
+ * The figures of merit of a closed-loop response, measured on the true process output (before the
+ * sensor's noise and dropouts) over a window that starts at a setpoint change. A figure that does
+ * not apply is NaN (written as null in JSON): the step figures when the response does not move,
+ * rise time when it never reaches 90 %, settling time when it has not settled by the window's end,
+ * peak time when there is no overshoot.
+ *
+ * <p>Definitions (Åström &amp; Murray, <i>Feedback Systems</i>, 2nd ed., 2021, §5.3 for the step
+ * figures; the integral criteria as in Åström &amp; Hägglund, <i>Advanced PID Control</i>, 2006, §4.4):
+ * with y₀ the output at the window's start and y∞ its value at the window's end,
+ * <ul>
+ * <li>rise time: from reaching y₀ + 10 % to y₀ + 90 % of y∞ − y₀ (linear interpolation between samples);</li>
+ * <li>settling time: from the window's start until the output stays within ±2 % of |y∞ − y₀| around y∞
+ *     (resolved to the sample);</li>
+ * <li>overshoot: the largest excursion beyond y∞ in percent of |y∞ − y₀|; peak time: when it occurs;</li>
+ * <li>steady-state error: r − y at the window's end;</li>
+ * <li>IAE, ISE, ITAE: ∫|e|dt, ∫e²dt, ∫(t − t₀)|e|dt with e = r − y, from the window's start to the end of
+ *     the run, each sample's error held until the next sample;</li>
+ * <li>total variation: Σ|u(k) − u(k−1)| from the window's start; saturated fraction: the share of samples
+ *     whose output was limited by the controller's range or the actuator.</li>
+ * </ul>
+ *
+ * @param riseTimeSeconds     10–90 % rise time
+ * @param settlingTimeSeconds 2 % settling time
+ * @param overshootPercent    overshoot in percent
+ * @param peakTimeSeconds     time of the overshoot's peak after the window's start
+ * @param steadyStateError    r − y at the window's end, process units
+ * @param iae                 integral of absolute error, units·s
+ * @param ise                 integral of squared error, units²·s
+ * @param itae                integral of time-weighted absolute error, units·s²
+ * @param totalVariation      total variation of the controller output, output units
+ * @param saturatedFraction   share of samples in saturation, 0 to 1
+ */
+public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds, double overshootPercent,
+        double peakTimeSeconds, double steadyStateError, double iae, double ise, double itae, double totalVariation,
+        double saturatedFraction) {
+
+    /** The share of the step that counts as settled (2 %). */
+    public static final double SETTLING_BAND = 0.02;
+
+    /**
+     * The metrics of a scenario's run: the window starts at the first setpoint change (0 without one)
+     * and the step figures end at the first load step after it (or the end of the run).
+     */
+    public static ResponseMetrics of(Scenario scenario, Trajectory trajectory) {
+        double start = scenario.setpoint().isEmpty() ? 0.0 : scenario.setpoint().get(0).atSeconds();
+        double end = Double.POSITIVE_INFINITY;
+        for (var load : scenario.disturbances()) {
+            if (load.atSeconds() > start) {
+                end = load.atSeconds();
+                break;
+            }
+        }
+        return of(trajectory, start, end);
+    }
+
+    /**
+     * The metrics over a window.
+     *
+     * @param trajectory   the run
+     * @param startSeconds the setpoint change the step figures refer to
+     * @param endSeconds   where the step figures stop looking (the integrals run to the end of the run)
+     */
+    public static ResponseMetrics of(Trajectory trajectory, double startSeconds, double endSeconds) {
+        int first = firstAtOrAfter(trajectory, startSeconds);
+        int n = trajectory.length();
+        if (first >= n) {
+            return new ResponseMetrics(Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                    Double.NaN, Double.NaN, Double.NaN, Double.NaN);
+        }
+        int last = first;
+        while (last + 1 < n && trajectory.time(last + 1) < endSeconds) {
+            last++;
+        }
+        double t0 = trajectory.time(first);
+        double y0 = trajectory.process(first);
+        double yEnd = trajectory.process(last);
+        double step = yEnd - y0;
+        double scale = Math.max(Math.abs(y0), Math.abs(yEnd));
+        boolean moved = Math.abs(step) > 1e-9 * Math.max(1.0, scale);
+
+        double rise = Double.NaN;
+        double settling = Double.NaN;
+        double overshoot = Double.NaN;
+        double peakTime = Double.NaN;
+        if (moved) {
+            double t10 = crossing(trajectory, first, last, y0 + 0.1 * step, step);
+            double t90 = crossing(trajectory, first, last, y0 + 0.9 * step, step);
+            rise = t90 - t10;
+            settling = settlingTime(trajectory, first, last, yEnd, Math.abs(step) * SETTLING_BAND) - t0;
+            double sign = Math.signum(step);
+            double peak = 0.0;
+            int peakAt = -1;
+            for (int k = first; k <= last; k++) {
+                double beyond = sign * (trajectory.process(k) - yEnd);
+                if (beyond > peak) {
+                    peak = beyond;
+                    peakAt = k;
+                }
+            }
+            overshoot = 100.0 * peak / Math.abs(step);
+            peakTime = peakAt < 0 ? Double.NaN : trajectory.time(peakAt) - t0;
+        }
+        double steadyStateError = trajectory.setpoint(last) - yEnd;
+
+        double iae = 0.0;
+        double ise = 0.0;
+        double itae = 0.0;
+        for (int k = first; k + 1 < n; k++) {
+            double dt = trajectory.time(k + 1) - trajectory.time(k);
+            double e = trajectory.setpoint(k) - trajectory.process(k);
+            iae += Math.abs(e) * dt;
+            ise += e * e * dt;
+            itae += (trajectory.time(k) - t0) * Math.abs(e) * dt;
+        }
+        double variation = 0.0;
+        int saturated = trajectory.saturated(first) ? 1 : 0;
+        for (int k = first + 1; k < n; k++) {
+            variation += Math.abs(trajectory.output(k) - trajectory.output(k - 1));
+            saturated += trajectory.saturated(k) ? 1 : 0;
+        }
+        return new ResponseMetrics(rise, settling, overshoot, peakTime, steadyStateError, iae, ise, itae, variation,
+                (double) saturated / (n - first));
+    }
+
+    /**
+     * The integral of absolute error r − y from {@code fromSeconds} to the end of the run, for
+     * judging the response to a load step (each sample's error held until the next sample).
+     */
+    public static double loadIae(Trajectory trajectory, double fromSeconds) {
+        double iae = 0.0;
+        for (int k = firstAtOrAfter(trajectory, fromSeconds); k + 1 < trajectory.length(); k++) {
+            double dt = trajectory.time(k + 1) - trajectory.time(k);
+            iae += Math.abs(trajectory.setpoint(k) - trajectory.process(k)) * dt;
+        }
+        return iae;
+    }
+
+    /** The largest |r − y| from {@code fromSeconds} on: the peak deviation after a load step. */
+    public static double peakDeviation(Trajectory trajectory, double fromSeconds) {
+        double peak = 0.0;
+        for (int k = firstAtOrAfter(trajectory, fromSeconds); k < trajectory.length(); k++) {
+            peak = Math.max(peak, Math.abs(trajectory.setpoint(k) - trajectory.process(k)));
+        }
+        return peak;
+    }
+
+    private static int firstAtOrAfter(Trajectory trajectory, double seconds) {
+        int k = 0;
+        while (k < trajectory.length() && trajectory.time(k) < seconds) {
+            k++;
+        }
+        return k;
+    }
+
+    /** The first time the output reaches {@code level}, moving in the direction of {@code step}. */
+    private static double crossing(Trajectory trajectory, int first, int last, double level, double step) {
+        double sign = Math.signum(step);
+        for (int k = first; k <= last; k++) {
+            double here = sign * (trajectory.process(k) - level);
+            if (here >= 0.0) {
+                if (k == first) {
+                    return trajectory.time(k);
+                }
+                double before = sign * (trajectory.process(k - 1) - level);
+                double fraction = -before / (here - before);
+                return trajectory.time(k - 1) + fraction * (trajectory.time(k) - trajectory.time(k - 1));
+            }
+        }
+        return Double.NaN;
+    }
+
+    /** The first sample instant after which the output stays within the band; NaN if the last sample is outside. */
+    private static double settlingTime(Trajectory trajectory, int first, int last, double target, double band) {
+        int lastOutside = -1;
+        for (int k = first; k <= last; k++) {
+            if (Math.abs(trajectory.process(k) - target) > band) {
+                lastOutside = k;
+            }
+        }
+        if (lastOutside == last) {
+            return Double.NaN;
+        }
+        return lastOutside < 0 ? trajectory.time(first) : trajectory.time(lastOutside + 1);
+    }
+}

@@ -1,0 +1,224 @@
+package org.loopwright.sim.plant;
+
+import java.util.Arrays;
+
+import org.hipparchus.linear.MatrixUtils;
+import org.hipparchus.linear.RealMatrix;
+
+/**
+ * A linear plant stepped exactly: between two instants the input is constant, so the state moves by
+ * x ← Φ(τ)·x + Γ(τ)·u with Φ(τ) = e^(Aτ) and Γ(τ) = ∫₀^τ e^(As)·B ds, both read from one matrix
+ * exponential of [[A, B], [0, 0]]·τ (zero-order-hold discretisation; Åström &amp; Wittenmark,
+ * <i>Computer-Controlled Systems</i>, 3rd ed., 1997, §2.3). The realisation is the controllable
+ * canonical form of the transfer function.
+ *
+ * <p>A dead time L is exact for any L, whole number of periods or not: the inputs are kept as held
+ * pieces (value, length) in a queue that starts with L seconds of zero input, and each advance
+ * integrates exactly across the piece boundaries that fall inside it. Nothing is rounded.
+ *
+ * <p>Φ and Γ are cached by interval length (the last {@value #CACHED_LENGTHS} lengths), so a
+ * fixed-period simulation computes them once or twice and then allocates nothing. A biproper
+ * transfer function (deg N = deg D) feeds the held input straight through to {@link #output()}.
+ *
+ * <p>Example: {@code Plant p = new LinearPlant(TransferFunction.fopdt(2.0, 30.0, 5.5));}
+ *
+ * <p>Not thread-safe: one simulation owns a plant.
+ */
+public final class LinearPlant implements Plant {
+
+    private static final int CACHED_LENGTHS = 16;
+    private static final int INITIAL_PIECES = 16;
+
+    private final TransferFunction model;
+    private final int order;
+    private final double[] stateMatrix;
+    private final double[] inputVector;
+    private final double[] outputVector;
+    private final double feedthrough;
+    private final double deadTimeSeconds;
+
+    private final double[] state;
+    private final double[] scratch;
+    private double heldInput;
+
+    private final double[] cachedSeconds = new double[CACHED_LENGTHS];
+    private final double[][] cachedTransition;
+    private final double[][] cachedInputResponse;
+    private int lastHit;
+    private int nextSlot;
+
+    // the delay line: a ring of held pieces, oldest first
+    private double[] pieceInput = new double[INITIAL_PIECES];
+    private double[] pieceSeconds = new double[INITIAL_PIECES];
+    private int first;
+    private int pieces;
+    private double firstConsumedSeconds;
+
+    /** A plant at rest for the given model. */
+    public LinearPlant(TransferFunction model) {
+        this.model = model;
+        double[] den = model.denominator();
+        double[] num = model.numerator();
+        order = den.length - 1;
+        double lead = den[0];
+        double[] beta = new double[order + 1];
+        for (int i = 0; i < num.length; i++) {
+            beta[order + 1 - num.length + i] = num[i] / lead;
+        }
+        feedthrough = beta[0];
+        stateMatrix = new double[order * order];
+        inputVector = new double[order];
+        outputVector = new double[order];
+        for (int j = 0; j + 1 < order; j++) {
+            stateMatrix[j * order + j + 1] = 1.0;
+        }
+        for (int j = 0; j < order; j++) {
+            double a = den[order - j] / lead;
+            stateMatrix[(order - 1) * order + j] = -a;
+            outputVector[j] = beta[order - j] - feedthrough * a;
+        }
+        if (order > 0) {
+            inputVector[order - 1] = 1.0;
+        }
+        deadTimeSeconds = model.deadTimeSeconds();
+        state = new double[order];
+        scratch = new double[order];
+        cachedTransition = new double[CACHED_LENGTHS][order * order];
+        cachedInputResponse = new double[CACHED_LENGTHS][order];
+        Arrays.fill(cachedSeconds, Double.NaN);
+        reset();
+    }
+
+    /** The transfer function this plant realises. */
+    public TransferFunction model() {
+        return model;
+    }
+
+    @Override
+    public void reset() {
+        Arrays.fill(state, 0.0);
+        heldInput = 0.0;
+        first = 0;
+        pieces = 0;
+        firstConsumedSeconds = 0.0;
+        if (deadTimeSeconds > 0.0) {
+            enqueue(0.0, deadTimeSeconds);
+        }
+    }
+
+    @Override
+    public double output() {
+        double y = feedthrough * heldInput;
+        for (int i = 0; i < order; i++) {
+            y += outputVector[i] * state[i];
+        }
+        return y;
+    }
+
+    @Override
+    public void advance(double inputHeldOverInterval, double seconds) {
+        if (!(seconds > 0.0)) {
+            return;
+        }
+        if (deadTimeSeconds == 0.0) {
+            hold(inputHeldOverInterval, seconds);
+            return;
+        }
+        enqueue(inputHeldOverInterval, seconds);
+        double remaining = seconds;
+        while (remaining > 0.0 && pieces > 0) {
+            double left = pieceSeconds[first] - firstConsumedSeconds;
+            if (left <= remaining) {
+                hold(pieceInput[first], left);
+                remaining -= left;
+                first = (first + 1) % pieceInput.length;
+                pieces--;
+                firstConsumedSeconds = 0.0;
+            } else {
+                hold(pieceInput[first], remaining);
+                firstConsumedSeconds += remaining;
+                remaining = 0.0;
+            }
+        }
+    }
+
+    private void hold(double input, double seconds) {
+        heldInput = input;
+        if (order == 0 || !(seconds > 0.0)) {
+            return;
+        }
+        int slot = discretisation(seconds);
+        double[] phi = cachedTransition[slot];
+        double[] gamma = cachedInputResponse[slot];
+        for (int i = 0; i < order; i++) {
+            double sum = gamma[i] * input;
+            int row = i * order;
+            for (int j = 0; j < order; j++) {
+                sum += phi[row + j] * state[j];
+            }
+            scratch[i] = sum;
+        }
+        System.arraycopy(scratch, 0, state, 0, order);
+    }
+
+    private int discretisation(double seconds) {
+        if (cachedSeconds[lastHit] == seconds) {
+            return lastHit;
+        }
+        for (int i = 0; i < CACHED_LENGTHS; i++) {
+            if (cachedSeconds[i] == seconds) {
+                lastHit = i;
+                return i;
+            }
+        }
+        int slot = nextSlot;
+        nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
+        discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);
+        cachedSeconds[slot] = seconds;
+        lastHit = slot;
+        return slot;
+    }
+
+    /** e^([[A, B], [0, 0]]·τ) = [[Φ(τ), Γ(τ)], [0, 1]] (Van Loan's block form). */
+    private void discretise(double seconds, double[] transition, double[] inputResponse) {
+        RealMatrix augmented = MatrixUtils.createRealMatrix(order + 1, order + 1);
+        for (int i = 0; i < order; i++) {
+            for (int j = 0; j < order; j++) {
+                augmented.setEntry(i, j, stateMatrix[i * order + j] * seconds);
+            }
+            augmented.setEntry(i, order, inputVector[i] * seconds);
+        }
+        RealMatrix exponential = MatrixUtils.matrixExponential(augmented);
+        for (int i = 0; i < order; i++) {
+            for (int j = 0; j < order; j++) {
+                transition[i * order + j] = exponential.getEntry(i, j);
+            }
+            inputResponse[i] = exponential.getEntry(i, order);
+        }
+    }
+
+    private void enqueue(double input, double seconds) {
+        if (pieces == pieceInput.length) {
+            grow();
+        }
+        int slot = (first + pieces) % pieceInput.length;
+        pieceInput[slot] = input;
+        pieceSeconds[slot] = seconds;
+        pieces++;
+    }
+
+    /** Only when more pieces are in flight than ever before (a dead time of many periods, at warm-up). */
+    private void grow() {
+        int capacity = pieceInput.length * 2;
+        double[] inputs = new double[capacity];
+        double[] lengths = new double[capacity];
+        for (int i = 0; i < pieces; i++) {
+            int from = (first + i) % pieceInput.length;
+            inputs[i] = pieceInput[from];
+            lengths[i] = pieceSeconds[from];
+        }
+        pieceInput = inputs;
+        pieceSeconds = lengths;
+        first = 0;
+    }
+}

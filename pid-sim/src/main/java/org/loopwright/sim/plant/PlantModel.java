@@ -1,0 +1,16 @@
+package org.loopwright.sim.plant;
+
+import java.util.Optional;
+
+/**
+ * An immutable description of a plant from which fresh {@link Plant} instances at rest are made,
+ * one per simulation (so simulations may run in parallel).
+ */
+public sealed interface PlantModel permits TransferFunction, DcMotorModel, ThermalZoneModel, TankModel {
+
+    /** A new plant at rest. */
+    Plant newPlant();
+
+    /** The model as a transfer function with dead time, when it is linear; empty for nonlinear plants. */
+    Optional<TransferFunction> linear();
+}

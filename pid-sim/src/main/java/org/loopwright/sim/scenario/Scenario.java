@@ -1,0 +1,294 @@
+package org.loopwright.sim.scenario;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.onoff.OnOffSettings;
+import org.loopwright.sim.nonideal.ActuatorModel;
+import org.loopwright.sim.nonideal.SensorModel;
+import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.TransferFunction;
+
+/**
+ * One closed-loop experiment, immutable: a controller (PID settings, or an on-off controller with
+ * its sample period), a plant, a setpoint profile, load disturbances, the actuator and sensor, the
+ * duration and the random seed. Samples are taken at 0, h, 2h, … up to the duration.
+ *
+ * <p>Before its first entry the setpoint equals the plant's output at rest, so a loop starts in
+ * balance. The profile and the load steps are kept sorted by time (stable for equal times).
+ *
+ * <p>Example, a unit setpoint step on 1/(10s+1) under a PI controller for 100 s:
+ * <pre>{@code
+ * Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0), settings, 1.0, 100.0);
+ * Trajectory t = Simulation.run(s);
+ * }</pre>
+ *
+ * <p>Thread-safe: immutable.
+ */
+public final class Scenario {
+
+    /** The most samples a scenario may ask for (about 300 MB of trajectory). */
+    public static final long MAX_SAMPLES = 5_000_000L;
+
+    private final ControllerSettings controller;
+    private final OnOffSettings onOffController;
+    private final double samplePeriodSeconds;
+    private final PlantModel plant;
+    private final List<SetpointChange> setpoint;
+    private final List<LoadStep> disturbances;
+    private final ActuatorModel actuator;
+    private final SensorModel sensor;
+    private final double durationSeconds;
+    private final long seed;
+
+    private Scenario(Builder b) {
+        plant = Objects.requireNonNull(b.plant, "plant");
+        if ((b.controller == null) == (b.onOffController == null)) {
+            throw new IllegalArgumentException("a scenario needs exactly one controller, PID or on-off");
+        }
+        controller = b.controller;
+        onOffController = b.onOffController;
+        samplePeriodSeconds = controller != null ? controller.samplePeriodSeconds()
+                : Validation.positive("sample-period", b.samplePeriodSeconds);
+        setpoint = sorted(b.setpoint, Comparator.comparingDouble(SetpointChange::atSeconds));
+        disturbances = sorted(b.disturbances, Comparator.comparingDouble(LoadStep::atSeconds));
+        actuator = Objects.requireNonNull(b.actuator, "actuator");
+        sensor = Objects.requireNonNull(b.sensor, "sensor");
+        durationSeconds = Validation.positive("duration", b.durationSeconds);
+        if (sensor.jitterSeconds() >= samplePeriodSeconds) {
+            throw new IllegalArgumentException("jitter must be < the sample period (" + samplePeriodSeconds
+                    + "): jitter=" + sensor.jitterSeconds());
+        }
+        if (sampleCount() > MAX_SAMPLES) {
+            throw new IllegalArgumentException("duration must give at most " + MAX_SAMPLES
+                    + " samples at the sample period " + samplePeriodSeconds + ": duration=" + durationSeconds);
+        }
+        seed = b.seed;
+    }
+
+    private static <T> List<T> sorted(List<T> items, Comparator<T> order) {
+        List<T> copy = new ArrayList<>(items);
+        copy.sort(order);
+        return List.copyOf(copy);
+    }
+
+    /** An empty builder: a plant, a controller and a duration are required; the rest has defaults. */
+    public static Builder builder() {
+        return new Builder();
+    }
+
+    /** A builder that starts from this scenario. */
+    public Builder toBuilder() {
+        Builder b = new Builder();
+        b.controller = controller;
+        b.onOffController = onOffController;
+        b.samplePeriodSeconds = samplePeriodSeconds;
+        b.plant = plant;
+        b.setpoint.addAll(setpoint);
+        b.disturbances.addAll(disturbances);
+        b.actuator = actuator;
+        b.sensor = sensor;
+        b.durationSeconds = durationSeconds;
+        b.seed = seed;
+        return b;
+    }
+
+    /**
+     * A setpoint step from rest at t = 0 on a linear plant, with an ideal actuator and sensor.
+     *
+     * @param plant           the plant
+     * @param settings        the PID settings (their sample period is the scenario's)
+     * @param setpoint        the step's size, process units
+     * @param durationSeconds how long to simulate
+     */
+    public static Scenario setpointStep(PlantModel plant, ControllerSettings settings, double setpoint,
+            double durationSeconds) {
+        return builder().plant(plant).controller(settings).setpoint(SetpointChange.step(0.0, setpoint))
+                .durationSeconds(durationSeconds).build();
+    }
+
+    /**
+     * A load step at t = 0 on a linear plant at rest, setpoint held at 0, ideal actuator and sensor:
+     * the regulator's response to a disturbance.
+     *
+     * @param plant           the plant
+     * @param settings        the PID settings
+     * @param load            the step added to the plant input, input units
+     * @param durationSeconds how long to simulate
+     */
+    public static Scenario loadStep(PlantModel plant, ControllerSettings settings, double load,
+            double durationSeconds) {
+        return builder().plant(plant).controller(settings).disturbance(new LoadStep(0.0, load))
+                .durationSeconds(durationSeconds).build();
+    }
+
+    /** The PID settings, when the controller is a PID controller. */
+    public Optional<ControllerSettings> controller() {
+        return Optional.ofNullable(controller);
+    }
+
+    /** The on-off settings, when the controller is an on-off controller. */
+    public Optional<OnOffSettings> onOffController() {
+        return Optional.ofNullable(onOffController);
+    }
+
+    /** This scenario with another PID controller (whose sample period becomes the scenario's). */
+    public Scenario withController(ControllerSettings settings) {
+        Builder b = toBuilder();
+        b.onOffController = null;
+        return b.controller(settings).build();
+    }
+
+    /** This scenario with another duration. */
+    public Scenario withDuration(double seconds) {
+        return toBuilder().durationSeconds(seconds).build();
+    }
+
+    /** This scenario with another plant. */
+    public Scenario withPlant(PlantModel model) {
+        return toBuilder().plant(model).build();
+    }
+
+    /** The sample period h in seconds. */
+    public double samplePeriodSeconds() {
+        return samplePeriodSeconds;
+    }
+
+    /** The number of samples: at 0, h, 2h, … up to the duration. */
+    public int sampleCount() {
+        // the relative margin keeps 400 s / 0.1 s at 4001 samples despite rounding
+        return (int) Math.min(Integer.MAX_VALUE, (long) Math.floor(durationSeconds / samplePeriodSeconds
+                * (1.0 + 1e-12)) + 1L);
+    }
+
+    /** The plant model. */
+    public PlantModel plant() {
+        return plant;
+    }
+
+    /** The plant as a transfer function, when it is linear. */
+    public Optional<TransferFunction> linearPlant() {
+        return plant.linear();
+    }
+
+    /** The setpoint profile, sorted by time. */
+    public List<SetpointChange> setpoint() {
+        return setpoint;
+    }
+
+    /** The load steps, sorted by time. */
+    public List<LoadStep> disturbances() {
+        return disturbances;
+    }
+
+    /** The actuator. */
+    public ActuatorModel actuator() {
+        return actuator;
+    }
+
+    /** The sensor. */
+    public SensorModel sensor() {
+        return sensor;
+    }
+
+    /** How long to simulate, in seconds. */
+    public double durationSeconds() {
+        return durationSeconds;
+    }
+
+    /** The seed of every random stream (noise, dropouts, jitter). */
+    public long seed() {
+        return seed;
+    }
+
+    @Override
+    public String toString() {
+        return "Scenario[plant=" + plant + ", controller=" + (controller != null ? controller : onOffController)
+                + ", h=" + samplePeriodSeconds + ", setpoint=" + setpoint + ", disturbances=" + disturbances
+                + ", actuator=" + actuator + ", sensor=" + sensor + ", duration=" + durationSeconds + ", seed="
+                + seed + "]";
+    }
+
+    /** Collects a scenario's parts; {@link #build()} validates them together. Not thread-safe. */
+    public static final class Builder {
+        private ControllerSettings controller;
+        private OnOffSettings onOffController;
+        private double samplePeriodSeconds = Double.NaN;
+        private PlantModel plant;
+        private final List<SetpointChange> setpoint = new ArrayList<>();
+        private final List<LoadStep> disturbances = new ArrayList<>();
+        private ActuatorModel actuator = ActuatorModel.IDEAL;
+        private SensorModel sensor = SensorModel.IDEAL;
+        private double durationSeconds = Double.NaN;
+        private long seed = 1L;
+
+        private Builder() {
+        }
+
+        /** The PID controller (replaces an on-off controller). */
+        public Builder controller(ControllerSettings settings) {
+            controller = Objects.requireNonNull(settings, "settings");
+            onOffController = null;
+            return this;
+        }
+
+        /** An on-off controller sampled every {@code periodSeconds} (replaces a PID controller). */
+        public Builder onOffController(OnOffSettings settings, double periodSeconds) {
+            onOffController = Objects.requireNonNull(settings, "settings");
+            samplePeriodSeconds = periodSeconds;
+            controller = null;
+            return this;
+        }
+
+        /** The plant. */
+        public Builder plant(PlantModel model) {
+            plant = model;
+            return this;
+        }
+
+        /** Adds setpoint profile entries. */
+        public Builder setpoint(SetpointChange... changes) {
+            setpoint.addAll(List.of(changes));
+            return this;
+        }
+
+        /** Adds load steps. */
+        public Builder disturbance(LoadStep... steps) {
+            disturbances.addAll(List.of(steps));
+            return this;
+        }
+
+        /** The actuator (default: ideal). */
+        public Builder actuator(ActuatorModel model) {
+            actuator = model;
+            return this;
+        }
+
+        /** The sensor (default: ideal). */
+        public Builder sensor(SensorModel model) {
+            sensor = model;
+            return this;
+        }
+
+        /** How long to simulate. */
+        public Builder durationSeconds(double seconds) {
+            durationSeconds = seconds;
+            return this;
+        }
+
+        /** The random seed (default 1). */
+        public Builder seed(long value) {
+            seed = value;
+            return this;
+        }
+
+        /** The scenario, validated. */
+        public Scenario build() {
+            return new Scenario(this);
+        }
+    }
+}

@@ -1,0 +1,194 @@
+package org.loopwright.sim.simulate;
+
+import org.loopwright.pid.PidController;
+import org.loopwright.pid.onoff.OnOffController;
+import org.loopwright.sim.nonideal.Actuator;
+import org.loopwright.sim.nonideal.Sensor;
+import org.loopwright.sim.plant.Plant;
+import org.loopwright.sim.scenario.LoadStep;
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.SetpointChange;
+
+/**
+ * One running closed loop, advanced a sample at a time in the standard sampled-data order. At the
+ * sample instant t(k) = k·h (+ jitter):
+ * <ol>
+ * <li>the plant is advanced from t(k−1) to t(k) with u(k−1), as delivered by the actuator, held
+ *     (zero-order hold) plus the load in effect; a load step that falls inside the interval splits
+ *     the advance at its own time;</li>
+ * <li>y(k) is read through the sensor (delay, noise, quantisation, dropout) and r(k) is taken from
+ *     the setpoint profile at t(k);</li>
+ * <li>u(k) is computed and handed to the actuator, which delivers it over [t(k), t(k+1)).</li>
+ * </ol>
+ *
+ * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
+ * cached its discretisation after the first samples). Usable from a benchmark:
+ * {@code if (!loop.step()) loop.rewind();}.
+ *
+ * <p>Not thread-safe: one thread runs a loop; build one loop per thread from a shared scenario.
+ */
+public final class ClosedLoop {
+
+    private final Scenario scenario;
+    private final Plant plant;
+    private final FeedbackLaw law;
+    private final Actuator actuator;
+    private final Sensor sensor;
+    private final Trajectory trajectory;
+    private final double periodSeconds;
+    private final int samples;
+
+    private final double[] changeAt;
+    private final double[] changeValue;
+    private final double[] changeRamp;
+    private final double[] loadAt;
+    private final double[] loadValue;
+
+    private int k;
+    private double previousInstant;
+    private double previousDelay;
+    private double delivered;
+    private double load;
+    private int nextLoad;
+    private int nextChange;
+    private double rampStart;
+    private double rampFrom;
+    private double rampTo;
+    private double rampSeconds;
+
+    /** A loop at rest, at sample 0, for the scenario. */
+    public ClosedLoop(Scenario scenario) {
+        this.scenario = scenario;
+        this.plant = scenario.plant().newPlant();
+        this.law = scenario.controller().<FeedbackLaw>map(s -> new FeedbackLaw.Pid(new PidController(s)))
+                .orElseGet(() -> new FeedbackLaw.OnOff(new OnOffController(scenario.onOffController().orElseThrow())));
+        this.actuator = new Actuator(scenario.actuator());
+        this.sensor = new Sensor(scenario.sensor(), scenario.seed());
+        this.periodSeconds = scenario.samplePeriodSeconds();
+        this.samples = scenario.sampleCount();
+        this.trajectory = new Trajectory(samples);
+        int changes = scenario.setpoint().size();
+        changeAt = new double[changes];
+        changeValue = new double[changes];
+        changeRamp = new double[changes];
+        for (int i = 0; i < changes; i++) {
+            SetpointChange c = scenario.setpoint().get(i);
+            changeAt[i] = c.atSeconds();
+            changeValue[i] = c.value();
+            changeRamp[i] = c.rampSeconds();
+        }
+        int loads = scenario.disturbances().size();
+        loadAt = new double[loads];
+        loadValue = new double[loads];
+        for (int i = 0; i < loads; i++) {
+            LoadStep l = scenario.disturbances().get(i);
+            loadAt[i] = l.atSeconds();
+            loadValue[i] = l.value();
+        }
+        rewind();
+    }
+
+    /** Back to rest at sample 0 with the same random streams; the trajectory is emptied. */
+    public void rewind() {
+        plant.reset();
+        law.reset();
+        actuator.reset();
+        double rest = plant.output();
+        sensor.reset(rest);
+        trajectory.clear();
+        k = 0;
+        previousInstant = 0.0;
+        previousDelay = 0.0;
+        delivered = 0.0;
+        load = 0.0;
+        nextLoad = 0;
+        nextChange = 0;
+        rampStart = 0.0;
+        rampFrom = rest;
+        rampTo = rest;
+        rampSeconds = 0.0;
+    }
+
+    /**
+     * One sample: advance the plant to the next sample instant, read, update, deliver, record.
+     *
+     * @return false, doing nothing, when every sample of the scenario has been taken
+     */
+    public boolean step() {
+        if (k >= samples) {
+            return false;
+        }
+        double delay = sensor.nextSampleDelaySeconds();
+        double instant = k * periodSeconds + delay;
+        if (k > 0) {
+            // exactly h without jitter, so a linear plant's cached discretisation is hit every time
+            double left = periodSeconds + (delay - previousDelay);
+            double from = previousInstant;
+            while (nextLoad < loadAt.length && loadAt[nextLoad] <= instant) {
+                double piece = loadAt[nextLoad] - from;
+                if (piece > 0.0) {
+                    plant.advance(delivered + load, piece);
+                    left -= piece;
+                    from = loadAt[nextLoad];
+                }
+                load = loadValue[nextLoad++];
+            }
+            plant.advance(delivered + load, left);
+        } else {
+            while (nextLoad < loadAt.length && loadAt[nextLoad] <= instant) {
+                load = loadValue[nextLoad++];
+            }
+        }
+        double process = plant.output();
+        double r = setpointAt(instant);
+        double y = sensor.read(process);
+        double u = law.update(r, y, instant);
+        delivered = actuator.deliver(u, periodSeconds);
+        trajectory.record(instant, r, y, u, load, process, delivered, law.atLimit() || actuator.limited());
+        previousInstant = instant;
+        previousDelay = delay;
+        k++;
+        return true;
+    }
+
+    private double setpointAt(double t) {
+        while (nextChange < changeAt.length && changeAt[nextChange] <= t) {
+            rampFrom = rampValue(changeAt[nextChange]);
+            rampStart = changeAt[nextChange];
+            rampTo = changeValue[nextChange];
+            rampSeconds = changeRamp[nextChange];
+            nextChange++;
+        }
+        return rampValue(t);
+    }
+
+    private double rampValue(double t) {
+        if (rampSeconds == 0.0 || t >= rampStart + rampSeconds) {
+            return rampTo;
+        }
+        return rampFrom + (rampTo - rampFrom) * (t - rampStart) / rampSeconds;
+    }
+
+    /** Runs the remaining samples and returns the trajectory. */
+    public Trajectory run() {
+        while (step()) {
+            // every sample recorded into the trajectory
+        }
+        return trajectory;
+    }
+
+    /** The samples recorded so far. */
+    public Trajectory trajectory() {
+        return trajectory;
+    }
+
+    /** The scenario this loop runs. */
+    public Scenario scenario() {
+        return scenario;
+    }
+
+    /** The number of samples taken so far. */
+    public int samplesTaken() {
+        return k;
+    }
+}

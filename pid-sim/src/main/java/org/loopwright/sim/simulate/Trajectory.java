@@ -1,0 +1,125 @@
+package org.loopwright.sim.simulate;
+
+/**
+ * A closed-loop run, one row per sample k: the sample instant, the setpoint r(k), the measurement
+ * y(k) the controller read (NaN for a dropout), the controller output u(k) held from that instant,
+ * and the load disturbance in effect at that instant. Beside these it keeps the true process output
+ * (before the sensor), the input the actuator delivered, and whether the output was limited.
+ *
+ * <p>Filled by {@link ClosedLoop} while it runs; after the run it is only read. Not thread-safe
+ * while it is being filled.
+ */
+public final class Trajectory {
+
+    private final double[] time;
+    private final double[] setpoint;
+    private final double[] measurement;
+    private final double[] output;
+    private final double[] disturbance;
+    private final double[] process;
+    private final double[] delivered;
+    private final boolean[] saturated;
+    private int length;
+
+    Trajectory(int capacity) {
+        time = new double[capacity];
+        setpoint = new double[capacity];
+        measurement = new double[capacity];
+        output = new double[capacity];
+        disturbance = new double[capacity];
+        process = new double[capacity];
+        delivered = new double[capacity];
+        saturated = new boolean[capacity];
+    }
+
+    void record(double t, double r, double y, double u, double d, double trueOutput, double input, boolean limited) {
+        int k = length++;
+        time[k] = t;
+        setpoint[k] = r;
+        measurement[k] = y;
+        output[k] = u;
+        disturbance[k] = d;
+        process[k] = trueOutput;
+        delivered[k] = input;
+        saturated[k] = limited;
+    }
+
+    void clear() {
+        length = 0;
+    }
+
+    /** The number of samples recorded. */
+    public int length() {
+        return length;
+    }
+
+    /** The instant of sample k, in seconds. */
+    public double time(int k) {
+        return time[k];
+    }
+
+    /** r(k). */
+    public double setpoint(int k) {
+        return setpoint[k];
+    }
+
+    /** y(k) as the controller read it (NaN for a dropout). */
+    public double measurement(int k) {
+        return measurement[k];
+    }
+
+    /** u(k), the controller output. */
+    public double output(int k) {
+        return output[k];
+    }
+
+    /** The load disturbance in effect at sample k. */
+    public double disturbance(int k) {
+        return disturbance[k];
+    }
+
+    /** The true process output at sample k, before the sensor. */
+    public double process(int k) {
+        return process[k];
+    }
+
+    /** The input the actuator delivered from sample k (without the load). */
+    public double delivered(int k) {
+        return delivered[k];
+    }
+
+    /** Whether u(k) was limited by the controller's range or the actuator. */
+    public boolean saturated(int k) {
+        return saturated[k];
+    }
+
+    /** A copy of the sample instants. */
+    public double[] times() {
+        return java.util.Arrays.copyOf(time, length);
+    }
+
+    /** A copy of the setpoints. */
+    public double[] setpoints() {
+        return java.util.Arrays.copyOf(setpoint, length);
+    }
+
+    /** A copy of the measurements. */
+    public double[] measurements() {
+        return java.util.Arrays.copyOf(measurement, length);
+    }
+
+    /** A copy of the controller outputs. */
+    public double[] outputs() {
+        return java.util.Arrays.copyOf(output, length);
+    }
+
+    /** A copy of the disturbances. */
+    public double[] disturbances() {
+        return java.util.Arrays.copyOf(disturbance, length);
+    }
+
+    /** A copy of the true process outputs. */
+    public double[] processOutputs() {
+        return java.util.Arrays.copyOf(process, length);
+    }
+}

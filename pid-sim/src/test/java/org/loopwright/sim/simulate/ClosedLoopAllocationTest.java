@@ -1,0 +1,75 @@
+package org.loopwright.sim.simulate;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.lang.management.ManagementFactory;
+import java.util.stream.Stream;
+
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.loopwright.pid.Action;
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.form.IdealGains;
+import org.loopwright.pid.onoff.OnOffSettings;
+import org.loopwright.sim.nonideal.ActuatorModel;
+import org.loopwright.sim.nonideal.SensorModel;
+import org.loopwright.sim.plant.DcMotorModel;
+import org.loopwright.sim.plant.MotorOutput;
+import org.loopwright.sim.plant.TankModel;
+import org.loopwright.sim.plant.ThermalZoneModel;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.LoadStep;
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.SetpointChange;
+
+/** The simulation step allocates nothing once warm: measured with the JVM's per-thread allocation counter. */
+class ClosedLoopAllocationTest {
+
+    private static final int WARM_UP = 20_000;
+    private static final int MEASURED = 300_000;
+
+    private static final ControllerSettings PID = ControllerSettings.builder()
+            .gains(new IdealGains(1.2, 20.0, 2.0)).samplePeriodSeconds(0.1).outputRange(-50.0, 50.0).build();
+
+    static Stream<Arguments> loops() {
+        double duration = (WARM_UP + MEASURED) * 0.1 + 1.0;
+        Scenario.Builder fopdt = Scenario.builder().plant(TransferFunction.fopdt(2.0, 30.0, 5.55)).controller(PID)
+                .setpoint(SetpointChange.step(0.0, 10.0), new SetpointChange(50.0, 20.0, 30.0))
+                .disturbance(new LoadStep(100.03, -3.0))
+                .actuator(new ActuatorModel(-40.0, 40.0, 100.0, 0.2))
+                .sensor(new SensorModel(0.05, 0.01, 3, 0.0, 0.01))
+                .durationSeconds(duration);
+        OnOffSettings thermostat = new OnOffSettings(0.0, 2000.0, 0.5, 20.0, 20.0, Action.REVERSE);
+        return Stream.of(
+                Arguments.of("fopdt with every non-ideal part", fopdt.build()),
+                Arguments.of("sopdt", fopdt.plant(TransferFunction.sopdt(1.0, 10.0, 3.0, 1.0)).build()),
+                Arguments.of("thermal zone, on-off", Scenario.builder()
+                        .plant(new ThermalZoneModel(21_000.0, 5.0, 20.0, 2_000.0, 1.0))
+                        .onOffController(thermostat, 1.0).setpoint(SetpointChange.step(0.0, 60.0))
+                        .durationSeconds((WARM_UP + MEASURED) * 1.0 + 1.0).build()),
+                Arguments.of("dc motor with friction", fopdt.plant(new DcMotorModel(2.0, 0.1, 0.1, 0.1, 0.01,
+                        0.01, 0.0, 0.04, 0.05, MotorOutput.POSITION, 5e-3)).build()),
+                Arguments.of("tank", fopdt.plant(new TankModel(0.5, 0.01, 0.2, 0.05)).build()));
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("loops")
+    void stepAllocatesNothing(String name, Scenario scenario) {
+        com.sun.management.ThreadMXBean threads =
+                (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
+        long thread = Thread.currentThread().getId();
+        ClosedLoop loop = new ClosedLoop(scenario);
+        for (int i = 0; i < WARM_UP; i++) {
+            loop.step();
+        }
+        long before = threads.getThreadAllocatedBytes(thread);
+        int taken = 0;
+        for (int i = 0; i < MEASURED; i++) {
+            taken += loop.step() ? 1 : 0;
+        }
+        long allocated = threads.getThreadAllocatedBytes(thread) - before;
+        assertThat(taken).isEqualTo(MEASURED);
+        assertThat(allocated).as("bytes over %d steps", MEASURED).isZero();
+    }
+}
