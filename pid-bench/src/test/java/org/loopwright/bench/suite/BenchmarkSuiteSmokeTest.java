@@ -49,7 +49,8 @@ class BenchmarkSuiteSmokeTest {
         assertThat(timing).hasSize(8);
         for (JsonNode t : timing) {
             JsonNode result = t.get("result");
-            assertThat(result.get("ticks").asLong()).as(result.toString()).isGreaterThan(10);
+            // at least two ticks, so at least one period was measured (a loaded machine may skip many)
+            assertThat(result.get("ticks").asLong()).as(result.toString()).isGreaterThanOrEqualTo(2);
             assertThat(result.get("maxNanos").asLong()).as(result.toString())
                     .isGreaterThanOrEqualTo(result.get("p50Nanos").asLong());
             assertThat(result.get("cpuFraction").asDouble()).as(result.toString()).isPositive();
