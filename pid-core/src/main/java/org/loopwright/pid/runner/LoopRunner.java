@@ -130,7 +130,8 @@ public final class LoopRunner {
      * waits until the last tick has completed. Stopping a runner that never started makes it
      * {@link RunnerState#STOPPED}; stopping a stopped one does nothing.
      *
-     * @return why the runner stopped (a runner that stopped itself keeps its own reason)
+     * @return why the runner stopped (a runner that stopped itself keeps its own reason); called from
+     *         the loop thread, {@link StopReason#NOT_STOPPED}, since the current tick is still running
      */
     public StopReason stop() {
         Thread loop;
