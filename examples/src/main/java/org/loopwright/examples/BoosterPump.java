@@ -27,7 +27,8 @@ import org.loopwright.sim.simulate.Simulation;
  * the setpoint ramps from 0 to 4 bar over the first 10 s (a soft start). Every one of these numbers is
  * invented for this demonstration; none describes a real pump. The PI gains (Kc = 30 %/bar,
  * Ti = 2.2 s) follow the SIMC rule (Skogestad, J. Process Control 13, 2003) for the half-rule
- * first-order-plus-dead-time model with a closed-loop time constant of two dead times.
+ * first-order-plus-dead-time model (K = 0.06 bar/%, T = 2.2 s, θ = 0.4 s) with τc = 2θ:
+ * Kc = T/(K·(τc + θ)) ≈ 30.6, rounded to 30, and Ti = min(T, 4·(τc + θ)) = 2.2 s.
  *
  * <p>The feedforward is the static inverse of the load: 0.8 % of drive per m³/h measured. The IAE
  * after the first demand step is measured as the simulation harness's
@@ -82,6 +83,9 @@ public final class BoosterPump {
     /**
      * The run without feedforward as a harness scenario: the setpoint ramps to 4 bar over the first
      * 10 s and each demand is a load of −0.8 %/(m³/h) on the pump's input.
+     *
+     * @param durationSeconds simulated time
+     * @return the scenario, for {@link Simulation#run}
      */
     public static Scenario scenarioWithoutFeedforward(double durationSeconds) {
         Scenario.Builder b = Scenario.builder().plant(PUMP).controller(settings())
@@ -208,7 +212,14 @@ public final class BoosterPump {
         return -DRIVE_PERCENT_PER_FLOW * cubicMetresPerHour;
     }
 
-    /** Both runs and the harness's IAE of the feedback-only scenario. */
+    /**
+     * Both runs and the harness's IAE of the feedback-only scenario.
+     *
+     * @param feedbackOnly         the run with feedback alone
+     * @param withFeedforward      the run with feedforward from the measured demand
+     * @param harnessIaeBarSeconds ∫|r − p|dt from the first demand step, as the harness measures the
+     *                             feedback-only scenario it ran itself, bar·s
+     */
     public record Outcome(Response feedbackOnly, Response withFeedforward, double harnessIaeBarSeconds) {
     }
 

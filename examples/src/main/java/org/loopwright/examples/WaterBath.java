@@ -25,8 +25,9 @@ import org.loopwright.sim.plant.ThermalZoneModel;
  * 20 °C room, heated by a 1 kW element that the controller drives 0–100 %. The probe reads with
  * 0.02 °C noise, 0.01 °C resolution and 5 s of lag. Every one of these numbers is invented for this
  * demonstration; none describes a real product. The PI gains (Kc = 21 %/°C, Ti = 160 s) follow the
- * SIMC rule (Skogestad, J. Process Control 13, 2003) for the bath's first-order-plus-dead-time
- * model with a closed-loop time constant of three dead times.
+ * SIMC rule (Skogestad, J. Process Control 13, 2003) for the bath seen as first order plus dead time
+ * (K = 2.5 °C/%, T = 2100 s, θ = 5 s) with a gentle closed-loop time constant τc = 35 s, which keeps
+ * the probe's noise off the heater: Kc = T/(K·(τc + θ)), Ti = min(T, 4·(τc + θ)).
  *
  * <p>What happens, one sample per second:
  * <ol>
