@@ -10,4 +10,5 @@ module org.loopwright.pid {
     exports org.loopwright.pid.discrete;
     exports org.loopwright.pid.onoff;
     exports org.loopwright.pid.runner;
+    exports org.loopwright.pid.tuning;
 }

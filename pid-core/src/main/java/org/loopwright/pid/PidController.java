@@ -20,6 +20,11 @@ import org.slf4j.LoggerFactory;
  * each term discretised as {@link org.loopwright.pid.discrete} describes. At the first sample every
  * dynamic state is zero; the recursions apply from the second sample on.
  *
+ * <p>Bumpless by one rule: whenever the integral is not the law's own (after manual, tracking, a
+ * safe output or a restore), the first automatic sample sets it so that the output equals the last
+ * output; a retune moves it so that P + I + D at the last inputs is unchanged. A faulty sample (see
+ * {@link Fault}) touches no state at all: it does not even adopt a pending retune.
+ *
  * <p>Example: {@code double heaterPercent = controller.update(60.0, bathTemperature);} once per
  * sample period.
  *
@@ -86,7 +91,13 @@ public final class PidController {
     /**
      * One variable-period update: the coefficients are computed for this period.
      *
+     * A forward-Euler derivative cannot run at a period of 2·Tf or more; for such a period this
+     * update uses backward Euler instead (the hot path does not throw).
+     *
+     * @param setpoint      r, in process units
+     * @param measurement   y, in process units
      * @param periodSeconds time since the previous update; a non-finite or non-positive one is a fault
+     * @return the output (or its increment, for {@link OutputKind#INCREMENT}); never NaN, always in range
      */
     public double update(double setpoint, double measurement, double periodSeconds) {
         ControllerSettings s = published;
@@ -157,14 +168,12 @@ public final class PidController {
                 output = clamp(clamp(manualValue, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
-                rebalancePending = true;
             }
             case TRACKING -> {
                 double target = Double.isFinite(trackValue) ? trackValue : previousOutput;
                 output = clamp(clamp(target, lo, hi), s.outputMin(), s.outputMax());
                 unlimited = output;
                 next = integral;
-                rebalancePending = true;
             }
             default -> {
                 if (rebalancePending && started) {
@@ -180,7 +189,6 @@ public final class PidController {
                     unlimited = proportional + next + derivative + uff;
                     output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
                 }
-                rebalancePending = false;
             }
         }
 
@@ -191,6 +199,8 @@ public final class PidController {
         }
         double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
 
+        // outside automatic the integral is not the law's own: the next automatic sample rebalances it
+        rebalancePending = mode != Mode.AUTOMATIC;
         integral = next;
         derivativeState = derivative;
         previousError = error;

@@ -14,6 +14,12 @@ import org.loopwright.pid.InvalidSettingException;
  */
 public record IdealGains(double gain, double integralTime, double derivativeTime) implements PidGains {
 
+    /**
+     * How far below 0 the discriminant 1 − 4·Td/Ti may fall by rounding and still count as Ti = 4·Td:
+     * a series form with Ti' = Td' converts to exactly that boundary, a few ulps off either side.
+     */
+    private static final double ROUNDING = 1e-12;
+
     /** Validates every value; see the record description for the allowed ranges. */
     public IdealGains {
         GainChecks.nonNegativeFinite("gain", gain);
@@ -43,18 +49,19 @@ public record IdealGains(double gain, double integralTime, double derivativeTime
      * (Åström &amp; Hägglund 2006, eq. 3.10): with s = √(1 − 4·Td/Ti),
      * Kc' = Kc·(1 + s)/2, Ti' = Ti·(1 + s)/2, Td' = Ti·(1 − s)/2.
      *
-     * @throws InvalidSettingException naming Ti and Td when Ti &lt; 4·Td
+     * @throws InvalidSettingException naming Ti and Td when Ti &lt; 4·Td (beyond rounding)
      */
     public SeriesGains toSeries() {
         if (derivativeTime == 0.0 || Double.isInfinite(integralTime)) {
             return new SeriesGains(gain, integralTime, derivativeTime);
         }
-        if (integralTime < 4.0 * derivativeTime) {
+        double discriminant = 1.0 - 4.0 * derivativeTime / integralTime;
+        if (discriminant < -ROUNDING) {
             throw new InvalidSettingException("integralTime", integralTime,
                     "must be >= 4 * derivativeTime for a series form to exist (derivativeTime="
                             + derivativeTime + ")");
         }
-        double root = Math.sqrt(1.0 - 4.0 * derivativeTime / integralTime);
+        double root = Math.sqrt(Math.max(discriminant, 0.0));
         return new SeriesGains(gain * (1.0 + root) / 2.0,
                 integralTime * (1.0 + root) / 2.0,
                 integralTime * (1.0 - root) / 2.0);

@@ -65,4 +65,15 @@ class FormConversionTest {
                 .isEqualTo(new IdealGains(2.0, Double.POSITIVE_INFINITY, 1.0));
         assertThat(new IdealGains(2.0, Double.POSITIVE_INFINITY, 1.0).hasIntegralAction()).isFalse();
     }
+
+    @Test
+    void seriesWithEqualTimesConvertsBackDespiteRounding() {
+        // Ti' = Td' gives Ti = 4·Td exactly in theory; in doubles 4·Td may exceed Ti by an ulp
+        SeriesGains series = new SeriesGains(1.0, 0.0013910, 0.0013910);
+        IdealGains ideal = series.toIdeal();
+        assertThat(ideal.integralTime()).isLessThan(4.0 * ideal.derivativeTime());
+        SeriesGains back = ideal.toSeries();
+        assertThat(back.integralTime()).isCloseTo(0.0013910, within(1e-9));
+        assertThat(back.derivativeTime()).isCloseTo(0.0013910, within(1e-9));
+    }
 }

@@ -16,7 +16,8 @@ import org.loopwright.sim.simulate.Trajectory;
  * <ul>
  * <li>rise time: from reaching y₀ + 10 % to y₀ + 90 % of y∞ − y₀ (linear interpolation between samples);</li>
  * <li>settling time: from the window's start until the output stays within ±2 % of |y∞ − y₀| around y∞
- *     (resolved to the sample);</li>
+ *     (resolved to the sample); not settled (NaN) when it is still outside the band during the window's
+ *     last {@value #FINAL_SHARE_PERCENT} %;</li>
  * <li>overshoot: the largest excursion beyond y∞ in percent of |y∞ − y₀|; peak time: when it occurs;</li>
  * <li>steady-state error: r − y at the window's end;</li>
  * <li>IAE, ISE, ITAE: ∫|e|dt, ∫e²dt, ∫(t − t₀)|e|dt with e = r − y, from the window's start to the end of
@@ -42,6 +43,9 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
 
     /** The share of the step that counts as settled (2 %). */
     public static final double SETTLING_BAND = 0.02;
+
+    /** The final share of the window, in percent, in which a settled response must stay within the band. */
+    public static final int FINAL_SHARE_PERCENT = 5;
 
     /**
      * The metrics of a scenario's run: the window starts at the first setpoint change (0 without one)
@@ -79,6 +83,7 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
         }
         double t0 = trajectory.time(first);
         double y0 = trajectory.process(first);
+        int tail = Math.max(1, (last - first + 1) * FINAL_SHARE_PERCENT / 100);
         double yEnd = trajectory.process(last);
         double step = yEnd - y0;
         double scale = Math.max(Math.abs(y0), Math.abs(yEnd));
@@ -92,7 +97,8 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
             double t10 = crossing(trajectory, first, last, y0 + 0.1 * step, step);
             double t90 = crossing(trajectory, first, last, y0 + 0.9 * step, step);
             rise = t90 - t10;
-            settling = settlingTime(trajectory, first, last, yEnd, Math.abs(step) * SETTLING_BAND) - t0;
+            settling = settlingTime(trajectory, first, last - tail + 1, last, yEnd,
+                    Math.abs(step) * SETTLING_BAND) - t0;
             double sign = Math.signum(step);
             double peak = 0.0;
             int peakAt = -1;
@@ -175,15 +181,19 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
         return Double.NaN;
     }
 
-    /** The first sample instant after which the output stays within the band; NaN if the last sample is outside. */
-    private static double settlingTime(Trajectory trajectory, int first, int last, double target, double band) {
+    /**
+     * The first sample instant after which the output stays within the band; NaN when it is still
+     * outside during the final stretch (from {@code finalStart}).
+     */
+    private static double settlingTime(Trajectory trajectory, int first, int finalStart, int last, double target,
+            double band) {
         int lastOutside = -1;
         for (int k = first; k <= last; k++) {
             if (Math.abs(trajectory.process(k) - target) > band) {
                 lastOutside = k;
             }
         }
-        if (lastOutside == last) {
+        if (lastOutside >= finalStart) {
             return Double.NaN;
         }
         return lastOutside < 0 ? trajectory.time(first) : trajectory.time(lastOutside + 1);

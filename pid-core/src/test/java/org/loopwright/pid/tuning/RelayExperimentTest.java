@@ -1,0 +1,250 @@
+package org.loopwright.pid.tuning;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.lang.management.ManagementFactory;
+import java.nio.charset.StandardCharsets;
+import java.util.function.UnaryOperator;
+import java.util.stream.Stream;
+
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.loopwright.pid.Action;
+import org.loopwright.pid.InvalidSettingException;
+
+class RelayExperimentTest {
+
+    private static final double H = 0.002;
+    /** Ultimate gain of 1/(s+1)³: |G(j√3)| = 1/(1 + 3)^(3/2) = 1/8 at the phase crossover ω = √3 (analytic). */
+    private static final double KU = 8.0;
+    /** Ultimate period 2π/√3 from the same analytic phase crossover. */
+    private static final double PU = 2.0 * Math.PI / Math.sqrt(3.0);
+
+    private static RelaySettings.Builder thirdOrderLagSettings() {
+        return RelaySettings.builder().setpoint(0.0).bias(0.0).relayAmplitude(1.0).hysteresis(0.0)
+                .excursionLimit(1.0).timeoutSeconds(200.0).maxHalfPeriodSeconds(20.0);
+    }
+
+    /** Runs the experiment on g/(s+1)³ at H until it finishes; returns the last output. */
+    private static double run(RelayExperiment relay, double plantGain) {
+        ThirdOrderLag plant = new ThirdOrderLag(plantGain, H);
+        double output = relay.step(H, plant.output());
+        for (int i = 0; i < 100_000 && !relay.status().finished(); i++) {
+            plant.step(output);
+            output = relay.step(H, plant.output());
+        }
+        return output;
+    }
+
+    @Test
+    void findsTheUltimatePointOfAThirdOrderLag() throws IOException {
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().build(), 0.25);
+
+        double last = run(relay, 1.0);
+
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(last).isEqualTo(0.25);
+        // analytic ultimate point; Åström & Hägglund (1984): the relay oscillates near the phase
+        // crossover and the describing function estimates Ku to within a few per cent for such
+        // low-pass plants (from memory); we allow 5 % on both.
+        assertThat(relay.ultimatePeriodSeconds()).isCloseTo(PU, within(0.05 * PU));
+        assertThat(relay.ultimateGain()).isCloseTo(KU, within(0.05 * KU));
+        // the exact limit cycle (relay_third_order_lag.py, SciPy, 1e-5 s steps): period 3.6798 s,
+        // a = 0.16306; the sampled experiment must measure it within 1 %, so the only error left
+        // is the describing function's own (Ku = 4/(π·0.16306) = 7.808, −2.4 %).
+        double[] exact = exactLimitCycle();
+        assertThat(relay.ultimatePeriodSeconds()).isCloseTo(exact[0], within(0.01 * exact[0]));
+        assertThat(relay.oscillationAmplitude()).isCloseTo(exact[1], within(0.01 * exact[1]));
+        assertThat(relay.ultimatePoint()).isEqualTo(new UltimatePoint(relay.ultimateGain(),
+                relay.ultimatePeriodSeconds()));
+        assertThat(relay.message()).startsWith("limit cycle measured over 3 cycles: period=3.6");
+    }
+
+    @Test
+    void hysteresisMovesThePointAsTheDescribingFunctionPredicts() {
+        // Describing function of a relay with hysteresis (Åström & Hägglund 1984, from memory):
+        // the loop oscillates where G(jω) = −(π/4d)·(√(a² − ε²) + j·ε), so the relay finds the
+        // frequency ω* with Im G(jω*) = −π·ε/(4d), and 4d/(π·√(a² − ε²)) = −1/Re G(jω*).
+        // For G = 1/(1 + jω)³ = ((1 − 3ω²) + j(ω³ − 3ω))/(1 + ω²)³ (analytic), ω* by bisection.
+        double d = 1.0;
+        double epsilon = 0.02;
+        double target = -Math.PI * epsilon / (4.0 * d);
+        double lo = 1.0;
+        double hi = Math.sqrt(3.0);
+        for (int i = 0; i < 100; i++) {
+            double mid = 0.5 * (lo + hi);
+            if (imaginaryPart(mid) < target) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        double omega = 0.5 * (lo + hi);
+        double predictedGain = -Math.pow(1.0 + omega * omega, 3) / (1.0 - 3.0 * omega * omega);
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().hysteresis(epsilon).build(), 0.0);
+
+        run(relay, 1.0);
+
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(relay.ultimatePeriodSeconds()).isCloseTo(2.0 * Math.PI / omega, within(0.05 * 2.0 * Math.PI / omega));
+        assertThat(relay.ultimateGain()).isCloseTo(predictedGain, within(0.05 * predictedGain));
+        assertThat(predictedGain).isLessThan(KU);
+    }
+
+    private static double imaginaryPart(double omega) {
+        return (omega * omega * omega - 3.0 * omega) / Math.pow(1.0 + omega * omega, 3);
+    }
+
+    @Test
+    void directActingProcessNeedsDirectAction() {
+        // −1/(s+1)³ (a cooler): same ultimate point with the relay's action reversed
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().action(Action.DIRECT).build(), 0.0);
+
+        run(relay, -1.0);
+
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(relay.ultimateGain()).isCloseTo(KU, within(0.05 * KU));
+    }
+
+    @Test
+    void abortsOnExcursionAndRestoresThePreviousOutput() {
+        // the cycle's amplitude is about 0.163·d = 0.163: a band of 0.1 is left in the first swing
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().excursionLimit(0.1).build(), 0.37);
+
+        double last = run(relay, 1.0);
+
+        assertThat(relay.status()).isEqualTo(RelayStatus.ABORTED_EXCURSION);
+        assertThat(last).isEqualTo(0.37);
+        assertThat(relay.step(H, 0.0)).isEqualTo(0.37);
+        assertThat(relay.message()).matches("aborted: the process variable left the band setpoint \\+/- "
+                + "excursionLimit: measurement=-?0\\.100\\d, setpoint=0\\.000, excursionLimit=0\\.1000");
+        assertThatThrownBy(relay::ultimatePoint).isInstanceOf(IllegalStateException.class)
+                .hasMessageStartingWith("no ultimate point: aborted: the process variable left the band");
+    }
+
+    @Test
+    void abortsOnTimeoutBeforeEnoughCycles() {
+        // the cycle grows from rest through short cycles (at 0.09, 0.58, 2.38, 5.55 s) before it
+        // settles near 3.68 s: 8 s is too short for three agreeing cycles after two settling ones
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().timeoutSeconds(8.0)
+                .maxHalfPeriodSeconds(8.0).build(), 0.5);
+
+        double last = run(relay, 1.0);
+
+        assertThat(relay.status()).isEqualTo(RelayStatus.ABORTED_TIMEOUT);
+        assertThat(last).isEqualTo(0.5);
+        assertThat(relay.message()).isEqualTo("aborted: no stable limit cycle within timeoutSeconds=8.000 (4 cycles completed)");
+    }
+
+    @Test
+    void abortsWhenTheRelayStopsSwitching() {
+        // a process stuck above the setpoint (a sensor frozen at 0.5): the relay stays low
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().maxHalfPeriodSeconds(5.0).build(), 0.1);
+        double output = 0.0;
+        for (int i = 0; i < 10_000 && !relay.status().finished(); i++) {
+            output = relay.step(H, 0.5);
+        }
+
+        assertThat(relay.status()).isEqualTo(RelayStatus.ABORTED_NO_OSCILLATION);
+        assertThat(output).isEqualTo(0.1);
+        assertThat(relay.message()).isEqualTo("aborted: no oscillation, the relay did not switch for more than"
+                + " maxHalfPeriodSeconds=5.000 (at 5.004 s)");
+    }
+
+    @Test
+    void abortsOnAnInvalidSample() {
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().build(), 0.2);
+        assertThat(relay.step(H, 0.0)).isEqualTo(1.0);
+
+        assertThat(relay.step(H, Double.NaN)).isEqualTo(0.2);
+        assertThat(relay.status()).isEqualTo(RelayStatus.ABORTED_INVALID_SAMPLE);
+        assertThat(relay.message()).isEqualTo("aborted: invalid sample, h must be finite and > 0 and the"
+                + " measurement finite: h=0.002, measurement=NaN");
+    }
+
+    static Stream<Arguments> invalidSettings() {
+        return Stream.of(
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.setpoint(Double.NaN),
+                        "setpoint must be finite: setpoint=NaN"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.bias(Double.POSITIVE_INFINITY),
+                        "bias must be finite: bias=Infinity"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.relayAmplitude(0.0),
+                        "relayAmplitude must be finite and > 0: relayAmplitude=0.0"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.hysteresis(-0.1),
+                        "hysteresis must be finite and >= 0: hysteresis=-0.1"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.excursionLimit(-1.0),
+                        "excursionLimit must be finite and > 0: excursionLimit=-1.0"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.hysteresis(2.0),
+                        "excursionLimit must be > hysteresis (2.0): excursionLimit=1.0"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.timeoutSeconds(Double.NaN),
+                        "timeoutSeconds must be finite and > 0: timeoutSeconds=NaN"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.maxHalfPeriodSeconds(300.0),
+                        "maxHalfPeriodSeconds must be <= timeoutSeconds (200.0): maxHalfPeriodSeconds=300.0"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.measuredCycles(1),
+                        "measuredCycles must be >= 2: measuredCycles=1"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.settlingCycles(-1),
+                        "settlingCycles must be >= 0: settlingCycles=-1"),
+                Arguments.of((UnaryOperator<RelaySettings.Builder>) b -> b.cycleTolerance(1.0),
+                        "cycleTolerance must be > 0 and < 1: cycleTolerance=1.0"));
+    }
+
+    @ParameterizedTest(name = "{1}")
+    @MethodSource("invalidSettings")
+    void invalidSettingIsRejectedWithFieldRuleAndValue(UnaryOperator<RelaySettings.Builder> change, String message) {
+        assertThatThrownBy(() -> change.apply(thirdOrderLagSettings()).build())
+                .isInstanceOf(InvalidSettingException.class).hasMessage(message);
+    }
+
+    @Test
+    void stepAllocatesNothing() {
+        RelaySettings settings = thirdOrderLagSettings().build();
+        int runs = 40;
+        RelayExperiment[] relays = new RelayExperiment[runs];
+        ThirdOrderLag[] plants = new ThirdOrderLag[runs];
+        for (int i = 0; i < runs; i++) {
+            relays[i] = new RelayExperiment(settings, 0.0);
+            plants[i] = new ThirdOrderLag(1.0, H);
+        }
+        // warm up on the first half, measure on the second
+        long samples = 0;
+        for (int i = 0; i < runs / 2; i++) {
+            samples += drive(relays[i], plants[i]);
+        }
+        com.sun.management.ThreadMXBean threads = (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
+        long thread = Thread.currentThread().getId();
+        long before = threads.getThreadAllocatedBytes(thread);
+        samples = 0;
+        for (int i = runs / 2; i < runs; i++) {
+            samples += drive(relays[i], plants[i]);
+        }
+        long allocated = threads.getThreadAllocatedBytes(thread) - before;
+
+        assertThat(samples).isGreaterThan(20_000L);
+        assertThat(allocated).isLessThan(1024L);
+    }
+
+    private static long drive(RelayExperiment relay, ThirdOrderLag plant) {
+        long samples = 0;
+        double output = relay.step(H, plant.output());
+        while (!relay.status().finished()) {
+            plant.step(output);
+            output = relay.step(H, plant.output());
+            samples++;
+        }
+        return samples;
+    }
+
+    private static double[] exactLimitCycle() throws IOException {
+        try (InputStream in = RelayExperimentTest.class.getResourceAsStream("relay-third-order-lag.csv")) {
+            String[] lines = new String(in.readAllBytes(), StandardCharsets.UTF_8).trim().split("\n");
+            String[] cells = lines[1].split(",");
+            return new double[] {Double.parseDouble(cells[0]), Double.parseDouble(cells[1])};
+        }
+    }
+}

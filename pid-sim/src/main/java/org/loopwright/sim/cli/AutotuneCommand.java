@@ -1,0 +1,140 @@
+package org.loopwright.sim.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.tuning.ControllerType;
+import org.loopwright.pid.tuning.RelayStatus;
+import org.loopwright.pid.tuning.TunedGains;
+import org.loopwright.pid.tuning.TuningResult;
+import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.UltimatePoint;
+import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.tuning.RelaySimulation;
+import org.loopwright.sim.tuning.TuningCandidate;
+import org.loopwright.sim.tuning.TuningEvaluation;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code autotune}: runs the relay experiment on a scenario's plant in simulation (see
+ * {@link RelaySimulation} for the procedure and defaults), then tunes from the measured ultimate
+ * point by Ziegler–Nichols and Tyreus–Luyben, PI and PID, and verifies each suggestion on the
+ * scenario (its own setpoint profile and disturbances, margins when the plant is linear). Exit code
+ * 2 for bad input or when the experiment aborts (the reason is printed).
+ */
+@Command(name = "autotune", mixinStandardHelpOptions = true,
+        description = "Relay experiment on a scenario's plant in simulation, then tune from the ultimate point and"
+                + " verify each suggestion on the scenario.")
+public final class AutotuneCommand implements Callable<Integer> {
+
+    @Spec
+    private CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario (plant, controller, sensor...).")
+    private Path scenarioFile;
+
+    @Option(names = "--relay-amplitude", paramLabel = "D",
+            description = "Relay amplitude d: the output switches between bias - d and bias + d (default: 10 % of the"
+                    + " controller's output range).")
+    private Double relayAmplitude;
+
+    @Option(names = "--hysteresis", paramLabel = "E",
+            description = "Relay hysteresis around the setpoint, process units (default: 3 sigma of the sensor noise).")
+    private Double hysteresis;
+
+    @Option(names = "--excursion-limit", paramLabel = "BAND",
+            description = "Abort when the process variable leaves setpoint +/- BAND (default: 25 % of the setpoint).")
+    private Double excursionLimit;
+
+    @Option(names = "--json", description = "Print JSON instead of text.")
+    private boolean json;
+
+    @Override
+    public Integer call() {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        try {
+            Scenario scenario = ScenarioFile.read(scenarioFile);
+            RelaySimulation.Outcome relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis),
+                    orNaN(excursionLimit));
+            if (relay.status() != RelayStatus.SUCCEEDED) {
+                err.println("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
+                        + relay.message());
+                err.flush();
+                return LoopwrightCommand.BAD_INPUT;
+            }
+            UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
+            ControllerSettings base = scenario.controller().orElseThrow();
+            List<TuningCandidate> suggestions = new ArrayList<>();
+            for (ControllerType type : ControllerType.values()) {
+                for (TuningRule rule : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
+                    TuningResult result = rule.tune(point, type);
+                    if (result instanceof TunedGains tuned) {
+                        suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
+                    }
+                }
+            }
+            if (json) {
+                ObjectNode node = Json.object();
+                Json.number(node, "ultimate_gain", relay.ultimateGain());
+                Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
+                Json.number(node, "oscillation_amplitude", relay.amplitude());
+                node.put("cycles", relay.cycles());
+                Json.number(node, "setpoint", relay.settings().setpoint());
+                Json.number(node, "bias", relay.settings().bias());
+                Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
+                Json.number(node, "hysteresis", relay.settings().hysteresis());
+                relay.warnings().forEach(node.putArray("warnings")::add);
+                node.set("suggestions", TuningReport.json(suggestions));
+                out.println(Json.pretty(node));
+            } else {
+                RelaySimulationText.print(out, relay);
+                TuningReport.printTable(out, suggestions, List.of());
+            }
+            out.flush();
+            return 0;
+        } catch (InputFileException | InvalidSettingException e) {
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
+        }
+    }
+
+    private static double orNaN(Double value) {
+        return value == null ? Double.NaN : value;
+    }
+
+    /** The relay experiment's account in text. */
+    private static final class RelaySimulationText {
+        private RelaySimulationText() {
+        }
+
+        static void print(PrintWriter out, RelaySimulation.Outcome relay) {
+            out.println("Relay experiment (simulated): setpoint " + TuningReport.num(relay.settings().setpoint())
+                    + ", bias " + TuningReport.num(relay.settings().bias()) + ", relay amplitude "
+                    + TuningReport.num(relay.settings().relayAmplitude()) + ", hysteresis "
+                    + TuningReport.num(relay.settings().hysteresis()));
+            out.println("  " + relay.message() + " (" + relay.cycles() + " cycles in all)");
+            out.println("  ultimate gain Ku " + TuningReport.num(relay.ultimateGain()) + ", ultimate period Pu "
+                    + TuningReport.num(relay.ultimatePeriodSeconds()) + " s (describing function,"
+                    + " Astrom & Hagglund 1984)");
+            relay.warnings().forEach(w -> out.println("  WARNING: " + w));
+            out.println("Suggestions, each simulated on the scenario:");
+        }
+    }
+}

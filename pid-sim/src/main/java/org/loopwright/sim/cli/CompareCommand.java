@@ -1,0 +1,163 @@
+package org.loopwright.sim.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import java.util.stream.Collectors;
+
+import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.study.DiscretisationStudy;
+import org.loopwright.sim.study.SamplingVerdict;
+import org.loopwright.sim.study.StudyPlots;
+import org.loopwright.sim.study.StudyResult;
+import org.loopwright.sim.study.StudyRow;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code compare SCENARIO.yaml [--periods 0.1,0.5,1.0] [--out DIR] [--json]}: the discretisation
+ * study of {@link DiscretisationStudy} as a table (or a JSON array of rows), with its plots in DIR.
+ * Without {@code --periods} the periods are chosen from the continuous crossover ω_c so that ω_c·h is
+ * 0.02, 0.1, 0.3 and 1 (see {@link DiscretisationStudy#defaultPeriods(double)}). Exit code 2 for a bad
+ * file, a nonlinear plant, an on-off controller, a bad period or an unwritable DIR.
+ */
+@Command(name = "compare", mixinStandardHelpOptions = true,
+        description = {"Compare every integral x derivative discretisation at each sample period with the continuous",
+                "design: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
+                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller."})
+public final class CompareCommand implements Callable<Integer> {
+
+    @Spec
+    private CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario file.")
+    private Path scenarioFile;
+
+    @Option(names = "--periods", split = ",", paramLabel = "H",
+            description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
+    private List<Double> periods;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Write the plots (PNG and SVG) into this directory.")
+    private Path outDirectory;
+
+    @Option(names = "--json", description = "Print a JSON array of rows instead of the table.")
+    private boolean json;
+
+    @Override
+    public Integer call() {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        try {
+            LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
+            if (periods != null) {
+                for (double h : periods) {
+                    if (!Double.isFinite(h) || h <= 0.0) {
+                        err.println("--periods must each be finite and > 0: --periods=" + periods.stream()
+                                .map(String::valueOf).collect(Collectors.joining(",")));
+                        return LoopwrightCommand.BAD_INPUT;
+                    }
+                }
+            }
+            List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
+                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())));
+            StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+            if (json) {
+                out.println(Json.pretty(rows(result)));
+            } else {
+                table(out, result, periods == null);
+            }
+            if (outDirectory != null) {
+                List<Path> written;
+                try {
+                    written = StudyPlots.write(result, outDirectory);
+                } catch (IOException e) {
+                    throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+                }
+                (json ? err : out).println("Wrote " + written.size() + " plot files to " + outDirectory);
+            }
+            out.flush();
+            err.flush();
+            return 0;
+        } catch (InputFileException | IllegalArgumentException e) {
+            out.flush();
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
+        }
+    }
+
+    private static ArrayNode rows(StudyResult result) {
+        ArrayNode array = Json.array();
+        for (StudyRow row : result.rows()) {
+            ObjectNode node = array.addObject();
+            node.put("kind", row.kind().name().toLowerCase(Locale.ROOT));
+            node.put("integral_method", row.integralMethod() == null ? null
+                    : ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()));
+            node.put("derivative_method", row.derivativeMethod() == null ? null
+                    : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()));
+            Json.number(node, "sample_period", row.samplePeriodSeconds());
+            Json.number(node, "phase_margin_deg", row.phaseMarginDegrees());
+            Json.number(node, "gain_margin", row.gainMargin());
+            Json.number(node, "ms", row.ms());
+            if (row.stable() == null) {
+                node.putNull("stable");
+            } else {
+                node.put("stable", row.stable());
+            }
+            Json.number(node, "overshoot_percent", row.overshootPercent());
+            Json.number(node, "iae", row.iae());
+            Json.number(node, "load_iae", row.loadIae());
+            Json.number(node, "magnitude_error_db", row.magnitudeErrorDb());
+            Json.number(node, "phase_error_deg", row.phaseErrorDegrees());
+            Json.number(node, "crossover_times_period", row.crossoverTimesPeriod());
+            node.put("sampling_verdict", row.verdict() == null ? null : row.verdict().name().toLowerCase(Locale.ROOT));
+            node.put("note", row.note());
+        }
+        return array;
+    }
+
+    private void table(PrintWriter out, StudyResult result, boolean defaultPeriods) {
+        out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
+        out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
+                result.crossoverRadPerSecond(), result.periodsSeconds(),
+                defaultPeriods ? " (default: omega_c*h = 0.02, 0.1, 0.3, 1)" : "");
+        out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
+                result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
+                SamplingVerdict.TYPICAL_HIGH);
+        out.printf(Locale.ROOT, "%-34s %8s %7s %-18s %8s %8s %7s %-6s %10s %10s %10s %9s %9s%n", "integral/derivative",
+                "h (s)", "wc*h", "rule of thumb", "PM(deg)", "GM", "Ms", "stable", "overshoot%", "IAE", "load IAE",
+                "|C| dB", "argC deg");
+        for (StudyRow row : result.rows()) {
+            if (row.kind() == StudyRow.Kind.NOT_APPLICABLE) {
+                out.printf(Locale.ROOT, "%-34s %8s %7.3f not applicable: %s%n", row.label(),
+                        row.samplePeriodSeconds(), row.crossoverTimesPeriod(), row.note());
+                continue;
+            }
+            out.printf(Locale.ROOT, "%-34s %8s %7s %-18s %8s %8s %7s %-6s %10s %10s %10s %9s %9s%n", row.label(),
+                    row.kind() == StudyRow.Kind.CONTINUOUS ? "-" : String.valueOf(row.samplePeriodSeconds()),
+                    number("%.3f", row.crossoverTimesPeriod()),
+                    row.verdict() == null ? "-" : row.verdict().description(), number("%.2f", row.phaseMarginDegrees()),
+                    number("%.3f", row.gainMargin()), number("%.3f", row.ms()),
+                    row.stable() == null ? "-" : row.stable() ? "yes" : "NO", number("%.2f", row.overshootPercent()),
+                    number("%.4g", row.iae()), number("%.4g", row.loadIae()), number("%.3f", row.magnitudeErrorDb()),
+                    number("%.2f", row.phaseErrorDegrees()));
+        }
+        out.println("continuous row: " + result.rows().get(0).note());
+    }
+
+    private static String number(String format, double value) {
+        return Double.isFinite(value) ? String.format(Locale.ROOT, format, value) : "-";
+    }
+}

@@ -1,0 +1,191 @@
+package org.loopwright.sim.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.frequency.GainCrossing;
+import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.PhaseCrossing;
+import org.loopwright.sim.frequency.SampledMargins;
+import org.loopwright.sim.frequency.StabilityMargins;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code margins SCENARIO.yaml [--json]}: the stability margins of the scenario's loop, for the
+ * continuous design and for the loop sampled at the controller's own period with its own methods
+ * (see {@link LoopAnalysis}). Frequencies in rad/s, delay margins in seconds; a margin that does not
+ * exist (no crossover) is null in JSON and "none" in the table. Exit code 2 for a bad file, a
+ * nonlinear plant or an on-off controller.
+ */
+@Command(name = "margins", mixinStandardHelpOptions = true,
+        description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop: the continuous design and the",
+                "loop as sampled (controller at z = e^(jωh), plant by its zero-order-hold equivalent),",
+                "with closed-loop stability decided from the poles. Needs a linear plant and a PID controller."})
+public final class MarginsCommand implements Callable<Integer> {
+
+    /** The table lists this many phase crossovers at most (JSON lists them all). */
+    private static final int LISTED_CROSSINGS = 6;
+
+    @Spec
+    private CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario file.")
+    private Path scenarioFile;
+
+    @Option(names = "--json", description = "Print one JSON object with keys continuous and sampled.")
+    private boolean json;
+
+    @Override
+    public Integer call() {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        LinearLoopFile loop;
+        try {
+            loop = LinearLoopFile.read(scenarioFile, "margins");
+        } catch (InputFileException e) {
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
+        }
+        ControllerSettings settings = loop.settings();
+        StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
+        SampledMargins sampled = LoopAnalysis.sampled(loop.plant(), settings);
+        if (json) {
+            ObjectNode root = Json.object();
+            root.set("continuous", margins(continuous));
+            ObjectNode sampledNode = margins(sampled.margins());
+            sampledNode.put("stable", sampled.stable());
+            Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
+            sampledNode.put("sample_period", settings.samplePeriodSeconds());
+            sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
+                    ? ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) : null);
+            sampledNode.put("derivative_method", settings.parallelGains().derivativeGain() > 0.0
+                    ? ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()) : null);
+            root.set("sampled", sampledNode);
+            out.println(Json.pretty(root));
+        } else {
+            table(out, settings, continuous, sampled);
+        }
+        out.flush();
+        return 0;
+    }
+
+    private static ObjectNode margins(StabilityMargins m) {
+        ObjectNode node = Json.object();
+        PhaseCrossing phase = m.phaseCrossover().orElse(null);
+        GainCrossing gain = m.gainCrossover().orElse(null);
+        Json.number(node, "gain_margin", phase == null ? Double.NaN : phase.gainMargin());
+        Json.number(node, "gain_margin_db", phase == null ? Double.NaN : phase.gainMarginDb());
+        Json.number(node, "phase_crossover", phase == null ? Double.NaN : phase.frequencyRadPerSecond());
+        Json.number(node, "phase_margin_deg", gain == null ? Double.NaN : gain.phaseMarginDegrees());
+        Json.number(node, "gain_crossover", gain == null ? Double.NaN : gain.frequencyRadPerSecond());
+        Json.number(node, "ms", m.sensitivityPeak().value());
+        Json.number(node, "ms_frequency", m.sensitivityPeak().frequencyRadPerSecond());
+        Json.number(node, "mt", m.complementaryPeak().value());
+        Json.number(node, "mt_frequency", m.complementaryPeak().frequencyRadPerSecond());
+        Json.number(node, "delay_margin", m.delayMarginSeconds().orElse(Double.NaN));
+        ArrayNode phases = node.putArray("phase_crossings");
+        for (PhaseCrossing c : m.phaseCrossings()) {
+            ObjectNode item = phases.addObject();
+            Json.number(item, "frequency", c.frequencyRadPerSecond());
+            Json.number(item, "gain_margin", c.gainMargin());
+            Json.number(item, "gain_margin_db", c.gainMarginDb());
+        }
+        ArrayNode gains = node.putArray("gain_crossings");
+        for (GainCrossing c : m.gainCrossings()) {
+            ObjectNode item = gains.addObject();
+            Json.number(item, "frequency", c.frequencyRadPerSecond());
+            Json.number(item, "phase_margin_deg", c.phaseMarginDegrees());
+            Json.number(item, "delay_margin", c.delayMarginSeconds());
+        }
+        return node;
+    }
+
+    private void table(PrintWriter out, ControllerSettings settings, StabilityMargins continuous,
+            SampledMargins sampled) {
+        StabilityMargins s = sampled.margins();
+        out.println("Margins of " + scenarioFile + " (frequencies in rad/s)");
+        out.printf(Locale.ROOT, "sampled: h = %s s, integral %s, derivative %s%n", settings.samplePeriodSeconds(),
+                ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()),
+                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()));
+        row(out, "", "continuous", "sampled");
+        row(out, "gain margin", gainMargin(continuous), gainMargin(s));
+        row(out, "phase crossover", frequency(continuous.phaseCrossover().map(PhaseCrossing::frequencyRadPerSecond)
+                .orElse(Double.NaN)), frequency(s.phaseCrossover().map(PhaseCrossing::frequencyRadPerSecond)
+                .orElse(Double.NaN)));
+        row(out, "phase margin", phaseMargin(continuous), phaseMargin(s));
+        row(out, "gain crossover", frequency(continuous.gainCrossover().map(GainCrossing::frequencyRadPerSecond)
+                .orElse(Double.NaN)), frequency(s.gainCrossover().map(GainCrossing::frequencyRadPerSecond)
+                .orElse(Double.NaN)));
+        row(out, "Ms", peak(continuous.sensitivityPeak().value(), continuous.sensitivityPeak().frequencyRadPerSecond()),
+                peak(s.sensitivityPeak().value(), s.sensitivityPeak().frequencyRadPerSecond()));
+        row(out, "Mt", peak(continuous.complementaryPeak().value(),
+                continuous.complementaryPeak().frequencyRadPerSecond()),
+                peak(s.complementaryPeak().value(), s.complementaryPeak().frequencyRadPerSecond()));
+        row(out, "delay margin", seconds(continuous.delayMarginSeconds().orElse(Double.NaN)),
+                seconds(s.delayMarginSeconds().orElse(Double.NaN)));
+        row(out, "closed-loop poles", "-", String.format(Locale.ROOT, "%s (largest |z| = %.6f)",
+                sampled.stable() ? "stable" : "UNSTABLE", sampled.largestPoleMagnitude()));
+        crossings(out, "continuous", continuous);
+        crossings(out, "sampled", s);
+    }
+
+    private static void crossings(PrintWriter out, String name, StabilityMargins m) {
+        if (m.phaseCrossings().size() > 1 || m.gainCrossings().size() > 1) {
+            out.println("crossovers, " + name + ":");
+            List<PhaseCrossing> phases = m.phaseCrossings();
+            for (PhaseCrossing c : phases.subList(0, Math.min(phases.size(), LISTED_CROSSINGS))) {
+                out.printf(Locale.ROOT, "  phase crossover at %.6g rad/s, gain margin %.4g%n",
+                        c.frequencyRadPerSecond(), c.gainMargin());
+            }
+            if (phases.size() > LISTED_CROSSINGS) {
+                out.printf(Locale.ROOT, "  ... %d more phase crossovers up to %.6g rad/s (all in --json)%n",
+                        phases.size() - LISTED_CROSSINGS, phases.get(phases.size() - 1).frequencyRadPerSecond());
+            }
+            for (GainCrossing c : m.gainCrossings()) {
+                out.printf(Locale.ROOT, "  gain crossover at %.6g rad/s, phase margin %.2f deg%n",
+                        c.frequencyRadPerSecond(), c.phaseMarginDegrees());
+            }
+        }
+    }
+
+    private static void row(PrintWriter out, String name, String continuous, String sampled) {
+        out.printf(Locale.ROOT, "%-18s %-26s %s%n", name, continuous, sampled);
+    }
+
+    private static String gainMargin(StabilityMargins m) {
+        return m.phaseCrossover().map(c -> String.format(Locale.ROOT, "%.4g (%.2f dB)", c.gainMargin(),
+                c.gainMarginDb())).orElse("none");
+    }
+
+    private static String phaseMargin(StabilityMargins m) {
+        return m.gainCrossover().map(c -> String.format(Locale.ROOT, "%.2f deg", c.phaseMarginDegrees()))
+                .orElse("none");
+    }
+
+    private static String frequency(double value) {
+        return Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value) : "none";
+    }
+
+    private static String seconds(double value) {
+        return Double.isFinite(value) ? String.format(Locale.ROOT, "%.4g s", value) : "none";
+    }
+
+    private static String peak(double value, double frequency) {
+        return String.format(Locale.ROOT, "%.4f at %.4g", value, frequency);
+    }
+}

@@ -1,0 +1,160 @@
+package org.loopwright.sim.frequency;
+
+import java.util.ArrayList;
+import java.util.List;
+
+import org.hipparchus.complex.Complex;
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.sim.plant.TransferFunction;
+
+/**
+ * Margins of a PID loop, for the continuous design and for the loop as it runs sampled.
+ *
+ * <p>The loop is L = σ·C·P with σ = +1 for reverse action and −1 for direct action, so a direct-acting
+ * controller on a plant of negative gain gives an ordinary loop. The sampled loop is the discrete
+ * controller C(z) from {@link ControllerSettings#discretePid(double)} (the coefficients the running
+ * controller uses) in series with the plant's {@link ZeroOrderHoldEquivalent}, evaluated at
+ * z = e^{jωh} for 0 &lt; ω &le; π/h; no computation delay is assumed (the output is applied at the
+ * sample it was computed from).
+ *
+ * <p>Example: P control with gain 4 on 1/(s+1)³ has a gain margin of 2 at ω = √3 rad/s:
+ * <pre>{@code
+ * StabilityMargins m = LoopAnalysis.continuous(
+ *         new TransferFunction(new double[] {1}, new double[] {1, 3, 3, 1}, 0.0),
+ *         ControllerSettings.builder().gains(new ParallelGains(4, 0, 0)).samplePeriodSeconds(0.01).build());
+ * m.phaseCrossover().get().gainMargin(); // 2.0
+ * }</pre>
+ * Thread-safe: stateless.
+ */
+public final class LoopAnalysis {
+
+    /** Decades the band reaches beyond the slowest and fastest corner frequency of plant and controller. */
+    private static final double CORNER_DECADES = 1.0;
+    /** Decades the band may be widened further while the loop gain is still within 10³ of 1. */
+    private static final int EXTRA_DECADES = 8;
+    /** The band ends where |L| has fallen below this (a phase crossover there has a gain margin above 60 dB). */
+    private static final double NEGLIGIBLE_LOOP_GAIN = 1e-3;
+    private static final int POINTS_PER_DECADE = 200;
+
+    private LoopAnalysis() {
+    }
+
+    /** The margins of the continuous design C(s)·P(s) with its dead time. */
+    public static StabilityMargins continuous(TransferFunction plant, ControllerSettings settings) {
+        return MarginSearch.search(continuousLoop(plant, settings), continuousBand(plant, settings));
+    }
+
+    /** The margins and closed-loop poles of the loop sampled at the settings' own period and methods. */
+    public static SampledMargins sampled(TransferFunction plant, ControllerSettings settings) {
+        return sampled(plant, settings, settings.samplePeriodSeconds());
+    }
+
+    /**
+     * The margins and closed-loop poles of the loop sampled at {@code periodSeconds}, with the
+     * settings' integral and derivative methods.
+     *
+     * @throws InvalidSettingException if the forward-Euler derivative is unstable at this period
+     */
+    public static SampledMargins sampled(TransferFunction plant, ControllerSettings settings, double periodSeconds) {
+        PulseTransferFunction loop = sampledLoop(plant, settings, periodSeconds);
+        StabilityMargins margins = MarginSearch.search(loop, sampledBand(plant, settings, loop));
+        return new SampledMargins(margins, closedLoopPoles(loop));
+    }
+
+    /** The continuous loop σ·C(jω)·P(jω). */
+    public static FrequencyResponse continuousLoop(TransferFunction plant, ControllerSettings settings) {
+        return new ContinuousController(settings).times(new ContinuousPlant(plant)).times(settings.action().sign());
+    }
+
+    /**
+     * The discrete controller C(z) at {@code periodSeconds} with the settings' methods.
+     *
+     * @throws InvalidSettingException if the forward-Euler derivative is unstable at this period (h &ge; 2·Tf)
+     */
+    public static PulseTransferFunction discreteController(ControllerSettings settings, double periodSeconds) {
+        double filterTime = settings.derivativeFilterTimeSeconds();
+        if (settings.parallelGains().derivativeGain() > 0.0
+                && !settings.derivativeMethod().isStable(periodSeconds, filterTime)) {
+            throw new InvalidSettingException("samplePeriodSeconds", periodSeconds,
+                    "must be < 2 * derivativeFilterTimeSeconds for the forward-Euler derivative"
+                            + " (derivativeFilterTimeSeconds=" + filterTime + ")");
+        }
+        return PulseTransferFunction.of(settings.discretePid(periodSeconds));
+    }
+
+    /** The sampled loop σ·C(z)·P_zoh(z). */
+    public static PulseTransferFunction sampledLoop(TransferFunction plant, ControllerSettings settings,
+            double periodSeconds) {
+        return discreteController(settings, periodSeconds)
+                .times(ZeroOrderHoldEquivalent.of(plant, periodSeconds))
+                .times(settings.action().sign());
+    }
+
+    /** The closed-loop poles of unity negative feedback around {@code loop}: roots of A(z)·z^d + B(z). */
+    public static List<Complex> closedLoopPoles(PulseTransferFunction loop) {
+        return PolynomialRoots.of(loop.closedLoopCharacteristic());
+    }
+
+    /**
+     * The band searched for the continuous loop: a decade beyond the slowest and the fastest corner
+     * of plant (poles, zeros, 1/L) and controller (Ki/Kp, Kp/Kd, 1/Tf), widened a decade at a time
+     * while the loop gain is still below 10³ at the low end or above 10⁻³ at the high end, so every
+     * gain crossover lies inside, and every phase crossover with a gain margin below 60 dB.
+     */
+    public static FrequencyBand continuousBand(TransferFunction plant, ControllerSettings settings) {
+        List<Double> corners = corners(plant, settings);
+        double slowest = corners.stream().mapToDouble(Double::doubleValue).min().orElse(1.0);
+        double fastest = corners.stream().mapToDouble(Double::doubleValue).max().orElse(1.0);
+        double low = slowest * Math.pow(10.0, -CORNER_DECADES);
+        double high = fastest * Math.pow(10.0, CORNER_DECADES);
+        FrequencyResponse loop = continuousLoop(plant, settings);
+        for (int i = 0; i < EXTRA_DECADES && loop.at(low).norm() < 1.0 / NEGLIGIBLE_LOOP_GAIN; i++) {
+            low /= 10.0;
+        }
+        for (int i = 0; i < EXTRA_DECADES && loop.at(high).norm() > NEGLIGIBLE_LOOP_GAIN; i++) {
+            high *= 10.0;
+        }
+        return new FrequencyBand(low, high, POINTS_PER_DECADE, plant.deadTimeSeconds(), false);
+    }
+
+    private static FrequencyBand sampledBand(TransferFunction plant, ControllerSettings settings,
+            PulseTransferFunction loop) {
+        double nyquist = loop.nyquistRadPerSecond();
+        double low = Math.min(continuousBand(plant, settings).lowestRadPerSecond(), nyquist * 1e-4);
+        // z^(−d) and the hold's fractional delay turn the phase at about (d + 1)·h seconds
+        double delaySeconds = (loop.delaySamples() + 1) * loop.periodSeconds();
+        return new FrequencyBand(low, nyquist, POINTS_PER_DECADE, delaySeconds, true);
+    }
+
+    private static List<Double> corners(TransferFunction plant, ControllerSettings settings) {
+        List<Double> corners = new ArrayList<>();
+        for (Complex root : PolynomialRoots.ofDescending(plant.denominator())) {
+            addPositive(corners, root.norm());
+        }
+        for (Complex root : PolynomialRoots.ofDescending(plant.numerator())) {
+            addPositive(corners, root.norm());
+        }
+        if (plant.deadTimeSeconds() > 0.0) {
+            corners.add(1.0 / plant.deadTimeSeconds());
+        }
+        ParallelGains gains = settings.parallelGains();
+        if (gains.proportionalGain() > 0.0 && gains.integralGain() > 0.0) {
+            corners.add(gains.integralGain() / gains.proportionalGain());
+        }
+        if (gains.proportionalGain() > 0.0 && gains.derivativeGain() > 0.0) {
+            corners.add(gains.proportionalGain() / gains.derivativeGain());
+        }
+        if (gains.derivativeGain() > 0.0) {
+            addPositive(corners, 1.0 / settings.derivativeFilterTimeSeconds());
+        }
+        return corners;
+    }
+
+    private static void addPositive(List<Double> corners, double value) {
+        if (value > 0.0 && Double.isFinite(value)) {
+            corners.add(value);
+        }
+    }
+}

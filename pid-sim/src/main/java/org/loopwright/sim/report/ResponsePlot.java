@@ -1,0 +1,96 @@
+package org.loopwright.sim.report;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+
+import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.VectorGraphicsEncoder;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYChartBuilder;
+import org.knowm.xchart.XYSeries;
+import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.loopwright.sim.simulate.Trajectory;
+
+/**
+ * Plots of closed-loop runs with XChart, saved as PNG and SVG. The response plot shows setpoint and
+ * measurement on the left axis and the controller output on the right. Long runs are thinned to at
+ * most {@value #MAX_POINTS} points per series (every n-th sample; the last sample is kept), and
+ * dropped-out measurements are left out.
+ *
+ * <p>Example: {@code ResponsePlot.save(ResponsePlot.response(t, "Water bath"), dir, "response");}
+ * writes {@code response.png} and {@code response.svg}.
+ */
+public final class ResponsePlot {
+
+    /** The most points a series is drawn with. */
+    public static final int MAX_POINTS = 2_000;
+
+    private static final int WIDTH = 1000;
+    private static final int HEIGHT = 600;
+
+    private ResponsePlot() {
+    }
+
+    /** Setpoint, measurement and controller output against time. */
+    public static XYChart response(Trajectory trajectory, String title) {
+        XYChart chart = chart(title, "time (s)", "process value");
+        int stride = Math.max(1, (trajectory.length() + MAX_POINTS - 1) / MAX_POINTS);
+        List<Double> time = new ArrayList<>();
+        List<Double> setpoint = new ArrayList<>();
+        List<Double> measuredTime = new ArrayList<>();
+        List<Double> measurement = new ArrayList<>();
+        List<Double> output = new ArrayList<>();
+        for (int k = 0; k < trajectory.length(); k += stride) {
+            add(trajectory, k, time, setpoint, measuredTime, measurement, output);
+        }
+        int last = trajectory.length() - 1;
+        if (last > 0 && last % stride != 0) {
+            add(trajectory, last, time, setpoint, measuredTime, measurement, output);
+        }
+        line(chart, "setpoint", time, setpoint, 0);
+        if (!measurement.isEmpty()) {
+            line(chart, "measurement", measuredTime, measurement, 0);
+        }
+        line(chart, "controller output", time, output, 1);
+        chart.setYAxisGroupTitle(1, "controller output");
+        return chart;
+    }
+
+    private static void add(Trajectory t, int k, List<Double> time, List<Double> setpoint, List<Double> measuredTime,
+            List<Double> measurement, List<Double> output) {
+        time.add(t.time(k));
+        setpoint.add(t.setpoint(k));
+        output.add(t.output(k));
+        if (!Double.isNaN(t.measurement(k))) {
+            measuredTime.add(t.time(k));
+            measurement.add(t.measurement(k));
+        }
+    }
+
+    /** An empty line chart with this project's size and style, for other plots to reuse. */
+    public static XYChart chart(String title, String xAxisTitle, String yAxisTitle) {
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT).title(title).xAxisTitle(xAxisTitle)
+                .yAxisTitle(yAxisTitle).build();
+        chart.getStyler().setMarkerSize(0);
+        chart.getStyler().setChartBackgroundColor(java.awt.Color.WHITE);
+        return chart;
+    }
+
+    /** Adds a line without markers on a y-axis group (0 left, 1 right). */
+    public static XYSeries line(XYChart chart, String name, List<Double> x, List<Double> y, int yAxisGroup) {
+        XYSeries series = chart.addSeries(name, x, y);
+        series.setMarker(SeriesMarkers.NONE);
+        series.setYAxisGroup(yAxisGroup);
+        return series;
+    }
+
+    /** Saves {@code baseName.png} and {@code baseName.svg} in the directory. */
+    public static void save(XYChart chart, Path directory, String baseName) throws IOException {
+        BitmapEncoder.saveBitmap(chart, directory.resolve(baseName + ".png").toString(),
+                BitmapEncoder.BitmapFormat.PNG);
+        VectorGraphicsEncoder.saveVectorGraphic(chart, directory.resolve(baseName + ".svg").toString(),
+                VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
+    }
+}

@@ -1,0 +1,65 @@
+package org.loopwright.sim.tuning;
+
+import java.util.Objects;
+import java.util.Optional;
+
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.form.IdealGains;
+import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.pid.form.SeriesGains;
+import org.loopwright.pid.tuning.TunedGains;
+import org.loopwright.sim.frequency.StabilityMargins;
+import org.loopwright.sim.metrics.ResponseMetrics;
+
+/**
+ * One rule's settings and what they do: the margins of the continuous loop on the model and the
+ * figures of a setpoint step and a load step in simulation. Margins and figures are empty when
+ * there was no model to check them on.
+ *
+ * @param tuning            the rule's result
+ * @param settings          controller settings carrying the gains (ideal form)
+ * @param margins           margins and Ms of the continuous loop on the model
+ * @param setpointResponse  figures of a unit setpoint step
+ * @param loadResponse      figures of a unit load step at the plant input (IAE, peak deviation)
+ */
+public record TuningCandidate(TunedGains tuning, ControllerSettings settings, Optional<StabilityMargins> margins,
+                              Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
+
+    /** Checks that nothing is null. */
+    public TuningCandidate {
+        Objects.requireNonNull(tuning, "tuning");
+        Objects.requireNonNull(settings, "settings");
+        Objects.requireNonNull(margins, "margins");
+        Objects.requireNonNull(setpointResponse, "setpointResponse");
+        Objects.requireNonNull(loadResponse, "loadResponse");
+    }
+
+    /** The gains in ideal form. */
+    public IdealGains ideal() {
+        return tuning.gains();
+    }
+
+    /** The gains in parallel form. */
+    public ParallelGains parallel() {
+        return tuning.gains().toParallel();
+    }
+
+    /** The gains in series form, empty when none exists (Ti &lt; 4·Td). */
+    public Optional<SeriesGains> series() {
+        try {
+            return Optional.of(tuning.gains().toSeries());
+        } catch (InvalidSettingException e) {
+            return Optional.empty();
+        }
+    }
+
+    /**
+     * The response to a load step.
+     *
+     * @param iae           ∫|r − y| dt after the step, process units·s
+     * @param peakDeviation the largest |r − y| after the step
+     */
+    public record LoadResponse(double iae, double peakDeviation) {
+    }
+}

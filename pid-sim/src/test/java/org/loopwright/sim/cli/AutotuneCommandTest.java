@@ -1,0 +1,65 @@
+package org.loopwright.sim.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.net.URISyntaxException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+
+import org.junit.jupiter.api.Test;
+
+class AutotuneCommandTest {
+
+    private static final ObjectMapper JSON = new ObjectMapper();
+
+    private static String resource(String name) throws URISyntaxException {
+        return Path.of(AutotuneCommandTest.class.getResource(name).toURI()).toString();
+    }
+
+    @Test
+    void findsTheUltimatePointOfAThirdOrderLagScenarioAndVerifiesTheSuggestions() throws Exception {
+        CommandRun run = CommandRun.of("autotune", resource("third-order-lag.yaml"), "--json");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode node = JSON.readTree(run.out());
+        // 1/(s+1)³: Ku = 8 at ω = √3, Pu = 2π/√3 (analytic); the describing function's error for
+        // this plant is a few per cent (Åström & Hägglund 1984), we allow 5 %
+        assertThat(node.get("ultimate_gain").asDouble()).isCloseTo(8.0, within(0.4));
+        assertThat(node.get("ultimate_period").asDouble()).isCloseTo(2.0 * Math.PI / Math.sqrt(3.0), within(0.18));
+        // relay d = 10 % of the output range 10 → 1; a ≈ 4d/(π·Ku) ≈ 0.16 (describing function)
+        assertThat(node.get("oscillation_amplitude").asDouble()).isCloseTo(4.0 / (Math.PI * 8.0), within(0.01));
+        assertThat(node.get("cycles").asInt()).isGreaterThanOrEqualTo(5);
+        assertThat(node.get("warnings")).isEmpty();
+        List<String> suggested = new ArrayList<>();
+        node.get("suggestions").forEach(s -> suggested.add(s.get("rule").asText() + "/" + s.get("type").asText()));
+        assertThat(suggested).containsExactly("ziegler-nichols/pi", "tyreus-luyben/pi", "ziegler-nichols/pid",
+                "tyreus-luyben/pid");
+        // every suggestion is stable on the plant: a positive gain margin above 1
+        node.get("suggestions").forEach(s -> assertThat(s.get("gain_margin").asDouble()).isGreaterThan(1.0));
+        node.get("suggestions").forEach(s -> assertThat(s.get("load_step").get("iae").asDouble()).isPositive());
+    }
+
+    @Test
+    void firstOrderPlantGetsAWarningThatTheEstimateIsUnreliable() throws Exception {
+        // the built-in water bath is a first-order thermal zone: no phase crossover, the relay swing is
+        // set by the hysteresis and the sampling alone
+        CommandRun run = CommandRun.of("autotune", resource("/org/loopwright/sim/scenario/water-bath.yaml"));
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).contains("WARNING: the oscillation amplitude").contains("has no true ultimate point");
+    }
+
+    @Test
+    void anAbortedExperimentIsReportedWithItsReason() throws Exception {
+        CommandRun run = CommandRun.of("autotune", resource("third-order-lag.yaml"), "--excursion-limit", "0.05");
+
+        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(run.err()).startsWith("relay experiment aborted_excursion: aborted: the process variable left the"
+                + " band setpoint +/- excursionLimit:");
+    }
+}

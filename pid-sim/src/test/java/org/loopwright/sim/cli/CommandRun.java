@@ -1,0 +1,20 @@
+package org.loopwright.sim.cli;
+
+import java.io.PrintWriter;
+import java.io.StringWriter;
+
+import picocli.CommandLine;
+
+/** One run of the command line in a test: exit code, standard output and standard error. */
+record CommandRun(int exitCode, String out, String err) {
+
+    static CommandRun of(String... args) {
+        CommandLine cli = LoopwrightCommand.commandLine();
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        cli.setOut(new PrintWriter(out));
+        cli.setErr(new PrintWriter(err));
+        int code = cli.execute(args);
+        return new CommandRun(code, out.toString(), err.toString());
+    }
+}

@@ -1,0 +1,73 @@
+package org.loopwright.sim.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
+
+class SimulateCommandTest {
+
+    private final StringWriter out = new StringWriter();
+    private final StringWriter err = new StringWriter();
+
+    private int run(String... args) {
+        CommandLine cli = LoopwrightCommand.commandLine();
+        cli.setOut(new PrintWriter(out));
+        cli.setErr(new PrintWriter(err));
+        return cli.execute(args);
+    }
+
+    @Test
+    void demoRunsSaysSoAndWritesTheReports(@TempDir Path dir) throws IOException {
+        int code = run("simulate", "--out", dir.toString(), "--json");
+        assertThat(code).isZero();
+        assertThat(err.toString()).contains("built-in water-bath demo").contains("our own invention");
+        JsonNode metrics = new ObjectMapper().readTree(out.toString());
+        assertThat(metrics.fieldNames()).toIterable().contains("rise_time", "settling_time", "overshoot_percent",
+                "peak_time", "steady_state_error", "iae", "ise", "itae", "total_variation", "saturated_fraction");
+        assertThat(metrics.get("rise_time").isNumber()).isTrue();
+        assertThat(metrics.get("iae").isNumber()).isTrue();
+        assertThat(metrics.get("limit_cycle_amplitude").isNull()).as("a PID loop has no limit cycle").isTrue();
+        List<String> csv = Files.readAllLines(dir.resolve("trajectory.csv"));
+        assertThat(csv.get(0)).isEqualTo("time,setpoint,measurement,output,disturbance");
+        assertThat(csv).hasSize(7201 + 1);
+        assertThat(Files.size(dir.resolve("response.png"))).isPositive();
+        assertThat(Files.readString(dir.resolve("response.svg"))).contains("<svg");
+    }
+
+    @Test
+    void tableShowsTheLimitCycleOfAnOnOffLoop(@TempDir Path dir) throws IOException {
+        Path scenario = dir.resolve("thermostat.yaml");
+        Files.writeString(scenario, """
+                on-off: {off-output: 0, on-output: 1, hysteresis: 1, sample-period: 0.1}
+                plant: {type: fopdt, gain: 100, time-constant: 50, dead-time: 2}
+                setpoint: [{at: 0, value: 50}]
+                duration: 600
+                """);
+        int code = run("simulate", scenario.toString(), "--out", dir.resolve("out").toString());
+        assertThat(code).isZero();
+        assertThat(out.toString()).contains("rise time (10-90 %)", "settling time (2 %)")
+                .containsPattern("limit cycle amplitude +[0-9.]+\\n").containsPattern("limit cycle period +[0-9.]+ s\\n");
+        assertThat(dir.resolve("out/trajectory.csv")).exists();
+    }
+
+    @Test
+    void badScenarioExitsWithTwoAndALocatedMessage(@TempDir Path dir) throws IOException {
+        Path scenario = dir.resolve("bad.yaml");
+        Files.writeString(scenario, "controller: {form: ideal, gain: 1, sample-period: 1}\nplant: {type: fopdt}\n"
+                + "duration: 10\n");
+        int code = run("simulate", scenario.toString(), "--out", dir.toString());
+        assertThat(code).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(err.toString().trim()).isEqualTo(scenario + ":2:1: missing key 'gain' in plant (a number (finite))");
+    }
+}
