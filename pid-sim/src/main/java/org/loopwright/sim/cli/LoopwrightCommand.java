@@ -9,7 +9,7 @@ import picocli.CommandLine.Command;
  */
 @Command(name = "loopwright", mixinStandardHelpOptions = true, version = "loopwright 0.1.0",
         description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
-        subcommands = {CommandLine.HelpCommand.class})
+        subcommands = {CommandLine.HelpCommand.class, ReplayCommand.class})
 public final class LoopwrightCommand implements Runnable {
 
     /** Exit code for bad input. */

@@ -61,7 +61,17 @@ public final class InputFileException extends RuntimeException {
     }
 
     /**
-     * A problem with the file as a whole (missing, unreadable, empty).
+     * A problem with the file as a whole (empty, no data).
+     *
+     * @param file   the file as the user named it
+     * @param detail what is wrong
+     */
+    public static InputFileException whole(String file, String detail) {
+        return whole(file, detail, null);
+    }
+
+    /**
+     * A problem with the file as a whole (missing, unreadable), with its cause.
      *
      * @param file   the file as the user named it
      * @param detail what is wrong

@@ -86,7 +86,7 @@ public final class YamlDocument {
         Map<String, TextPosition> positions = new HashMap<>();
         Map<String, String> sourceText = new HashMap<>();
         try (JsonParser parser = YAML.createParser(new StringReader(text))) {
-            Builder builder = new Builder(fileName, parser, positions, sourceText);
+            TreeBuilder builder = new TreeBuilder(fileName, parser, positions, sourceText);
             JsonToken first = parser.nextToken();
             JsonNode root;
             if (first == null) {
@@ -112,13 +112,13 @@ public final class YamlDocument {
     }
 
     /** Builds the tree from the token stream, recording positions and the source text of scalars. */
-    private static final class Builder {
+    private static final class TreeBuilder {
         private final String fileName;
         private final JsonParser parser;
         private final Map<String, TextPosition> positions;
         private final Map<String, String> sourceText;
 
-        Builder(String fileName, JsonParser parser, Map<String, TextPosition> positions,
+        TreeBuilder(String fileName, JsonParser parser, Map<String, TextPosition> positions,
                 Map<String, String> sourceText) {
             this.fileName = fileName;
             this.parser = parser;
@@ -169,12 +169,22 @@ public final class YamlDocument {
             return list;
         }
 
+        /** YAML 1.1's .inf, -.inf and .nan, which Jackson tokenises as floats but cannot convert itself. */
+        private double floatValue(String text) throws IOException {
+            return switch (text) {
+                case ".inf", ".Inf", ".INF", "+.inf", "+.Inf", "+.INF" -> Double.POSITIVE_INFINITY;
+                case "-.inf", "-.Inf", "-.INF" -> Double.NEGATIVE_INFINITY;
+                case ".nan", ".NaN", ".NAN" -> Double.NaN;
+                default -> parser.getDoubleValue();
+            };
+        }
+
         private JsonNode scalar(JsonToken token) throws IOException {
             return switch (token) {
                 case VALUE_NUMBER_INT -> parser.getNumberType() == JsonParser.NumberType.BIG_INTEGER
                         ? NODES.numberNode(parser.getBigIntegerValue())
                         : NODES.numberNode(parser.getLongValue());
-                case VALUE_NUMBER_FLOAT -> NODES.numberNode(parser.getDoubleValue());
+                case VALUE_NUMBER_FLOAT -> NODES.numberNode(floatValue(parser.getText()));
                 case VALUE_TRUE -> NODES.booleanNode(true);
                 case VALUE_FALSE -> NODES.booleanNode(false);
                 case VALUE_NULL -> NODES.nullNode();
@@ -327,7 +337,8 @@ public final class YamlDocument {
         }
         double number = value.doubleValue();
         if (!rule.accepts(number)) {
-            throw error(pointer, key + " must be " + rule.description() + ": " + key + "=" + sourceText(pointer));
+            String allowed = rule.description().isEmpty() ? rule.describeNumber() : rule.description();
+            throw error(pointer, key + " must be " + allowed + ": " + key + "=" + sourceText(pointer));
         }
         return number;
     }
@@ -407,6 +418,15 @@ public final class YamlDocument {
             throw error(pointer, key + " must be a non-empty text: " + key + "=" + sourceText(pointer));
         }
         return value.asText();
+    }
+
+    /**
+     * An optional non-empty text value, with a value for when the key is absent.
+     *
+     * @throws InputFileException when the key is present but its value is not a text or is empty
+     */
+    public String optionalText(String pointer, String absent) {
+        return has(pointer) ? requiredText(pointer) : absent;
     }
 
     private static String parentOf(String pointer) {

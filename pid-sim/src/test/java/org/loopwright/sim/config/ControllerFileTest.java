@@ -89,6 +89,16 @@ class ControllerFileTest {
     }
 
     @Test
+    void yamlInfinityMeansNoLimitOrNoIntegralAction() {
+        ControllerSettings s = parse("form: ideal\ngain: 1\nintegral-time: .inf\nsample-period: 1\n"
+                + "output-min: -.inf\noutput-max: .inf\noutput-slew: .inf\n");
+        assertThat(s.gains().hasIntegralAction()).isFalse();
+        assertThat(s.outputMin()).isEqualTo(Double.NEGATIVE_INFINITY);
+        assertThat(s.outputMax()).isEqualTo(Double.POSITIVE_INFINITY);
+        assertThat(s.outputSlewPerSecond()).isEqualTo(Double.POSITIVE_INFINITY);
+    }
+
+    @Test
     void readsTheParallelAndSeriesForms() {
         assertThat(parse("form: parallel\nproportional-gain: 2\nintegral-gain: 0.1\nderivative-gain: 4\n"
                 + "sample-period: 0.1\n").gains()).isEqualTo(new ParallelGains(2.0, 0.1, 4.0));

@@ -47,6 +47,7 @@ class YamlDocumentTest {
     @Test
     void typedReadersReturnTheValues() {
         assertThat(doc.requiredText("/name")).isEqualTo("bath warm-up");
+        assertThat(doc.optionalText("/title", "untitled")).isEqualTo("untitled");
         assertThat(doc.requiredNumber("/duration", NumberRule.POSITIVE)).isEqualTo(600.0);
         assertThat(doc.requiredChoice("/plant/kind", KINDS)).isEqualTo("FO");
         assertThat(doc.optionalChoice("/plant/shape", KINDS, "SO")).isEqualTo("SO");
@@ -114,5 +115,16 @@ class YamlDocumentTest {
         assertThat(empty.root().isObject()).isTrue();
         assertThatThrownBy(() -> empty.requiredNumber("/gain", NumberRule.ANY))
                 .hasMessage("empty.yaml:1:1: missing key 'gain' (a number)");
+    }
+
+    @Test
+    void yamlInfinitiesAreNumbersThatOnlyTheAnyRuleAccepts() {
+        YamlDocument limits = YamlDocument.parse("limits.yaml", "high: .inf\nlow: -.inf\n");
+        assertThat(limits.requiredNumber("/high", NumberRule.ANY)).isEqualTo(Double.POSITIVE_INFINITY);
+        assertThat(limits.requiredNumber("/low", NumberRule.ANY)).isEqualTo(Double.NEGATIVE_INFINITY);
+        assertThatThrownBy(() -> limits.requiredNumber("/high", NumberRule.FINITE))
+                .hasMessage("limits.yaml:1:1: high must be finite: high=.inf");
+        assertThatThrownBy(() -> YamlDocument.parse("nan.yaml", "x: .nan\n").requiredNumber("/x", NumberRule.ANY))
+                .hasMessage("nan.yaml:1:1: x must be a number: x=.nan");
     }
 }

@@ -1,0 +1,155 @@
+package org.loopwright.sim.replay;
+
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+import org.apache.commons.csv.CSVFormat;
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.Fault;
+import org.loopwright.pid.Mode;
+
+/**
+ * What a {@link Replay} produced, row by row: the output, the proportional, integral and derivative
+ * contributions (those of the last good sample on a faulty row), the status, the actuator position
+ * and the period used.
+ *
+ * <p>Thread-safe: immutable once the replay has filled it (its arrays are never handed out).
+ */
+public final class ReplayResult {
+
+    /**
+     * The word the {@code status} column writes: {@code normal} for a good sample, else the fault's
+     * name in lower case with hyphens ({@code measurement-not-finite}), so a fault added to the core
+     * later gets a word too.
+     */
+    public static String statusWord(Fault fault) {
+        return fault == Fault.NONE ? "normal" : fault.name().toLowerCase(Locale.ROOT).replace('_', '-');
+    }
+
+    /** The per-row columns a replay fills. */
+    static final class Columns {
+        final double[] output;
+        final double[] position;
+        final double[] proportional;
+        final double[] integral;
+        final double[] derivative;
+        final double[] periodSeconds;
+        final Fault[] status;
+        final Mode[] mode;
+
+        Columns(int rows) {
+            output = new double[rows];
+            position = new double[rows];
+            proportional = new double[rows];
+            integral = new double[rows];
+            derivative = new double[rows];
+            periodSeconds = new double[rows];
+            status = new Fault[rows];
+            mode = new Mode[rows];
+        }
+    }
+
+    private final ControllerSettings settings;
+    private final Trace trace;
+    private final boolean measuredPeriod;
+    private final Columns columns;
+
+    ReplayResult(ControllerSettings settings, Trace trace, boolean measuredPeriod, Columns columns) {
+        this.settings = settings;
+        this.trace = trace;
+        this.measuredPeriod = measuredPeriod;
+        this.columns = columns;
+    }
+
+    /** The settings replayed. */
+    public ControllerSettings settings() {
+        return settings;
+    }
+
+    /** The trace replayed. */
+    public Trace trace() {
+        return trace;
+    }
+
+    /** Whether the periods came from the {@code time} column. */
+    public boolean measuredPeriod() {
+        return measuredPeriod;
+    }
+
+    /** The number of rows. */
+    public int rowCount() {
+        return columns.output.length;
+    }
+
+    /** The controller's output for a row (an increment for increment output). */
+    public double output(int row) {
+        return columns.output[row];
+    }
+
+    /** The actuator position the controller asked for at a row (equal to the output for position output). */
+    public double position(int row) {
+        return columns.position[row];
+    }
+
+    /** The proportional contribution at a row. */
+    public double proportional(int row) {
+        return columns.proportional[row];
+    }
+
+    /** The integral contribution at a row. */
+    public double integral(int row) {
+        return columns.integral[row];
+    }
+
+    /** The derivative contribution at a row. */
+    public double derivative(int row) {
+        return columns.derivative[row];
+    }
+
+    /** The fault seen at a row, {@link Fault#NONE} for a good sample. */
+    public Fault status(int row) {
+        return columns.status[row];
+    }
+
+    /** The period used for a row's update, in seconds. */
+    public double periodSeconds(int row) {
+        return columns.periodSeconds[row];
+    }
+
+    /** The controller's mode after a row's update. */
+    public Mode mode(int row) {
+        return columns.mode[row];
+    }
+
+    /**
+     * Writes the trace's columns as read, then {@code output, proportional, integral, derivative,
+     * status}, one row per trace row. Numbers are written in Java's shortest exact form.
+     */
+    public void writeCsv(Appendable out) throws IOException {
+        List<String> header = new ArrayList<>(trace.header());
+        header.addAll(TraceFile.OUTPUT_COLUMNS);
+        CSVFormat format = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
+        printRow(format, out, header);
+        List<String> row = new ArrayList<>(header.size());
+        for (int k = 0; k < rowCount(); k++) {
+            row.clear();
+            row.addAll(trace.cells(k));
+            row.add(Double.toString(output(k)));
+            row.add(Double.toString(proportional(k)));
+            row.add(Double.toString(integral(k)));
+            row.add(Double.toString(derivative(k)));
+            row.add(statusWord(status(k)));
+            printRow(format, out, row);
+        }
+    }
+
+    /** One record, quoted where RFC 4180 needs it (the format's own printer, without CSVPrinter). */
+    private static void printRow(CSVFormat format, Appendable out, List<String> cells) throws IOException {
+        for (int i = 0; i < cells.size(); i++) {
+            format.print(cells.get(i), out, i == 0);
+        }
+        format.println(out);
+    }
+}
