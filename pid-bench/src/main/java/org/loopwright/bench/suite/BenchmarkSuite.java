@@ -2,14 +2,11 @@ package org.loopwright.bench.suite;
 
 import java.nio.file.Path;
 import java.time.Duration;
-import java.util.ArrayList;
 import java.util.Collection;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
-import org.loopwright.bench.timing.LoopTiming;
-import org.loopwright.bench.timing.TimedLoop;
 import org.loopwright.bench.timing.TimingResult;
 import org.openjdk.jmh.infra.BenchmarkParams;
 import org.openjdk.jmh.profile.GCProfiler;
@@ -24,7 +21,9 @@ import org.openjdk.jmh.runner.options.VerboseMode;
 
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
 
 /**
  * The short benchmark suite in one command: every JMH benchmark (one fork, 2 × 1 s warm-up,
@@ -36,8 +35,8 @@ import picocli.CommandLine.Option;
         description = "Runs the benchmark suite and writes summary.md and summary.json.")
 public final class BenchmarkSuite implements Callable<Integer> {
 
-    /** The rates the loop timing measures: 1 kHz and 10 kHz. */
-    static final long[] PERIODS_NANOS = {1_000_000L, 100_000L};
+    @Spec
+    private CommandSpec spec;
 
     @Option(names = "--output-dir", paramLabel = "DIR", defaultValue = "bench-results",
             description = "Where summary.md and summary.json go (default: ${DEFAULT-VALUE}).")
@@ -62,7 +61,7 @@ public final class BenchmarkSuite implements Callable<Integer> {
     @Override
     public Integer call() throws RunnerException, InterruptedException, java.io.IOException {
         if (!(timingSeconds > 0.0) || !Double.isFinite(timingSeconds)) {
-            throw new CommandLine.ParameterException(new CommandLine(this),
+            throw new CommandLine.ParameterException(spec.commandLine(),
                     "--timing-seconds must be finite and > 0: --timing-seconds=" + timingSeconds);
         }
         Machine machine = Machine.now();
@@ -106,17 +105,6 @@ public final class BenchmarkSuite implements Callable<Integer> {
 
     private List<TimingResult> runTiming() throws InterruptedException {
         Duration each = smoke ? Duration.ofMillis(100) : Duration.ofNanos((long) (timingSeconds * 1e9));
-        List<TimingResult> results = new ArrayList<>();
-        for (long period : PERIODS_NANOS) {
-            for (TimedLoop loop : TimedLoop.values()) {
-                TimingResult r = LoopTiming.measure(loop, period, each);
-                results.add(r);
-                if (!smoke) {
-                    System.out.printf("timing %s at %d ns: p50 %d ns, p99 %d ns, max %d ns, %d overruns%n", loop,
-                            period, r.p50Nanos(), r.p99Nanos(), r.maxNanos(), r.overruns());
-                }
-            }
-        }
-        return results;
+        return LoopTimingProgram.measureAll(each, !smoke);
     }
 }

@@ -51,22 +51,32 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
             JmhFigure baseline = baselineOf(f, bare, full);
             comparisons.add(new Comparison(f, baseline, f.nsPerOp() / baseline.nsPerOp()));
         }
-        List<TimingComparison> timingComparisons = new ArrayList<>();
-        for (TimingResult t : timings) {
-            TimingResult base = timings.stream()
-                    .filter(b -> b.loop() == TimedLoop.BUSY_WAIT_BASELINE && b.periodNanos() == t.periodNanos())
-                    .findFirst().orElseThrow(() -> new IllegalArgumentException(
-                            "no busy-wait baseline at periodNanos=" + t.periodNanos()));
-            timingComparisons.add(new TimingComparison(t, ratio(t.p50Nanos(), base.p50Nanos()),
-                    ratio(t.p99Nanos(), base.p99Nanos()), ratio(t.p999Nanos(), base.p999Nanos()),
-                    ratio(t.maxNanos(), base.maxNanos()), t.cpuFraction() / base.cpuFraction()));
-        }
+        List<TimingComparison> timingComparisons = compareTimings(timings);
         List<TargetCheck> targets = List.of(
                 fullOverBare(full, bare),
                 fullAllocation(full),
                 bankPerController(required(byName, BANK), full),
                 simulationStep(required(byName, SIMULATION_STEP), full));
         return new SuiteSummary(command, mode, machine, comparisons, timingComparisons, targets);
+    }
+
+    /**
+     * Sets each loop's timing beside the busy-wait baseline at the same rate.
+     *
+     * @throws IllegalArgumentException when a rate has no baseline
+     */
+    public static List<TimingComparison> compareTimings(List<TimingResult> timings) {
+        List<TimingComparison> comparisons = new ArrayList<>();
+        for (TimingResult t : timings) {
+            TimingResult base = timings.stream()
+                    .filter(b -> b.loop() == TimedLoop.BUSY_WAIT_BASELINE && b.periodNanos() == t.periodNanos())
+                    .findFirst().orElseThrow(() -> new IllegalArgumentException(
+                            "no busy-wait baseline at periodNanos=" + t.periodNanos()));
+            comparisons.add(new TimingComparison(t, ratio(t.p50Nanos(), base.p50Nanos()),
+                    ratio(t.p99Nanos(), base.p99Nanos()), ratio(t.p999Nanos(), base.p999Nanos()),
+                    ratio(t.maxNanos(), base.maxNanos()), t.cpuFraction() / base.cpuFraction()));
+        }
+        return comparisons;
     }
 
     private static JmhFigure required(Map<String, JmhFigure> byName, String name) {

@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Locale;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -62,11 +63,19 @@ public final class SummaryWriter {
         }
         md.append('\n');
 
-        md.append("## Loop timing (period error |(start(k) − start(k−1)) − h|; ratio to the busy-wait baseline)\n\n")
+        md.append("## Loop timing\n\n").append(timingTable(s.timing()));
+        return md.toString();
+    }
+
+    /** The loop-timing table: period error |(start(k) − start(k−1)) − h| beside the busy-wait baseline. */
+    public static String timingTable(List<TimingComparison> timing) {
+        StringBuilder md = new StringBuilder();
+        md.append("Period error |(start(k) − start(k−1)) − h| in µs, each with its ratio to the busy-wait baseline"
+                        + " at the same rate; CPU is the loop thread's CPU time over the wall time.\n\n")
                 .append("| Rate | Loop | Margin µs | Ticks | Overruns | Skipped | p50 µs | p99 µs | p99.9 µs | max µs"
                         + " | CPU |\n")
                 .append("|---|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|\n");
-        for (TimingComparison c : s.timing()) {
+        for (TimingComparison c : timing) {
             TimingResult t = c.result();
             md.append(f("| %s | %s | %s | %d | %d | %d | %s | %s | %s | %s | %s |%n",
                     rate(t.periodNanos()), t.loop(), t.spinMarginNanos() == 0 ? "–" : f("%.0f", t.spinMarginNanos() / 1e3),
