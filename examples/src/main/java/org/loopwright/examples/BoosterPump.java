@@ -101,7 +101,7 @@ public final class BoosterPump {
      * argument, and prints it.
      */
     public static void main(String[] args) {
-        double duration = args.length > 0 ? Double.parseDouble(args[0]) : DEFAULT_DURATION_SECONDS;
+        double duration = DurationArgument.seconds(args, DEFAULT_DURATION_SECONDS);
         run(duration, System.out);
     }
 
@@ -256,8 +256,13 @@ public final class BoosterPump {
             }
             this.iaeBarSeconds = iae;
             this.peakDeviationBar = peak;
-            this.recoverySeconds = new double[DEMAND_AT_SECONDS.length - 1];
-            for (int step = 1; step < DEMAND_AT_SECONDS.length; step++) {
+            int steps = 0;
+            while (steps + 1 < DEMAND_AT_SECONDS.length
+                    && DEMAND_AT_SECONDS[steps + 1] <= timeSeconds[timeSeconds.length - 1]) {
+                steps++;
+            }
+            this.recoverySeconds = new double[steps];
+            for (int step = 1; step <= steps; step++) {
                 recoverySeconds[step - 1] = recovery(step);
             }
         }
@@ -322,8 +327,8 @@ public final class BoosterPump {
         }
 
         /**
-         * For each demand step, the seconds until the pressure is back within ±0.04 bar of the setpoint
-         * for good (up to the next step); NaN when it is not back by then.
+         * For each demand step within the run, the seconds until the pressure is back within ±0.04 bar
+         * of the setpoint for good (up to the next step or the end); NaN when it is not back by then.
          */
         public double[] recoverySeconds() {
             return recoverySeconds.clone();

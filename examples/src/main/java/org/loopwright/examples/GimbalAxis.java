@@ -80,7 +80,7 @@ public final class GimbalAxis {
 
     /** Runs the axis in real time for the default duration, or the seconds given as the first argument. */
     public static void main(String[] args) throws InterruptedException {
-        double duration = args.length > 0 ? Double.parseDouble(args[0]) : DEFAULT_DURATION_SECONDS;
+        double duration = DurationArgument.seconds(args, DEFAULT_DURATION_SECONDS);
         run(duration, LoopClock.SYSTEM, System.out);
     }
 

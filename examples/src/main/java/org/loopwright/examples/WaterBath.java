@@ -92,7 +92,7 @@ public final class WaterBath {
      * first argument, and prints what happens.
      */
     public static void main(String[] args) {
-        double duration = args.length > 0 ? Double.parseDouble(args[0]) : DEFAULT_DURATION_SECONDS;
+        double duration = DurationArgument.seconds(args, DEFAULT_DURATION_SECONDS);
         run(duration, System.out);
     }
 

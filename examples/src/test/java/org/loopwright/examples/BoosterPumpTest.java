@@ -113,6 +113,15 @@ class BoosterPumpTest {
         }
     }
 
+    @Test
+    void shorterRunJudgesOnlyTheStepsItContains() {
+        BoosterPump.Outcome shortRun = BoosterPump.run(45.0, new PrintStream(PrintStream.nullOutputStream()));
+        assertThat(shortRun.feedbackOnly().timeSeconds()).hasSize(451);
+        assertThat(shortRun.feedbackOnly().recoverySeconds()).hasSize(1);
+        assertThat(shortRun.withFeedforward().recoverySeconds()).hasSize(1);
+        assertThat(shortRun.feedbackOnly().iaeBarSeconds()).isCloseTo(shortRun.harnessIaeBarSeconds(), within(1e-9));
+    }
+
     static Stream<Arguments> badDurations() {
         return Stream.of(
                 Arguments.of(30.0, "duration must be finite and > 30.05 (the first demand step): duration=30.0"),
