@@ -1,5 +1,7 @@
 package org.loopwright.examples;
 
+import java.util.Arrays;
+
 import org.HdrHistogram.Histogram;
 import org.loopwright.pid.runner.LoopClock;
 import org.loopwright.pid.runner.LoopRunner;
@@ -145,11 +147,6 @@ final class SimulatedGimbal implements SetpointSource, MeasurementSource, Output
         return degrees - 360.0 * Math.floor(degrees / 360.0);
     }
 
-    /** The encoder reading with the shaft at rest, before any tick. */
-    double restingReading() {
-        return wrap(mountingOffsetDegrees);
-    }
-
     Histogram periodErrorNanos() {
         return periodErrorNanos;
     }
@@ -159,22 +156,22 @@ final class SimulatedGimbal implements SetpointSource, MeasurementSource, Output
     }
 
     double[] timeSeconds() {
-        return java.util.Arrays.copyOf(timeSeconds, samples);
+        return Arrays.copyOf(timeSeconds, samples);
     }
 
     double[] setpointDegrees() {
-        return java.util.Arrays.copyOf(setpointDegrees, samples);
+        return Arrays.copyOf(setpointDegrees, samples);
     }
 
     double[] encoderDegrees() {
-        return java.util.Arrays.copyOf(encoderDegrees, samples);
+        return Arrays.copyOf(encoderDegrees, samples);
     }
 
     double[] shaftDegreesLog() {
-        return java.util.Arrays.copyOf(shaftDegrees, samples);
+        return Arrays.copyOf(shaftDegrees, samples);
     }
 
     double[] volts() {
-        return java.util.Arrays.copyOf(voltsLog, samples);
+        return Arrays.copyOf(voltsLog, samples);
     }
 }

@@ -7,6 +7,7 @@ import static org.assertj.core.api.Assertions.within;
 import java.io.ByteArrayOutputStream;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
+import java.util.Locale;
 import java.util.stream.Stream;
 
 import org.junit.jupiter.api.BeforeAll;
@@ -49,7 +50,7 @@ class BoosterPumpTest {
             assertThat(drive[k]).as("drive at sample %d", k).isCloseTo(harness.output(k), within(1e-10));
         }
         assertThat(outcome.feedbackOnly().iaeBarSeconds()).isCloseTo(outcome.harnessIaeBarSeconds(), within(1e-9));
-        assertThat(printed).contains(String.format(java.util.Locale.ROOT, "measures IAE %.4f bar·s",
+        assertThat(printed).contains(String.format(Locale.ROOT, "measures IAE %.4f bar·s",
                 outcome.harnessIaeBarSeconds()));
     }
 
