@@ -9,5 +9,6 @@ module org.loopwright.pid {
     exports org.loopwright.pid.form;
     exports org.loopwright.pid.discrete;
     exports org.loopwright.pid.onoff;
+    exports org.loopwright.pid.runner;
     exports org.loopwright.pid.tuning;
 }

@@ -1,0 +1,110 @@
+package org.loopwright.bench.suite;
+
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.Collection;
+import java.util.List;
+import java.util.concurrent.Callable;
+import java.util.stream.Collectors;
+
+import org.loopwright.bench.timing.TimingResult;
+import org.openjdk.jmh.infra.BenchmarkParams;
+import org.openjdk.jmh.profile.GCProfiler;
+import org.openjdk.jmh.results.Result;
+import org.openjdk.jmh.results.RunResult;
+import org.openjdk.jmh.runner.Runner;
+import org.openjdk.jmh.runner.RunnerException;
+import org.openjdk.jmh.runner.options.ChainedOptionsBuilder;
+import org.openjdk.jmh.runner.options.OptionsBuilder;
+import org.openjdk.jmh.runner.options.TimeValue;
+import org.openjdk.jmh.runner.options.VerboseMode;
+
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * The short benchmark suite in one command: every JMH benchmark (one fork, 2 × 1 s warm-up,
+ * 3 × 1 s measurement, GC profiler), then the loop timing at 1 kHz and 10 kHz for each loop, then
+ * the summary. About four minutes on two cores. The JMH runner itself stays available as
+ * {@code java -cp <jar> org.openjdk.jmh.Main}.
+ */
+@Command(name = "loopwright-bench", mixinStandardHelpOptions = true,
+        description = "Runs the benchmark suite and writes summary.md and summary.json.")
+public final class BenchmarkSuite implements Callable<Integer> {
+
+    @Spec
+    private CommandSpec spec;
+
+    @Option(names = "--output-dir", paramLabel = "DIR", defaultValue = "bench-results",
+            description = "Where summary.md and summary.json go (default: ${DEFAULT-VALUE}).")
+    private Path outputDirectory;
+
+    @Option(names = "--timing-seconds", paramLabel = "SECONDS", defaultValue = "3",
+            description = "How long each loop-timing run lasts (default: ${DEFAULT-VALUE}).")
+    private double timingSeconds;
+
+    @Option(names = "--smoke", description = "One very short in-process iteration of everything: checks that it runs.")
+    private boolean smoke;
+
+    @Option(names = "--command-text", paramLabel = "TEXT", defaultValue = "pid-bench/run-suite.sh", hidden = true,
+            description = "The command recorded in the summary.")
+    private String commandText;
+
+    /** Runs the suite from the command line. */
+    public static void main(String[] args) {
+        System.exit(new CommandLine(new BenchmarkSuite()).execute(args));
+    }
+
+    @Override
+    public Integer call() throws RunnerException, InterruptedException, java.io.IOException {
+        if (!(timingSeconds > 0.0) || !Double.isFinite(timingSeconds)) {
+            throw new CommandLine.ParameterException(spec.commandLine(),
+                    "--timing-seconds must be finite and > 0: --timing-seconds=" + timingSeconds);
+        }
+        Machine machine = Machine.now();
+        List<JmhFigure> figures = runJmh();
+        List<TimingResult> timings = runTiming();
+        SuiteSummary summary = SuiteSummary.of(commandText, smoke ? "smoke" : "full", machine.ended(), figures, timings);
+        Path markdown = SummaryWriter.write(summary, outputDirectory);
+        System.out.println(SummaryWriter.markdown(summary));
+        System.out.println("written: " + markdown + " and summary.json");
+        return 0;
+    }
+
+    private List<JmhFigure> runJmh() throws RunnerException {
+        ChainedOptionsBuilder options = new OptionsBuilder().include("org\\.loopwright\\.bench\\..*Benchmark\\..*")
+                .shouldFailOnError(true);
+        if (smoke) {
+            options.forks(0).warmupIterations(0).measurementIterations(1)
+                    .measurementTime(TimeValue.milliseconds(20)).verbosity(VerboseMode.SILENT);
+        } else {
+            options.forks(1).warmupIterations(2).warmupTime(TimeValue.seconds(1)).measurementIterations(3)
+                    .measurementTime(TimeValue.seconds(1)).addProfiler(GCProfiler.class);
+        }
+        Collection<RunResult> results = new Runner(options.build()).run();
+        return results.stream().map(BenchmarkSuite::figure).collect(Collectors.toList());
+    }
+
+    static JmhFigure figure(RunResult run) {
+        BenchmarkParams params = run.getParams();
+        String benchmark = params.getBenchmark();
+        String[] parts = benchmark.split("\\.");
+        String name = parts[parts.length - 2] + "." + parts[parts.length - 1];
+        if (!params.getParamsKeys().isEmpty()) {
+            name += params.getParamsKeys().stream().map(k -> k + "=" + params.getParam(k))
+                    .collect(Collectors.joining(",", "[", "]"));
+        }
+        Result<?> primary = run.getPrimaryResult();
+        Result<?> allocation = run.getSecondaryResults().get("gc.alloc.rate.norm");
+        return new JmhFigure(name, primary.getScore(), primary.getScoreError(),
+                allocation == null ? Double.NaN : allocation.getScore());
+    }
+
+    private List<TimingResult> runTiming() throws InterruptedException {
+        Duration each = smoke ? Duration.ofMillis(100) : Duration.ofNanos((long) (timingSeconds * 1e9));
+        return LoopTimingProgram.measureAll(each, !smoke);
+    }
+}

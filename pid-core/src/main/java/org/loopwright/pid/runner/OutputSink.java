@@ -1,0 +1,13 @@
+package org.loopwright.pid.runner;
+
+/**
+ * Writes the controller output to the actuator once per tick, on the loop thread (for example the
+ * heater's duty cycle). An exception counts as a failed tick. Must not allocate; should return well
+ * within the period.
+ */
+@FunctionalInterface
+public interface OutputSink {
+
+    /** Applies the output (or increment, for incremental controllers) of this tick. */
+    void writeOutput(double output);
+}

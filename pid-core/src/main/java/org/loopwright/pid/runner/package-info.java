@@ -1,0 +1,10 @@
+/**
+ * The fixed-rate loop runner: {@link org.loopwright.pid.runner.LoopRunner} reads the measurement,
+ * updates a {@link org.loopwright.pid.PidController} and writes the output on a thread of its own,
+ * at absolute deadlines (start + k·h, so the schedule never drifts). How it waits, what it does after
+ * an overrun and how many failed callbacks it tolerates are set in
+ * {@link org.loopwright.pid.runner.RunnerSettings}. Per-tick timing reaches a
+ * {@link org.loopwright.pid.runner.TimingListener} as primitives, so a histogram can be attached
+ * without allocation.
+ */
+package org.loopwright.pid.runner;
