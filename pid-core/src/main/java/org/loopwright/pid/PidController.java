@@ -133,7 +133,7 @@ public final class PidController {
             bd = hasDerivative ? method.gain(s.derivativeGain, h, s.filterTimeSeconds) : 0.0;
         }
 
-        double rampedSetpoint = started ? slew(previousSetpoint, r, s.setpointSlewPerSecond() * h) : r;
+        double rampedSetpoint = started ? slew(s, previousSetpoint, r, s.setpointSlewPerSecond() * h) : r;
         double error = errorOf(s, rampedSetpoint, y);
         double proportional = s.proportionalGain * proportionalInput(s, rampedSetpoint, y, error);
         double uff = feedforwardOn ? feedforward : 0.0;
@@ -150,7 +150,7 @@ public final class PidController {
         double increment = 0.0;
         double next = integral;
         if (started) {
-            double derivativeInputChange = s.sign * (s.derivativeSetpointWeight() * (rampedSetpoint - previousSetpoint)
+            double derivativeInputChange = s.sign * (s.derivativeSetpointWeight() * wrap(s, rampedSetpoint - previousSetpoint)
                     - wrap(s, y - previousMeasurement));
             derivative = ad * derivativeState + bd * derivativeInputChange;
             increment = b0 * error + b1 * previousError;
@@ -316,8 +316,10 @@ public final class PidController {
         return error < -band ? error + band : 0.0;
     }
 
-    private static double slew(double from, double to, double maxStep) {
-        return clamp(to, from - maxStep, from + maxStep);
+    /** Moves from towards to by at most maxStep, the short way round on a circular process variable. */
+    private static double slew(ControllerSettings s, double from, double to, double maxStep) {
+        double distance = wrap(s, to - from);
+        return Math.abs(distance) <= maxStep ? to : from + Math.copySign(maxStep, distance);
     }
 
     private static double clamp(double value, double lo, double hi) {

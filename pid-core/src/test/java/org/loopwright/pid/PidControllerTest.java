@@ -211,6 +211,18 @@ class PidControllerTest {
     }
 
     @Test
+    void setpointSlewTakesTheShortWayRoundOnACircularProcessVariable() {
+        // 10°/s at h = 0.1 s: a setpoint move from 350° to 10° is +20° through 0°, reached in 20 samples
+        PidController c = new PidController(proportional(1.0).wrapSpan(360.0).setpointSlewPerSecond(10.0).build());
+        c.update(350.0, 350.0);
+        for (int k = 1; k <= 20; k++) {
+            // the law sees the setpoint 350° + k°, the error k° (never the long way, −k°)
+            assertThat(c.update(10.0, 350.0)).isCloseTo(k, within(1e-9));
+        }
+        assertThat(c.update(10.0, 350.0)).isCloseTo(20.0, within(1e-9));
+    }
+
+    @Test
     void outputSlewLimitsEveryMoveAndCountsAsALimitForTheIntegral() {
         // 2 units/s at h = 0.1 s: at most 0.2 per sample; the unlimited PI would jump to 10
         ControllerSettings s = ControllerSettings.builder().gains(IdealGains.pi(10.0, 1.0)).samplePeriodSeconds(0.1)
