@@ -23,7 +23,7 @@ class AutotuneCommandTest {
 
     @Test
     void findsTheUltimatePointOfAThirdOrderLagScenarioAndVerifiesTheSuggestions() throws Exception {
-        CommandRun run = CommandRun.of("autotune", resource("third-order-lag.yaml"), "--json");
+        CommandRun run = CommandRun.of("autotune", resource("/scenarios/third-order-lag.yaml"), "--json");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode node = JSON.readTree(run.out());
@@ -56,7 +56,7 @@ class AutotuneCommandTest {
 
     @Test
     void anAbortedExperimentIsReportedWithItsReason() throws Exception {
-        CommandRun run = CommandRun.of("autotune", resource("third-order-lag.yaml"), "--excursion-limit", "0.05");
+        CommandRun run = CommandRun.of("autotune", resource("/scenarios/third-order-lag.yaml"), "--excursion-limit", "0.05");
 
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
         assertThat(run.err()).startsWith("relay experiment aborted_excursion: aborted: the process variable left the"
