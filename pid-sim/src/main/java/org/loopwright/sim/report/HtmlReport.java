@@ -1,0 +1,151 @@
+package org.loopwright.sim.report;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * A self-contained report page, {@value #FILE_NAME}: the title, the tool's version, the safety caution,
+ * tables, the plots inlined as SVG, and the scenario's text. No scripts and no external files, so the
+ * page can be mailed or archived alone. Written as well-formed XHTML (served as HTML5), so any XML
+ * parser reads it.
+ *
+ * <p>The SVG files are XChart's: their XML prolog is dropped and their element ids are prefixed per
+ * figure, so the clip paths of one plot do not capture another's.
+ *
+ * <p>Example: {@code HtmlReport.write(dir.resolve("report.html"), "Water bath", "loopwright 0.1.0",
+ * List.of("Step response of the demo."), List.of(table), List.of(dir.resolve("response.svg")), "water-bath.yaml",
+ * scenarioText);}
+ */
+public final class HtmlReport {
+
+    /** The report's file name. */
+    public static final String FILE_NAME = "report.html";
+
+    /** The safety caution every report carries (the README's, in short). */
+    public static final String SAFETY_CAUTION = "Loopwright is not a safety-rated component and must never be the"
+            + " only thing standing between a fault and harm. Keep independent hardware interlocks"
+            + " (over-temperature cut-outs, pressure relief, limit switches, emergency stops). Try every setting"
+            + " in simulation first, then on the real plant at reduced power or range, with someone watching."
+            + " Local codes, standards and licensed practice take precedence over anything here.";
+
+    private static final String STYLE = """
+            body{font-family:sans-serif;max-width:64em;margin:1em auto;padding:0 1em;color:#222;line-height:1.4}
+            h1{font-size:1.5em}h2{font-size:1.2em;margin-top:1.5em}
+            .caution{border:2px solid #b00;background:#fff4f4;padding:.5em 1em}
+            table{border-collapse:collapse;margin:.5em 0;font-size:.9em}
+            caption{text-align:left;font-weight:bold;padding:.3em 0}
+            th,td{border:1px solid #bbb;padding:.2em .5em;text-align:right}
+            th:first-child,td:first-child{text-align:left}
+            thead th{background:#eee}
+            figure{margin:1em 0}figure svg{max-width:100%;height:auto}
+            pre{background:#f6f6f6;padding:.5em;overflow-x:auto}
+            """;
+
+    private HtmlReport() {
+    }
+
+    /**
+     * Writes the page.
+     *
+     * @param file         where to write it (replaced if it exists)
+     * @param title        the page's title
+     * @param version      the tool's version, e.g. "loopwright 0.1.0"
+     * @param paragraphs   short paragraphs of plain text under the title
+     * @param tables       the tables, in order
+     * @param figures      SVG files to inline, in order
+     * @param scenarioName the scenario's name (its file name)
+     * @param scenarioText the scenario's text as read
+     * @return the file
+     */
+    public static Path write(Path file, String title, String version, List<String> paragraphs, List<HtmlTable> tables,
+            List<Path> figures, String scenarioName, String scenarioText) throws IOException {
+        List<String> svgs = new ArrayList<>();
+        for (Path figure : figures) {
+            svgs.add(Files.readString(figure, StandardCharsets.UTF_8));
+        }
+        Files.writeString(file, page(title, version, paragraphs, tables, svgs, scenarioName, scenarioText),
+                StandardCharsets.UTF_8);
+        return file;
+    }
+
+    /** The page's text, with the SVG documents given as text. */
+    public static String page(String title, String version, List<String> paragraphs, List<HtmlTable> tables,
+            List<String> svgDocuments, String scenarioName, String scenarioText) {
+        StringBuilder html = new StringBuilder(64 * 1024);
+        html.append("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n")
+                .append("<meta charset=\"utf-8\"/>\n<title>").append(escape(title)).append("</title>\n<style>")
+                .append(STYLE).append("</style>\n</head>\n<body>\n<h1>").append(escape(title)).append("</h1>\n")
+                .append("<p class=\"version\">Made by ").append(escape(version)).append(".</p>\n")
+                .append("<p class=\"caution\"><strong>Safety.</strong> ").append(escape(SAFETY_CAUTION))
+                .append("</p>\n");
+        for (String paragraph : paragraphs) {
+            html.append("<p>").append(escape(paragraph)).append("</p>\n");
+        }
+        for (HtmlTable table : tables) {
+            table(html, table);
+        }
+        if (!svgDocuments.isEmpty()) {
+            html.append("<h2>Plots</h2>\n");
+        }
+        for (int i = 0; i < svgDocuments.size(); i++) {
+            html.append("<figure>\n").append(inlineSvg(svgDocuments.get(i), "f" + (i + 1) + "-")).append("\n</figure>\n");
+        }
+        html.append("<h2>Scenario <code>").append(escape(Objects.requireNonNull(scenarioName))).append("</code></h2>\n")
+                .append("<pre>").append(escape(scenarioText)).append("</pre>\n</body>\n</html>\n");
+        return html.toString();
+    }
+
+    private static void table(StringBuilder html, HtmlTable table) {
+        html.append("<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
+        for (String name : table.header()) {
+            html.append("<th scope=\"col\">").append(escape(name)).append("</th>");
+        }
+        html.append("</tr></thead>\n<tbody>\n");
+        for (List<String> row : table.rows()) {
+            html.append("<tr>");
+            for (String cell : row) {
+                html.append("<td>").append(escape(cell)).append("</td>");
+            }
+            html.append("</tr>\n");
+        }
+        html.append("</tbody>\n</table>\n");
+    }
+
+    /**
+     * The {@code <svg>} element of an SVG document, without the prolog or doctype before it, its ids
+     * and the references to them prefixed.
+     */
+    static String inlineSvg(String document, String idPrefix) {
+        int start = document.indexOf("<svg");
+        if (start < 0) {
+            throw new IllegalArgumentException("an SVG document must contain an <svg> element: document starts "
+                    + document.substring(0, Math.min(40, document.length())));
+        }
+        return document.substring(start).strip()
+                .replace(" id=\"", " id=\"" + idPrefix)
+                .replace("url(#", "url(#" + idPrefix)
+                .replace("href=\"#", "href=\"#" + idPrefix);
+    }
+
+    /** Text with the five XML special characters escaped. */
+    public static String escape(String text) {
+        StringBuilder out = new StringBuilder(text.length() + 16);
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            switch (c) {
+                case '&' -> out.append("&amp;");
+                case '<' -> out.append("&lt;");
+                case '>' -> out.append("&gt;");
+                case '"' -> out.append("&quot;");
+                case '\'' -> out.append("&#39;");
+                default -> out.append(c);
+            }
+        }
+        return out.toString();
+    }
+}

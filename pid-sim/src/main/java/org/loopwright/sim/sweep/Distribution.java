@@ -1,0 +1,39 @@
+package org.loopwright.sim.sweep;
+
+import java.util.Arrays;
+
+/**
+ * The spread of one figure over the runs where it has a value (NaN values, figures that do not
+ * apply, are left out and not counted). Percentiles interpolate linearly between order statistics:
+ * with the n values sorted x₀ ≤ … ≤ x₍ₙ₋₁₎, the p-th percentile is x at the fractional rank
+ * (n − 1)·p/100 (Hyndman &amp; Fan 1996, definition 7, the default of R and NumPy); the median is the 50th.
+ *
+ * @param count  the number of runs with a value
+ * @param min    the smallest value (NaN when count is 0)
+ * @param median the median
+ * @param p90    the 90th percentile
+ * @param max    the largest value
+ */
+public record Distribution(int count, double min, double median, double p90, double max) {
+
+    /** The distribution of the non-NaN values (infinite ones count, and sort to the ends). */
+    public static Distribution of(double[] values) {
+        double[] sorted = Arrays.stream(values).filter(v -> !Double.isNaN(v)).sorted().toArray();
+        if (sorted.length == 0) {
+            return new Distribution(0, Double.NaN, Double.NaN, Double.NaN, Double.NaN);
+        }
+        return new Distribution(sorted.length, sorted[0], percentile(sorted, 50.0), percentile(sorted, 90.0),
+                sorted[sorted.length - 1]);
+    }
+
+    /** The p-th percentile (0 ≤ p ≤ 100) of sorted values, interpolated linearly. */
+    static double percentile(double[] sorted, double p) {
+        double rank = (sorted.length - 1) * p / 100.0;
+        int below = (int) Math.floor(rank);
+        if (below + 1 >= sorted.length) {
+            return sorted[sorted.length - 1];
+        }
+        double fraction = rank - below;
+        return fraction == 0.0 ? sorted[below] : sorted[below] + fraction * (sorted[below + 1] - sorted[below]);
+    }
+}

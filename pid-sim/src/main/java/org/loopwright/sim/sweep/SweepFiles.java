@@ -1,0 +1,149 @@
+package org.loopwright.sim.sweep;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.io.IOException;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.stream.Collectors;
+
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVPrinter;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYSeries;
+import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.report.ResponsePlot;
+
+/**
+ * A sweep's files: {@value #CSV} with one row per run (Commons CSV) and {@value #PLOT_NAME}.png/.svg
+ * with every run's measurement overlaid, the nominal run in black (XChart). The CSV's columns are
+ * {@link #HEADER}: the run's index, its three factors, the plant simulated (coefficients in descending
+ * powers of s, separated by spaces; dead time in seconds), the stability verdict
+ * ({@code stable}, {@code unstable}, {@code not-assessed}), the largest closed-loop pole magnitude,
+ * and the response figures (seconds, percent, process units; empty where a figure does not apply).
+ */
+public final class SweepFiles {
+
+    /** The CSV file's name. */
+    public static final String CSV = "sweep-runs.csv";
+    /** The plot's base name. */
+    public static final String PLOT_NAME = "sweep-measurements";
+    /** The CSV's header, in column order. */
+    public static final List<String> HEADER = List.of("run", "gain_factor", "time_constant_factor",
+            "dead_time_factor", "numerator", "denominator", "dead_time", "stability", "largest_pole_magnitude",
+            "rise_time", "settling_time", "overshoot_percent", "steady_state_error", "iae", "saturated_fraction");
+
+    private static final Color RUN_COLOUR = new Color(31, 119, 180, 70);
+    private static final Color UNSTABLE_COLOUR = new Color(214, 39, 40, 110);
+    /** Unstable runs are clipped to the stable runs' range widened by this share of it. */
+    private static final double CLIP_MARGIN = 0.25;
+
+    private SweepFiles() {
+    }
+
+    /**
+     * Writes the CSV and the plot into {@code directory} (created if missing).
+     *
+     * @return the files written
+     */
+    public static List<Path> write(SweepResult result, Path directory, String title) throws IOException {
+        Files.createDirectories(directory);
+        Path csv = directory.resolve(CSV);
+        writeCsv(result, csv);
+        System.setProperty("java.awt.headless", "true");
+        ResponsePlot.save(plot(result, title), directory, PLOT_NAME);
+        return List.of(csv, directory.resolve(PLOT_NAME + ".png"), directory.resolve(PLOT_NAME + ".svg"));
+    }
+
+    /** Writes one row per run. */
+    public static void writeCsv(SweepResult result, Path file) throws IOException {
+        try (Writer out = Files.newBufferedWriter(file, StandardCharsets.UTF_8);
+                CSVPrinter csv = CSVFormat.DEFAULT.builder().setHeader(HEADER.toArray(String[]::new))
+                        .setRecordSeparator('\n').get().print(out)) {
+            for (SweepRun run : result.runs()) {
+                ResponseMetrics m = run.metrics();
+                csv.printRecord(run.index(), run.draw().gainFactor(), run.draw().timeConstantFactor(),
+                        run.draw().deadTimeFactor(), coefficients(run.plant().numerator()),
+                        coefficients(run.plant().denominator()), run.plant().deadTimeSeconds(),
+                        run.stability().name().toLowerCase(Locale.ROOT).replace('_', '-'),
+                        cell(run.largestPoleMagnitude()), cell(m.riseTimeSeconds()), cell(m.settlingTimeSeconds()),
+                        cell(m.overshootPercent()), cell(m.steadyStateError()), cell(m.iae()),
+                        cell(m.saturatedFraction()));
+            }
+        }
+    }
+
+    private static String coefficients(double[] values) {
+        return Arrays.stream(values).mapToObj(Double::toString).collect(Collectors.joining(" "));
+    }
+
+    private static String cell(double value) {
+        return Double.isNaN(value) ? "" : Double.toString(value);
+    }
+
+    /** Every run's measurement against time, the nominal run on top. */
+    public static XYChart plot(SweepResult result, String title) {
+        double low = Double.POSITIVE_INFINITY;
+        double high = Double.NEGATIVE_INFINITY;
+        boolean anyUnstable = false;
+        for (SweepRun run : plotted(result)) {
+            if (run.stability() == LoopStability.UNSTABLE) {
+                anyUnstable = true;
+                continue;
+            }
+            for (double y : run.plotMeasurements()) {
+                if (Double.isFinite(y)) {
+                    low = Math.min(low, y);
+                    high = Math.max(high, y);
+                }
+            }
+        }
+        boolean clip = anyUnstable && low < high;
+        double margin = CLIP_MARGIN * (high - low);
+        XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
+                + (clip ? " (unstable runs in red, clipped)" : ""), "time (s)", "measurement");
+        for (SweepRun run : result.runs()) {
+            XYSeries series = add(chart, "run " + run.index(), run, clip, low - margin, high + margin);
+            if (series != null) {
+                series.setLineColor(run.stability() == LoopStability.UNSTABLE ? UNSTABLE_COLOUR : RUN_COLOUR);
+                series.setLineWidth(1.0f);
+                series.setShowInLegend(false);
+            }
+        }
+        XYSeries nominal = add(chart, "nominal plant", result.nominal(), clip, low - margin, high + margin);
+        if (nominal != null) {
+            nominal.setLineColor(Color.BLACK);
+            nominal.setLineStyle(new BasicStroke(2.0f));
+        }
+        chart.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideSE);
+        return chart;
+    }
+
+    private static List<SweepRun> plotted(SweepResult result) {
+        List<SweepRun> all = new ArrayList<>(result.runs());
+        all.add(result.nominal());
+        return all;
+    }
+
+    private static XYSeries add(XYChart chart, String name, SweepRun run, boolean clip, double low, double high) {
+        double[] t = run.plotTimes();
+        double[] y = run.plotMeasurements();
+        List<Double> times = new ArrayList<>();
+        List<Double> values = new ArrayList<>();
+        for (int i = 0; i < t.length; i++) {
+            double v = y[i];
+            if (Double.isNaN(v) || !clip && Double.isInfinite(v)) {
+                continue; // a dropout, or a diverged run with nothing stable to clip it to
+            }
+            times.add(t[i]);
+            values.add(clip ? Math.max(low, Math.min(high, v)) : v);
+        }
+        return times.isEmpty() ? null : ResponsePlot.line(chart, name, times, values, 0);
+    }
+}

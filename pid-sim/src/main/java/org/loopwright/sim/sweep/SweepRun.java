@@ -1,0 +1,47 @@
+package org.loopwright.sim.sweep;
+
+import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.plant.TransferFunction;
+
+/**
+ * One run of a sweep: the plant it drew, its response figures, its stability verdict, and its
+ * measurement thinned for plotting.
+ *
+ * @param index                the run's number, from 0 (its random stream is derived from it)
+ * @param draw                 the factors applied to the nominal plant
+ * @param plant                the plant simulated
+ * @param metrics              the response figures over the scenario's response window
+ * @param stability            the stability verdict
+ * @param largestPoleMagnitude the largest closed-loop pole magnitude of the sampled loop (NaN when not computed)
+ * @param plotTimes            sample instants of the thinned measurement, seconds
+ * @param plotMeasurements     the measurement y(k) at those instants (NaN for a dropout)
+ */
+public record SweepRun(int index, PlantDraw draw, TransferFunction plant, ResponseMetrics metrics,
+        LoopStability stability, double largestPoleMagnitude, double[] plotTimes, double[] plotMeasurements) {
+
+    /** Copies the arrays. */
+    public SweepRun {
+        plotTimes = plotTimes.clone();
+        plotMeasurements = plotMeasurements.clone();
+    }
+
+    /** Whether the response settled within the 2 % band (false also when the step figures do not apply). */
+    public boolean settled() {
+        return Double.isFinite(metrics.settlingTimeSeconds());
+    }
+
+    /** Whether the step figures apply (the response moved in the window). */
+    public boolean stepFiguresApply() {
+        return Double.isFinite(metrics.overshootPercent());
+    }
+
+    @Override
+    public double[] plotTimes() {
+        return plotTimes.clone();
+    }
+
+    @Override
+    public double[] plotMeasurements() {
+        return plotMeasurements.clone();
+    }
+}
