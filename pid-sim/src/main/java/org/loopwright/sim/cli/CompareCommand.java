@@ -2,7 +2,9 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -28,7 +30,8 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code compare SCENARIO.yaml [--periods 0.1,0.5,1.0] [--out DIR] [--json]}: the discretisation
- * study of {@link DiscretisationStudy} as a table (or a JSON array of rows), with its plots in DIR.
+ * study of {@link DiscretisationStudy} as a table (or a JSON array of rows), with its plots and
+ * {@code report.html} in DIR.
  * Without {@code --periods} the periods are chosen from the continuous crossover ω_c so that ω_c·h is
  * 0.02, 0.1, 0.3 and 1 (see {@link DiscretisationStudy#defaultPeriods(double)}). Exit code 2 for a bad
  * file, a nonlinear plant, an on-off controller, a bad period or an unwritable DIR.
@@ -49,7 +52,8 @@ public final class CompareCommand implements Callable<Integer> {
             description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
     private List<Double> periods;
 
-    @Option(names = "--out", paramLabel = "DIR", description = "Write the plots (PNG and SVG) into this directory.")
+    @Option(names = "--out", paramLabel = "DIR",
+            description = "Write the plots (PNG and SVG) and report.html into this directory.")
     private Path outDirectory;
 
     @Option(names = "--json", description = "Print a JSON array of rows instead of the table.")
@@ -81,11 +85,14 @@ public final class CompareCommand implements Callable<Integer> {
             if (outDirectory != null) {
                 List<Path> written;
                 try {
-                    written = StudyPlots.write(result, outDirectory);
+                    written = new ArrayList<>(StudyPlots.write(result, outDirectory));
+                    written.add(HtmlReports.compare(spec, outDirectory, String.valueOf(scenarioFile.getFileName()),
+                            result, written, String.valueOf(scenarioFile.getFileName()),
+                            Files.readString(scenarioFile)));
                 } catch (IOException e) {
                     throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
                 }
-                (json ? err : out).println("Wrote " + written.size() + " plot files to " + outDirectory);
+                (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files and report.html to " + outDirectory);
             }
             out.flush();
             err.flush();

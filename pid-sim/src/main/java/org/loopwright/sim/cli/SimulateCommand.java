@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 
@@ -27,13 +28,13 @@ import picocli.CommandLine.Model.CommandSpec;
 
 /**
  * {@code simulate [SCENARIO.yaml] [--out DIR] [--json] [--show-demo]}: runs a closed-loop scenario, writes
- * {@code trajectory.csv}, {@code response.png} and {@code response.svg} into DIR, and prints the
+ * {@code trajectory.csv}, {@code response.png}, {@code response.svg} and {@code report.html} into DIR, and prints the
  * metrics as a table (or one JSON object with {@code --json}). Without a scenario it runs the
  * built-in water-bath demo and says so (on standard error, so that JSON output stays clean).
  */
 @Command(name = "simulate", mixinStandardHelpOptions = true,
         description = {"Simulate a controller on a plant model and report the response.",
-            "Writes trajectory.csv, response.png and response.svg; prints the metrics.",
+            "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
             "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention)."})
 public final class SimulateCommand implements Callable<Integer> {
 
@@ -88,6 +89,13 @@ public final class SimulateCommand implements Callable<Integer> {
         TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
         System.setProperty("java.awt.headless", "true");
         ResponsePlot.save(ResponsePlot.response(trajectory, title), outDirectory, "response");
+        String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
+                + " (the first setpoint change until the next change or load step); integrals to the end.",
+                trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
+                ResponseWindow.of(scenario).describe());
+        HtmlReports.simulate(spec, outDirectory, title, summary, metrics, cycle, outDirectory.resolve("response.svg"),
+                scenarioFile == null ? "built-in water-bath demo" : title,
+                scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
 
         if (json) {
             out.println(MetricsReport.jsonText(metrics, cycle));
@@ -97,7 +105,7 @@ public final class SimulateCommand implements Callable<Integer> {
             out.println("Step figures " + ResponseWindow.of(scenario).describe()
                     + " (the first setpoint change until the next change or load step); integrals to the end:");
             out.print(MetricsReport.table(metrics, cycle));
-            out.println("Wrote trajectory.csv, response.png and response.svg in " + outDirectory);
+            out.println("Wrote trajectory.csv, response.png, response.svg and report.html in " + outDirectory);
         }
         out.flush();
         return 0;

@@ -5,12 +5,14 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Base64;
 import java.util.List;
 import java.util.Objects;
 
 /**
  * A self-contained report page, {@value #FILE_NAME}: the title, the tool's version, the safety caution,
- * tables, the plots inlined as SVG, and the scenario's text. No scripts and no external files, so the
+ * tables, the plots inlined (SVG files as SVG elements, PNG files as data URIs, for plots whose SVG
+ * would be too large), and the scenario's text. No scripts and no external files, so the
  * page can be mailed or archived alone. Written as well-formed XHTML (served as HTML5), so any XML
  * parser reads it.
  *
@@ -42,7 +44,7 @@ public final class HtmlReport {
             th,td{border:1px solid #bbb;padding:.2em .5em;text-align:right}
             th:first-child,td:first-child{text-align:left}
             thead th{background:#eee}
-            figure{margin:1em 0}figure svg{max-width:100%;height:auto}
+            figure{margin:1em 0}figure svg,figure img{max-width:100%;height:auto}
             pre{background:#f6f6f6;padding:.5em;overflow-x:auto}
             """;
 
@@ -64,18 +66,25 @@ public final class HtmlReport {
      */
     public static Path write(Path file, String title, String version, List<String> paragraphs, List<HtmlTable> tables,
             List<Path> figures, String scenarioName, String scenarioText) throws IOException {
-        List<String> svgs = new ArrayList<>();
+        List<String> elements = new ArrayList<>();
         for (Path figure : figures) {
-            svgs.add(Files.readString(figure, StandardCharsets.UTF_8));
+            String name = String.valueOf(figure.getFileName());
+            if (name.endsWith(".png")) {
+                elements.add("<img alt=\"" + escape(name) + "\" src=\"data:image/png;base64,"
+                        + Base64.getEncoder().encodeToString(Files.readAllBytes(figure)) + "\"/>");
+            } else {
+                elements.add(inlineSvg(Files.readString(figure, StandardCharsets.UTF_8), "f" + (elements.size() + 1)
+                        + "-"));
+            }
         }
-        Files.writeString(file, page(title, version, paragraphs, tables, svgs, scenarioName, scenarioText),
+        Files.writeString(file, page(title, version, paragraphs, tables, elements, scenarioName, scenarioText),
                 StandardCharsets.UTF_8);
         return file;
     }
 
-    /** The page's text, with the SVG documents given as text. */
-    public static String page(String title, String version, List<String> paragraphs, List<HtmlTable> tables,
-            List<String> svgDocuments, String scenarioName, String scenarioText) {
+    /** The page's text, with the figures given as ready XHTML elements. */
+    static String page(String title, String version, List<String> paragraphs, List<HtmlTable> tables,
+            List<String> figureElements, String scenarioName, String scenarioText) {
         StringBuilder html = new StringBuilder(64 * 1024);
         html.append("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n")
                 .append("<meta charset=\"utf-8\"/>\n<title>").append(escape(title)).append("</title>\n<style>")
@@ -89,11 +98,11 @@ public final class HtmlReport {
         for (HtmlTable table : tables) {
             table(html, table);
         }
-        if (!svgDocuments.isEmpty()) {
+        if (!figureElements.isEmpty()) {
             html.append("<h2>Plots</h2>\n");
         }
-        for (int i = 0; i < svgDocuments.size(); i++) {
-            html.append("<figure>\n").append(inlineSvg(svgDocuments.get(i), "f" + (i + 1) + "-")).append("\n</figure>\n");
+        for (String element : figureElements) {
+            html.append("<figure>\n").append(element).append("\n</figure>\n");
         }
         html.append("<h2>Scenario <code>").append(escape(Objects.requireNonNull(scenarioName))).append("</code></h2>\n")
                 .append("<pre>").append(escape(scenarioText)).append("</pre>\n</body>\n</html>\n");

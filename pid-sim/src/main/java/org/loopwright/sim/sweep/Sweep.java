@@ -42,7 +42,7 @@ public final class Sweep {
     public static final int MAX_DELAY_PERIODS = 100;
 
     /** Each run's measurement is kept for the plot thinned to about this many points. */
-    public static final int PLOT_POINTS = 300;
+    public static final int PLOT_POINTS = 200;
 
     /** The index reported for the nominal run. */
     public static final int NOMINAL_INDEX = -1;

@@ -112,7 +112,7 @@ public final class SweepFiles {
             XYSeries series = add(chart, "run " + run.index(), run, clip, low - margin, high + margin);
             if (series != null) {
                 series.setLineColor(run.stability() == LoopStability.UNSTABLE ? UNSTABLE_COLOUR : RUN_COLOUR);
-                series.setLineWidth(1.0f);
+                series.setLineStyle(new BasicStroke(1.0f));
                 series.setShowInLegend(false);
             }
         }

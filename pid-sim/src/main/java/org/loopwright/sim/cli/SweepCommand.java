@@ -1,0 +1,292 @@
+package org.loopwright.sim.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+
+import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.plant.DcMotorModel;
+import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.TankModel;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.report.HtmlReport;
+import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.sweep.Distribution;
+import org.loopwright.sim.sweep.LoopStability;
+import org.loopwright.sim.sweep.Spread;
+import org.loopwright.sim.sweep.Sweep;
+import org.loopwright.sim.sweep.SweepFiles;
+import org.loopwright.sim.sweep.SweepResult;
+import org.loopwright.sim.sweep.SweepRun;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code sweep SCENARIO.yaml [--runs N] [--spread gain=20%,time-constant=10%,dead-time=30%] [--seed S]
+ * [--threads T] [--out DIR] [--json] [--no-progress]}: the scenario's closed loop on N plants drawn
+ * around its linear plant (each factor uniform within the spread, see {@link Spread}), on T threads;
+ * prints the distribution of overshoot, settling time, IAE and time in saturation (min, median, p90,
+ * max), the shares of unstable and unsettled runs and the worst run, and writes {@code sweep-runs.csv},
+ * {@code sweep-measurements.png/.svg} and {@code report.html} into DIR. The same seed gives the same
+ * result for any T. A progress bar goes to standard error only when there is a console, no
+ * {@code --json} and no {@code --no-progress}. Exit code 2 for a bad file, option or spread, or a
+ * nonlinear plant.
+ */
+@Command(name = "sweep", mixinStandardHelpOptions = true,
+        description = {"Simulate the scenario on many plants drawn around its own (gain, time constants and dead",
+            "time each scaled by a factor uniform within the spread) and report the spread of the response:",
+            "overshoot, settling time, IAE, time saturated (min, median, p90, max), unstable and unsettled",
+            "shares, the worst run. Writes sweep-runs.csv, sweep-measurements.png/.svg and report.html."})
+public final class SweepCommand implements Callable<Integer> {
+
+    /** The most runs one sweep may ask for (each keeps its figures and a thinned measurement). */
+    public static final int MAX_RUNS = 10_000;
+    /** The most threads one sweep may ask for. */
+    public static final int MAX_THREADS = 256;
+
+    @Spec
+    private CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario file (linear plant).")
+    private Path scenarioFile;
+
+    @Option(names = "--runs", paramLabel = "N", defaultValue = "100",
+            description = "How many plants to draw (1 to " + MAX_RUNS + "; default: ${DEFAULT-VALUE}).")
+    private int runs;
+
+    @Option(names = "--spread", paramLabel = "KEY=P%[,KEY=P%...]",
+            defaultValue = "gain=20%,time-constant=20%,dead-time=20%",
+            description = {"How far each parameter strays, keys gain, time-constant, dead-time, each 0% to below",
+                "100%; the factor is uniform on [1-P, 1+P]; keys left out do not vary (default: ${DEFAULT-VALUE})."})
+    private String spreadText;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1",
+            description = "Seed of the plant draws; run i's plant depends only on S and i (default: ${DEFAULT-VALUE}).")
+    private long seed;
+
+    @Option(names = "--threads", paramLabel = "T",
+            description = "Threads to run on (default: the number of processors).")
+    private Integer threads;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
+            description = "Directory for sweep-runs.csv, the plot and report.html (default: ${DEFAULT-VALUE}).")
+    private Path outDirectory;
+
+    @Option(names = "--json", description = "Print the summary as one JSON object instead of a table (no progress bar).")
+    private boolean json;
+
+    @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
+    private boolean noProgress;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        Scenario scenario;
+        Spread spread;
+        int threadCount = threads != null ? threads : Runtime.getRuntime().availableProcessors();
+        try {
+            if (runs < 1 || runs > MAX_RUNS) {
+                throw new IllegalArgumentException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
+            }
+            if (threadCount < 1 || threadCount > MAX_THREADS) {
+                throw new IllegalArgumentException("--threads must be from 1 to " + MAX_THREADS + ": --threads="
+                        + threadCount);
+            }
+            spread = Spread.parse(spreadText);
+            scenario = ScenarioFile.read(scenarioFile);
+            if (scenario.linearPlant().isEmpty()) {
+                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
+                        + LinearLoopFile.LINEAR_TYPES + "): plant.type=" + type(scenario.plant()));
+            }
+        } catch (InputFileException | IllegalArgumentException e) {
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
+        }
+        SweepResult result;
+        try (SweepProgress progress = !json && !noProgress && System.console() != null
+                ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
+            result = new Sweep(scenario, spread, seed).run(runs, threadCount, progress);
+        }
+        String title = String.valueOf(scenarioFile.getFileName());
+        List<Path> written;
+        try {
+            written = new ArrayList<>(SweepFiles.write(result, outDirectory, title));
+            written.add(HtmlReport.write(outDirectory.resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
+                    HtmlReports.version(spec), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
+                    List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
+        } catch (IOException e) {
+            err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)
+                    .getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
+        }
+        if (json) {
+            out.println(Json.pretty(json(result, threadCount)));
+        } else {
+            out.println(header(result, threadCount));
+            out.print(text(table(result)));
+            out.println(describe("worst run", result.worst()));
+            out.println(describe("nominal plant", result.nominal()));
+            out.println("Wrote " + written.stream().map(p -> String.valueOf(p.getFileName())).toList() + " in "
+                    + outDirectory);
+        }
+        out.flush();
+        return 0;
+    }
+
+    private static String type(PlantModel plant) {
+        if (plant instanceof DcMotorModel) {
+            return "dc-motor";
+        }
+        return plant instanceof TankModel ? "tank" : "thermal-zone";
+    }
+
+    private static String header(SweepResult result, int threadCount) {
+        int n = result.runs().size();
+        long unstable = count(result, LoopStability.UNSTABLE);
+        long notAssessed = count(result, LoopStability.NOT_ASSESSED);
+        double notSettled = result.notSettledShare();
+        return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; each plant factor uniform within %s"
+                + " of the nominal.%nunstable: %s (%d of %d, from the closed-loop poles of the sampled linear loop"
+                + " or a diverging simulation)%s; never settled (2 %% band): %s of the runs whose response moved.",
+                n, result.seed(), threadCount, result.spread().text().replace("=", " ±").replace(",", ", "),
+                percent(result.unstableShare()), unstable, n,
+                notAssessed == 0 ? "" : String.format(Locale.ROOT, "; stability not assessed for %d", notAssessed),
+                Double.isNaN(notSettled) ? "n/a" : percent(notSettled));
+    }
+
+    private static long count(SweepResult result, LoopStability stability) {
+        return result.runs().stream().filter(r -> r.stability() == stability).count();
+    }
+
+    private static String percent(double share) {
+        return String.format(Locale.ROOT, "%.1f %%", 100.0 * share);
+    }
+
+    private static HtmlTable table(SweepResult result) {
+        List<List<String>> rows = new ArrayList<>();
+        rows.add(row("overshoot (%)", result.overshootPercent()));
+        rows.add(row("settling time (2 %, s)", result.settlingTimeSeconds()));
+        rows.add(row("IAE", result.iae()));
+        rows.add(row("time saturated (%)", result.saturatedPercent()));
+        return new HtmlTable("Distribution over the runs (runs: how many have the figure)",
+                List.of("figure", "runs", "min", "median", "p90", "max"), rows);
+    }
+
+    private static List<String> row(String name, Distribution d) {
+        return List.of(name, String.valueOf(d.count()), number(d.min()), number(d.median()), number(d.p90()),
+                number(d.max()));
+    }
+
+    private static HtmlTable runsTable(SweepResult result) {
+        List<List<String>> rows = new ArrayList<>();
+        rows.add(runRow("nominal", result.nominal()));
+        rows.add(runRow("worst (#" + result.worst().index() + ")", result.worst()));
+        return new HtmlTable("The nominal and the worst run (unstable first, then unsettled, then the largest IAE)",
+                List.of("run", "gain x", "time constants x", "dead time x", "stability", "overshoot (%)",
+                        "settling time (s)", "IAE"), rows);
+    }
+
+    private static List<String> runRow(String name, SweepRun run) {
+        return List.of(name, number(run.draw().gainFactor()), number(run.draw().timeConstantFactor()),
+                number(run.draw().deadTimeFactor()), word(run.stability()), number(run.metrics().overshootPercent()),
+                number(run.metrics().settlingTimeSeconds()), number(run.metrics().iae()));
+    }
+
+    private static String word(LoopStability stability) {
+        return stability.name().toLowerCase(Locale.ROOT).replace('_', ' ');
+    }
+
+    private static String text(HtmlTable table) {
+        StringBuilder t = new StringBuilder();
+        String format = "  %-24s %6s %12s %12s %12s %12s%n";
+        t.append(String.format(Locale.ROOT, format, table.header().toArray()));
+        for (List<String> row : table.rows()) {
+            t.append(String.format(Locale.ROOT, format, row.toArray()));
+        }
+        return t.toString();
+    }
+
+    private static String describe(String name, SweepRun run) {
+        TransferFunction plant = run.plant();
+        return String.format(Locale.ROOT, "%s%s: %s; gain x%s, time constants x%s, dead time x%s: plant %s/%s,"
+                + " dead time %s s; overshoot %s %%, settling time %s s, IAE %s", name,
+                run.index() == Sweep.NOMINAL_INDEX ? "" : " #" + run.index(), word(run.stability()),
+                number(run.draw().gainFactor()), number(run.draw().timeConstantFactor()),
+                number(run.draw().deadTimeFactor()), Arrays.toString(plant.numerator()),
+                Arrays.toString(plant.denominator()), number(plant.deadTimeSeconds()),
+                number(run.metrics().overshootPercent()), number(run.metrics().settlingTimeSeconds()),
+                number(run.metrics().iae()));
+    }
+
+    private static String number(double value) {
+        return Double.isNaN(value) ? "n/a" : String.format(Locale.ROOT, "%.4g", value);
+    }
+
+    private static ObjectNode json(SweepResult result, int threadCount) {
+        ObjectNode root = Json.object();
+        root.put("runs", result.runs().size());
+        root.put("seed", result.seed());
+        root.put("threads", threadCount);
+        root.put("distribution", "uniform");
+        ObjectNode spread = root.putObject("spread");
+        spread.put("gain", result.spread().gain());
+        spread.put("time_constant", result.spread().timeConstant());
+        spread.put("dead_time", result.spread().deadTime());
+        Json.number(root, "unstable_share", result.unstableShare());
+        Json.number(root, "not_assessed_share", result.notAssessedShare());
+        Json.number(root, "not_settled_share", result.notSettledShare());
+        distribution(root.putObject("overshoot_percent"), result.overshootPercent());
+        distribution(root.putObject("settling_time"), result.settlingTimeSeconds());
+        distribution(root.putObject("iae"), result.iae());
+        distribution(root.putObject("saturated_percent"), result.saturatedPercent());
+        run(root.putObject("worst_run"), result.worst());
+        run(root.putObject("nominal_run"), result.nominal());
+        return root;
+    }
+
+    private static void distribution(ObjectNode node, Distribution d) {
+        node.put("count", d.count());
+        Json.number(node, "min", d.min());
+        Json.number(node, "median", d.median());
+        Json.number(node, "p90", d.p90());
+        Json.number(node, "max", d.max());
+    }
+
+    private static void run(ObjectNode node, SweepRun run) {
+        node.put("run", run.index());
+        node.put("stability", run.stability().name().toLowerCase(Locale.ROOT).replace('_', '-'));
+        Json.number(node, "gain_factor", run.draw().gainFactor());
+        Json.number(node, "time_constant_factor", run.draw().timeConstantFactor());
+        Json.number(node, "dead_time_factor", run.draw().deadTimeFactor());
+        ArrayNode numerator = node.putArray("numerator");
+        Arrays.stream(run.plant().numerator()).forEach(numerator::add);
+        ArrayNode denominator = node.putArray("denominator");
+        Arrays.stream(run.plant().denominator()).forEach(denominator::add);
+        Json.number(node, "dead_time", run.plant().deadTimeSeconds());
+        Json.number(node, "largest_pole_magnitude", run.largestPoleMagnitude());
+        Json.number(node, "overshoot_percent", run.metrics().overshootPercent());
+        Json.number(node, "settling_time", run.metrics().settlingTimeSeconds());
+        Json.number(node, "steady_state_error", run.metrics().steadyStateError());
+        Json.number(node, "iae", run.metrics().iae());
+        Json.number(node, "saturated_fraction", run.metrics().saturatedFraction());
+    }
+}
