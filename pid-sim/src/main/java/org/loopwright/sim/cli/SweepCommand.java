@@ -164,10 +164,17 @@ public final class SweepCommand implements Callable<Integer> {
         long unstable = count(result, LoopStability.UNSTABLE);
         long notAssessed = count(result, LoopStability.NOT_ASSESSED);
         double notSettled = result.notSettledShare();
-        return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; each plant factor uniform within %s"
-                + " of the nominal.%nunstable: %s (%d of %d, from the closed-loop poles of the sampled linear loop"
+        List<String> spreads = new ArrayList<>();
+        Spread spread = result.spread();
+        for (String entry : spread.text().split(",")) {
+            if (!entry.endsWith("=0%")) {
+                spreads.add(entry.replace("=", " ±"));
+            }
+        }
+        return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; %s.%nunstable: %s (%d of %d, from the closed-loop poles of the sampled linear loop"
                 + " or a diverging simulation)%s; never settled (2 %% band): %s of the runs whose response moved.",
-                n, result.seed(), threadCount, result.spread().text().replace("=", " ±").replace(",", ", "),
+                n, result.seed(), threadCount, spreads.isEmpty() ? "no spread: every run on the nominal plant"
+                        : "each plant factor uniform within " + String.join(", ", spreads) + " of the nominal",
                 percent(result.unstableShare()), unstable, n,
                 notAssessed == 0 ? "" : String.format(Locale.ROOT, "; stability not assessed for %d", notAssessed),
                 Double.isNaN(notSettled) ? "n/a" : percent(notSettled));

@@ -1,0 +1,138 @@
+package org.loopwright.sim.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.stream.Stream;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVRecord;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.loopwright.sim.sweep.SweepFiles;
+
+class SweepCommandTest {
+
+    /** P control, loop gain 8 ± 50 % on 1/(s+1)³: unstable beyond 8 (Routh–Hurwitz; see SweepTest). */
+    private static final String THIRD_ORDER_P = """
+            controller: {form: parallel, proportional-gain: 1.0, sample-period: 0.002}
+            plant: {type: transfer-function, numerator: [8.0], denominator: [1.0, 3.0, 3.0, 1.0]}
+            setpoint: [{at: 0, value: 1.0}]
+            duration: 20
+            """;
+
+    private static Path scenario(Path dir, String text) throws IOException {
+        Path file = dir.resolve("third-order.yaml");
+        Files.writeString(file, text);
+        return file;
+    }
+
+    @Test
+    void jsonSummaryAgreesWithTheCsvAndTheAnalyticBoundary(@TempDir Path dir) throws IOException {
+        Path file = scenario(dir, THIRD_ORDER_P);
+        Path out = dir.resolve("out");
+        CommandRun run = CommandRun.of("sweep", file.toString(), "--runs", "40", "--spread", "gain=50%",
+                "--seed", "5", "--threads", "2", "--out", out.toString(), "--json");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.err()).as("no progress bar with --json").isEmpty();
+        JsonNode json = new ObjectMapper().readTree(run.out());
+        assertThat(json.get("runs").asInt()).isEqualTo(40);
+        assertThat(json.get("distribution").asText()).isEqualTo("uniform");
+        assertThat(json.get("spread").get("gain").asDouble()).isEqualTo(0.5);
+
+        List<CSVRecord> rows;
+        try (var reader = Files.newBufferedReader(out.resolve(SweepFiles.CSV))) {
+            rows = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).get().parse(reader).getRecords();
+        }
+        assertThat(rows).hasSize(40);
+        assertThat(rows.get(0).getParser().getHeaderNames()).isEqualTo(SweepFiles.HEADER);
+        long beyondBoundary = 0;
+        for (CSVRecord row : rows) {
+            double loopGain = Double.parseDouble(row.get("numerator")); // Kc = 1, so the numerator is the loop gain
+            assertThat(Math.abs(loopGain - 8.0)).as("no run on the boundary").isGreaterThan(0.05);
+            beyondBoundary += loopGain > 8.0 ? 1 : 0;
+            assertThat(row.get("stability")).isEqualTo(loopGain > 8.0 ? "unstable" : "stable");
+        }
+        assertThat(beyondBoundary).isBetween(5L, 35L);
+        assertThat(json.get("unstable_share").asDouble()).isEqualTo(beyondBoundary / 40.0);
+        assertThat(json.get("worst_run").get("stability").asText()).isEqualTo("unstable");
+        assertThat(json.get("nominal_run").get("gain_factor").asDouble()).isEqualTo(1.0);
+        assertThat(json.get("overshoot_percent").get("count").asInt()).isEqualTo(40);
+        assertThat(Files.size(out.resolve("sweep-measurements.png"))).isPositive();
+        assertThat(Files.readString(out.resolve("sweep-measurements.svg"))).contains("<svg");
+        assertThat(Files.readString(out.resolve("report.html"))).contains("data:image/png;base64,");
+    }
+
+    @Test
+    void tableNamesTheShareOfUnstableRunsAndTheWorstRun(@TempDir Path dir) throws IOException {
+        Path file = scenario(dir, THIRD_ORDER_P);
+        CommandRun run = CommandRun.of("sweep", file.toString(), "--runs", "8", "--spread", "gain=50%", "--seed", "5",
+                "--out", dir.resolve("out").toString(), "--no-progress");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).contains("8 runs, seed 5").contains("unstable: ").contains("overshoot (%)")
+                .contains("settling time (2 %, s)").contains("IAE").contains("time saturated (%)")
+                .containsPattern("worst run #\\d+: unstable; gain x").contains("gain ±50% of the nominal")
+                .contains("nominal plant: unstable"); // K = 8 is on the continuous boundary, beyond the sampled one
+        assertThat(run.err()).isEmpty();
+    }
+
+    static Stream<Arguments> badInput() {
+        return Stream.of(
+                Arguments.of(List.of("--spread", "gain=20"),
+                        "--spread gain must be a percentage from 0% to below 100%: gain=20"),
+                Arguments.of(List.of("--spread", "lag=20%"),
+                        "--spread key must be gain, time-constant or dead-time: --spread=lag=20%"),
+                Arguments.of(List.of("--runs", "0"), "--runs must be from 1 to 10000: --runs=0"),
+                Arguments.of(List.of("--threads", "0"), "--threads must be from 1 to 256: --threads=0"));
+    }
+
+    @ParameterizedTest
+    @MethodSource("badInput")
+    void badOptionsExitWithTwoAndSayWhatIsAllowed(List<String> options, String message, @TempDir Path dir)
+            throws IOException {
+        Path file = scenario(dir, THIRD_ORDER_P);
+        String[] args = Stream.concat(Stream.of("sweep", file.toString(), "--out", dir.toString()), options.stream())
+                .toArray(String[]::new);
+        CommandRun run = CommandRun.of(args);
+        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(run.err().trim()).isEqualTo(message);
+        assertThat(run.out()).isEmpty();
+    }
+
+    @Test
+    void aNonlinearPlantIsRefusedWithTheFileAndThePlantType(@TempDir Path dir) throws Exception {
+        String tank = Path.of(SweepCommandTest.class.getResource("/scenarios/tank.yaml").toURI()).toString();
+        CommandRun run = CommandRun.of("sweep", tank, "--out", dir.toString());
+        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(run.err().trim()).isEqualTo(tank + ": sweep needs a linear plant (first-order, fopdt, sopdt,"
+                + " integrating or transfer-function): plant.type=tank");
+    }
+
+    @Test
+    void progressBarCountsEveryRun() {
+        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+        try (SweepProgress progress = SweepProgress.on(new PrintStream(bytes, true, StandardCharsets.UTF_8), 25)) {
+            for (int i = 0; i < 25; i++) {
+                progress.accept(i);
+            }
+        }
+        assertThat(bytes.toString(StandardCharsets.UTF_8)).contains("sweep").contains("100%").contains("25/25");
+        ByteArrayOutputStream none = new ByteArrayOutputStream();
+        try (SweepProgress off = SweepProgress.off()) {
+            off.accept(0);
+        }
+        assertThat(none.size()).isZero();
+    }
+}
