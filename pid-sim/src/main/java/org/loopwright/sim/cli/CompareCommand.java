@@ -13,6 +13,7 @@ import java.util.stream.Collectors;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.study.DiscretisationStudy;
 import org.loopwright.sim.study.SamplingVerdict;
 import org.loopwright.sim.study.StudyPlots;
@@ -92,7 +93,8 @@ public final class CompareCommand implements Callable<Integer> {
                 } catch (IOException e) {
                     throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
                 }
-                (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files and report.html to " + outDirectory);
+                (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
+                (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
             }
             out.flush();
             err.flush();

@@ -146,7 +146,7 @@ class FrequencyCommandsTest {
         Run run = run("compare", scenario("third-order-p.yaml"), "--periods", "0.1", "--out", plots.toString());
         assertThat(run.exitCode()).as(run.err()).isZero();
         try (Stream<Path> files = Files.list(plots)) {
-            assertThat(files.count()).isEqualTo(2 * (3 + 3));
+            assertThat(files.count()).isEqualTo(2 * (3 + 3) + 1); // PNG and SVG of six plots, and report.html
         }
         assertThat(run.out()).contains("Wrote 12 plot files to " + plots);
     }
