@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Base64;
 import java.util.List;
 import java.util.Objects;
+import java.util.regex.Pattern;
 
 /**
  * A self-contained report page, {@value #FILE_NAME}: the title, the tool's version, the safety caution,
@@ -41,12 +42,17 @@ public final class HtmlReport {
             .caution{border:2px solid #b00;background:#fff4f4;padding:.5em 1em}
             table{border-collapse:collapse;margin:.5em 0;font-size:.9em}
             caption{text-align:left;font-weight:bold;padding:.3em 0}
-            th,td{border:1px solid #bbb;padding:.2em .5em;text-align:right}
-            th:first-child,td:first-child{text-align:left}
+            .wide{overflow-x:auto}
+            th,td{border:1px solid #bbb;padding:.2em .5em;text-align:left;vertical-align:top}
+            td.number{text-align:right;white-space:nowrap}
             thead th{background:#eee}
             figure{margin:1em 0}figure svg,figure img{max-width:100%;height:auto}
             pre{background:#f6f6f6;padding:.5em;overflow-x:auto}
             """;
+
+    /** A cell that is a number, or stands for one that does not apply: right-aligned. */
+    private static final Pattern NUMBER = Pattern.compile("[-+]?[0-9.]+(e[-+]?[0-9]+)?|-|n/a|NaN|Infinity",
+            Pattern.CASE_INSENSITIVE);
 
     private HtmlReport() {
     }
@@ -110,7 +116,7 @@ public final class HtmlReport {
     }
 
     private static void table(StringBuilder html, HtmlTable table) {
-        html.append("<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
+        html.append("<div class=\"wide\">\n<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
         for (String name : table.header()) {
             html.append("<th scope=\"col\">").append(escape(name)).append("</th>");
         }
@@ -118,11 +124,12 @@ public final class HtmlReport {
         for (List<String> row : table.rows()) {
             html.append("<tr>");
             for (String cell : row) {
-                html.append("<td>").append(escape(cell)).append("</td>");
+                html.append(NUMBER.matcher(cell).matches() ? "<td class=\"number\">" : "<td>").append(escape(cell))
+                        .append("</td>");
             }
             html.append("</tr>\n");
         }
-        html.append("</tbody>\n</table>\n");
+        html.append("</tbody>\n</table>\n</div>\n");
     }
 
     /**
