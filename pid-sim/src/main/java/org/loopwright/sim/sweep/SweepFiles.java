@@ -43,6 +43,8 @@ public final class SweepFiles {
     private static final Color UNSTABLE_COLOUR = new Color(214, 39, 40, 110);
     /** Unstable runs are clipped to the stable runs' range widened by this share of it. */
     private static final double CLIP_MARGIN = 0.25;
+    /** About the most points all runs together are drawn with. */
+    private static final int PLOT_POINT_BUDGET = 40_000;
 
     private SweepFiles() {
     }
@@ -108,15 +110,17 @@ public final class SweepFiles {
         double margin = CLIP_MARGIN * (high - low);
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
                 + (clip ? " (unstable runs in red, clipped)" : ""), "time (s)", "measurement");
+        // the SVG grows with every point: many runs are thinned further, the nominal run is not
+        int stride = Math.max(1, result.runs().size() * Sweep.PLOT_POINTS / PLOT_POINT_BUDGET);
         for (SweepRun run : result.runs()) {
-            XYSeries series = add(chart, "run " + run.index(), run, clip, low - margin, high + margin);
+            XYSeries series = add(chart, "run " + run.index(), run, stride, clip, low - margin, high + margin);
             if (series != null) {
                 series.setLineColor(run.stability() == LoopStability.UNSTABLE ? UNSTABLE_COLOUR : RUN_COLOUR);
                 series.setLineStyle(new BasicStroke(1.0f));
                 series.setShowInLegend(false);
             }
         }
-        XYSeries nominal = add(chart, "nominal plant", result.nominal(), clip, low - margin, high + margin);
+        XYSeries nominal = add(chart, "nominal plant", result.nominal(), 1, clip, low - margin, high + margin);
         if (nominal != null) {
             nominal.setLineColor(Color.BLACK);
             nominal.setLineStyle(new BasicStroke(2.0f));
@@ -131,19 +135,28 @@ public final class SweepFiles {
         return all;
     }
 
-    private static XYSeries add(XYChart chart, String name, SweepRun run, boolean clip, double low, double high) {
+    private static XYSeries add(XYChart chart, String name, SweepRun run, int stride, boolean clip, double low,
+            double high) {
         double[] t = run.plotTimes();
         double[] y = run.plotMeasurements();
         List<Double> times = new ArrayList<>();
         List<Double> values = new ArrayList<>();
-        for (int i = 0; i < t.length; i++) {
-            double v = y[i];
-            if (Double.isNaN(v) || !clip && Double.isInfinite(v)) {
-                continue; // a dropout, or a diverged run with nothing stable to clip it to
-            }
-            times.add(t[i]);
-            values.add(clip ? Math.max(low, Math.min(high, v)) : v);
+        int last = t.length - 1;
+        for (int i = 0; i <= last; i += stride) {
+            point(t[i], y[i], clip, low, high, times, values);
+        }
+        if (last % stride != 0) {
+            point(t[last], y[last], clip, low, high, times, values);
         }
         return times.isEmpty() ? null : ResponsePlot.line(chart, name, times, values, 0);
+    }
+
+    private static void point(double t, double y, boolean clip, double low, double high, List<Double> times,
+            List<Double> values) {
+        if (Double.isNaN(y) || !clip && Double.isInfinite(y)) {
+            return; // a dropout, or a diverged run with nothing stable to clip it to
+        }
+        times.add(t);
+        values.add(clip ? Math.max(low, Math.min(high, y)) : y);
     }
 }
