@@ -1,5 +1,7 @@
 package org.loopwright.sim.cli;
 
+import org.loopwright.sim.config.InputFileException;
+
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -17,6 +19,9 @@ public final class LoopwrightCommand implements Runnable {
     /** Exit code for bad input. */
     public static final int BAD_INPUT = 2;
 
+    /** Exit code for an internal error (a defect of ours, not of the input). */
+    public static final int INTERNAL_ERROR = 1;
+
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;
 
@@ -28,7 +33,17 @@ public final class LoopwrightCommand implements Runnable {
     /** A command line with this project's exit codes and error handling. */
     public static CommandLine commandLine() {
         CommandLine cli = new CommandLine(new LoopwrightCommand());
-        cli.setExitCodeExceptionMapper(e -> BAD_INPUT);
+        // commands report their own input errors; what escapes them is either bad input the
+        // libraries found (an IllegalArgumentException, which names the value) or a defect of ours
+        cli.setExecutionExceptionHandler((ex, cmd, parsed) -> {
+            if (ex instanceof InputFileException || ex instanceof IllegalArgumentException) {
+                cmd.getErr().println(ex.getMessage());
+                return BAD_INPUT;
+            }
+            cmd.getErr().println("internal error, please report it with the command and its input:");
+            ex.printStackTrace(cmd.getErr());
+            return INTERNAL_ERROR;
+        });
         cli.setParameterExceptionHandler((ex, args) -> {
             ex.getCommandLine().getErr().println(ex.getMessage());
             ex.getCommandLine().usage(ex.getCommandLine().getErr());

@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
@@ -106,13 +107,23 @@ public final class TuneCommand implements Callable<Integer> {
             if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
                 throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
             }
+            if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
+                throw new BadInput("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
+                        + " --closed-loop-time=" + closedLoopTime);
+            }
             double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
             List<TuningRule> rules = rule == null ? Arrays.stream(TuningRule.values())
                     .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));
             List<TuningCandidate> candidates = new ArrayList<>();
             List<RuleNotApplicable> skipped = new ArrayList<>();
-            FopdtModel model = fromModel ? new FopdtModel(processGain, timeConstant, deadTime) : null;
-            UltimatePoint point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
+            FopdtModel model;
+            UltimatePoint point;
+            try {
+                model = fromModel ? new FopdtModel(processGain, timeConstant, deadTime) : null;
+                point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
+            } catch (InvalidSettingException e) {
+                throw new BadInput(inOptionTerms(e));
+            }
             for (TuningRule r : rules) {
                 TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);
                 if (result instanceof TunedGains tuned) {
@@ -175,6 +186,17 @@ public final class TuneCommand implements Callable<Integer> {
                 .map(TuningRule::label).collect(Collectors.joining(", "));
         throw new BadInput("--rule must be one of " + allowed + (fromModel ? " for a model" : " for an ultimate point")
                 + ": --rule=" + label);
+    }
+
+    /** The model's and the point's field names as the options the user typed. */
+    private static final Map<String, String> OPTION_OF_FIELD = Map.of(
+            "processGain", "--process-gain", "timeConstantSeconds", "--time-constant",
+            "deadTimeSeconds", "--dead-time", "ultimateGain", "--ultimate-gain",
+            "ultimatePeriodSeconds", "--ultimate-period");
+
+    static String inOptionTerms(InvalidSettingException e) {
+        String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
+        return option + " " + e.rule() + ": " + option + "=" + e.value();
     }
 
     private static void write(Path file, String text) {

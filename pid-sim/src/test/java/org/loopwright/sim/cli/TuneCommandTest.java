@@ -153,7 +153,9 @@ class TuneCommandTest {
                                 + " L/T <= 1.000: L/T=3.000 (G.H. Cohen, G.A. Coon, \"Theoretical consideration of"
                                 + " retarded control\", Transactions of the ASME 75 (1953) 827-834)"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "0", "--dead-time", "3"},
-                        "timeConstantSeconds must be finite and > 0: timeConstantSeconds=0.0"),
+                        "--time-constant must be finite and > 0: --time-constant=0.0"),
+                Arguments.of(new String[] {"tune", "--ultimate-gain", "2", "--ultimate-period", "-3"},
+                        "--ultimate-period must be finite and > 0: --ultimate-period=-3.0"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
                         "--write-controller", "x.yaml"},
                         "--write-controller needs --rule: which rule's settings to write"),
@@ -162,8 +164,8 @@ class TuneCommandTest {
                         "--closed-loop-time applies to the simc and lambda rules only: --rule=amigo"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
                         "--rule", "lambda", "--closed-loop-time", "-2"},
-                        "closedLoopTimeSeconds must be finite and > 0 (NaN for the rule's default):"
-                                + " closedLoopTimeSeconds=-2.0"));
+                        "--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
+                                + " --closed-loop-time=-2.0"));
     }
 
     @ParameterizedTest(name = "{1}")
