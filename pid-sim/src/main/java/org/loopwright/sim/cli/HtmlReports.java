@@ -80,9 +80,10 @@ final class HtmlReports {
                 result.crossoverRadPerSecond(), result.periodsSeconds(), result.setpointStepSize(),
                 result.loadStepSize(), SamplingVerdict.TYPICAL_LOW, SamplingVerdict.TYPICAL_HIGH,
                 result.rows().get(0).note());
-        List<Path> svgs = plots.stream().filter(p -> p.toString().endsWith(".svg")).toList();
+        // PNG, not SVG: XChart draws text as paths, so a study's SVGs make a page of 10 MB or more
+        List<Path> pngs = plots.stream().filter(p -> p.toString().endsWith(".png")).toList();
         return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Discretisation study of " + title,
-                version(spec), List.of(summary), List.of(table), svgs, scenarioName, scenarioText);
+                version(spec), List.of(summary), List.of(table), pngs, scenarioName, scenarioText);
     }
 
     private static String number(String format, double value) {

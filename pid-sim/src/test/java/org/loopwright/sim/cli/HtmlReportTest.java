@@ -127,13 +127,14 @@ class HtmlReportTest {
         List<String> labels = bodyRowFirstCells(tables.get(0));
         assertThat(labels).hasSize(rows.size()).startsWith("continuous");
         assertThat(labels).contains("TUSTIN/BACKWARD_EULER");
-        long svgFiles;
+        long pngFiles;
         try (Stream<Path> files = Files.list(dir)) {
-            svgFiles = files.filter(p -> p.toString().endsWith(".svg")).count();
+            pngFiles = files.filter(p -> p.toString().endsWith(".png")).count();
         }
-        assertThat(svgFiles).isGreaterThan(3);
-        assertThat(elements(page, XHTML, "figure")).hasSize((int) svgFiles);
-        assertThat(elements(page, SVG, "svg")).hasSize((int) svgFiles);
+        assertThat(pngFiles).isGreaterThan(3);
+        assertThat(elements(page, XHTML, "figure")).hasSize((int) pngFiles);
+        assertThat(elements(page, XHTML, "img")).hasSize((int) pngFiles)
+                .allSatisfy(img -> assertThat(img.getAttribute("src")).startsWith("data:image/png;base64,"));
         assertThat(elements(page, XHTML, "pre").get(0).getTextContent()).isEqualTo(Files.readString(scenario));
     }
 
