@@ -57,6 +57,16 @@ public final class ControllerSettings {
     final double filterTimeSeconds;
     final double sign;
     final DiscretePid fixedPeriod;
+    // the fixed-period update's per-sample constants and feature switches, so that it neither
+    // multiplies by h nor pays for a feature that is off
+    final double setpointStepLimit;
+    final double outputStepLimit;
+    final double fixedTrackingGain;
+    final double proportionalSetpointFactor;
+    final boolean slewsSetpoint;
+    final boolean backCalculates;
+    final boolean clampsIntegral;
+    final boolean incrementOutput;
     private final boolean explicitFilterTime;
     private final boolean explicitTrackingTime;
 
@@ -115,6 +125,22 @@ public final class ControllerSettings {
         }
         fixedPeriod = DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, samplePeriodSeconds);
+        setpointStepLimit = setpointSlewPerSecond * samplePeriodSeconds;
+        outputStepLimit = outputSlewPerSecond * samplePeriodSeconds;
+        fixedTrackingGain = trackingGain(samplePeriodSeconds);
+        proportionalSetpointFactor = sign * (1.0 - proportionalSetpointWeight);
+        // an infinite slew limit still matters on a circular variable, where a difference may overflow to NaN
+        slewsSetpoint = setpointSlewPerSecond != Double.POSITIVE_INFINITY || wrapSpan > 0.0;
+        // without integral action there is nothing to wind up, and the integral (then a fixed bias) stays
+        backCalculates = integralGain != 0.0 && (windupProtection == WindupProtection.BACK_CALCULATION
+                || windupProtection == WindupProtection.ACTUATOR_TRACKING);
+        clampsIntegral = windupProtection == WindupProtection.CLAMPING;
+        incrementOutput = outputKind == OutputKind.INCREMENT;
+    }
+
+    /** The back-calculation gain h/Tt at a period, capped at 1 so that the discrete tracking never over-corrects. */
+    double trackingGain(double periodSeconds) {
+        return Math.min(periodSeconds / trackingTimeSeconds, 1.0);
     }
 
     /** A builder with the defaults: reverse action, b = 1, c = 0, N = 10, Tustin integral,

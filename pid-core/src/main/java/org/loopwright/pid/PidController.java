@@ -3,6 +3,7 @@ package org.loopwright.pid;
 import java.util.Objects;
 
 import org.loopwright.pid.discrete.DerivativeMethod;
+import org.loopwright.pid.discrete.DiscretePid;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
@@ -85,7 +86,9 @@ public final class PidController {
      */
     public double update(double setpoint, double measurement) {
         ControllerSettings s = published;
-        return step(s, setpoint, measurement, s.samplePeriodSeconds(), true);
+        DiscretePid c = s.fixedPeriod;
+        return step(s, setpoint, measurement, c.integralWeightOnCurrent(), c.integralWeightOnPrevious(),
+                c.derivativePole(), c.derivativeGain(), s.setpointStepLimit, s.outputStepLimit, s.fixedTrackingGain);
     }
 
     /**
@@ -101,134 +104,166 @@ public final class PidController {
      */
     public double update(double setpoint, double measurement, double periodSeconds) {
         ControllerSettings s = published;
-        return step(s, setpoint, measurement, periodSeconds, false);
+        double h = periodSeconds;
+        if (!(h > 0.0) || h == Double.POSITIVE_INFINITY) {
+            return onFault(s, classify(setpoint, measurement, false));
+        }
+        DerivativeMethod method = s.derivativeMethod().isStable(h, s.filterTimeSeconds)
+                ? s.derivativeMethod() : DerivativeMethod.BACKWARD_EULER;
+        boolean hasDerivative = s.derivativeGain > 0.0;
+        return step(s, setpoint, measurement,
+                s.integralMethod().weightOnCurrent(s.integralGain, h),
+                s.integralMethod().weightOnPrevious(s.integralGain, h),
+                hasDerivative ? method.pole(h, s.filterTimeSeconds) : 0.0,
+                hasDerivative ? method.gain(s.derivativeGain, h, s.filterTimeSeconds) : 0.0,
+                s.setpointSlewPerSecond() * h, s.outputSlewPerSecond() * h, s.trackingGain(h));
     }
 
-    private double step(ControllerSettings s, double r, double y, double h, boolean fixedPeriod) {
-        Fault seen = classify(r, y, h);
-        if (seen != Fault.NONE) {
-            return onFault(s, seen);
+    /**
+     * The law, with the coefficients of this sample's period: integral weights b0, b1, derivative
+     * pole ad and gain bd, the largest setpoint and output steps and the back-calculation gain.
+     * Split into methods small enough for the JIT to inline them all into {@link #update(double, double)};
+     * what is rare lives in methods of its own.
+     */
+    private double step(ControllerSettings s, double r, double y, double b0, double b1, double ad, double bd,
+            double setpointStep, double outputStep, double trackingGain) {
+        if (!(Double.isFinite(r) && Double.isFinite(y)) || feedforwardOn && !Double.isFinite(feedforward)) {
+            return onFault(s, classify(r, y, true));
         }
         if (s != active) {
             // adopted on a good sample only, so that a fault never touches the state
             adopt(s);
         }
-
-        double b0;
-        double b1;
-        double ad;
-        double bd;
-        if (fixedPeriod) {
-            b0 = s.fixedPeriod.integralWeightOnCurrent();
-            b1 = s.fixedPeriod.integralWeightOnPrevious();
-            ad = s.fixedPeriod.derivativePole();
-            bd = s.fixedPeriod.derivativeGain();
-        } else {
-            DerivativeMethod method = s.derivativeMethod().isStable(h, s.filterTimeSeconds)
-                    ? s.derivativeMethod() : DerivativeMethod.BACKWARD_EULER;
-            b0 = s.integralMethod().weightOnCurrent(s.integralGain, h);
-            b1 = s.integralMethod().weightOnPrevious(s.integralGain, h);
-            boolean hasDerivative = s.derivativeGain > 0.0;
-            ad = hasDerivative ? method.pole(h, s.filterTimeSeconds) : 0.0;
-            bd = hasDerivative ? method.gain(s.derivativeGain, h, s.filterTimeSeconds) : 0.0;
-        }
-
-        double rampedSetpoint = started ? slew(s, previousSetpoint, r, s.setpointSlewPerSecond() * h) : r;
-        double error = errorOf(s, rampedSetpoint, y);
-        double proportional = s.proportionalGain * proportionalInput(s, rampedSetpoint, y, error);
+        boolean running = started;
+        double rampedSetpoint = running && s.slewsSetpoint ? slew(s, previousSetpoint, r, setpointStep) : r;
+        double rawError = rawError(s, rampedSetpoint, y);
+        double error = deadband(rawError, s.errorDeadband());
+        double proportional = s.proportionalGain * proportionalInput(s, rampedSetpoint, rawError, error);
         double uff = feedforwardOn ? feedforward : 0.0;
-
-        double lo = s.outputMin();
-        double hi = s.outputMax();
-        if (started) {
-            double maxStep = s.outputSlewPerSecond() * h;
-            lo = Math.max(lo, previousOutput - maxStep);
-            hi = Math.min(hi, previousOutput + maxStep);
+        if (!running) {
+            // the first sample: every dynamic state is zero, and only the range limits the output
+            return conclude(s, rampedSetpoint, y, error, proportional, 0.0, 0.0, integral, uff,
+                    s.outputMin(), s.outputMax(), false);
         }
+        double derivative = ad * derivativeState + bd * derivativeInputChange(s, rampedSetpoint, y);
+        double increment = b0 * error + b1 * previousError;
+        return conclude(s, rampedSetpoint, y, error, proportional, derivative, increment,
+                integrated(s, increment, trackingGain, uff), uff,
+                Math.max(s.outputMin(), previousOutput - outputStep), Math.min(s.outputMax(), previousOutput + outputStep),
+                true);
+    }
 
-        double derivative = 0.0;
-        double increment = 0.0;
-        double next = integral;
-        if (started) {
-            double derivativeInputChange = s.sign * (s.derivativeSetpointWeight() * wrap(s, rampedSetpoint - previousSetpoint)
-                    - wrap(s, y - previousMeasurement));
-            derivative = ad * derivativeState + bd * derivativeInputChange;
-            increment = b0 * error + b1 * previousError;
-            next += increment + backCalculation(s, h);
-            if (feedforwardOn != feedforwardApplied) {
-                // switching feedforward on or off moves the integral so that the output does not step
-                next += feedforwardApplied ? previousFeedforward : -uff;
-            }
+    /** c·r − y with the action's sign, as a change since the last sample. */
+    private double derivativeInputChange(ControllerSettings s, double setpoint, double measurement) {
+        return s.sign * (s.derivativeSetpointWeight() * wrap(s, setpoint - previousSetpoint)
+                - wrap(s, measurement - previousMeasurement));
+    }
+
+    /** The integral after this sample's increment, back-calculation and any feedforward switch. */
+    private double integrated(ControllerSettings s, double increment, double trackingGain, double uff) {
+        double next = integral
+                + (increment + (s.backCalculates ? trackingGain * (appliedOutput(s) - previousUnlimited) : 0.0));
+        if (feedforwardOn != feedforwardApplied) {
+            // switching feedforward on or off moves the integral so that the output does not step
+            next += feedforwardApplied ? previousFeedforward : -uff;
         }
+        return next;
+    }
 
+    /**
+     * The output for the mode within the bounds lo..hi, then the state, unless the sum overflowed.
+     * The integral is next, unless the mode or conditional integration says otherwise.
+     */
+    private double conclude(ControllerSettings s, double setpoint, double y, double error, double proportional,
+            double derivative, double increment, double next, double uff, double lo, double hi, boolean running) {
+        double integralNow = next;
         double unlimited;
         double output;
-        switch (mode) {
-            case MANUAL -> {
-                output = clamp(clamp(manualValue, lo, hi), s.outputMin(), s.outputMax());
-                unlimited = output;
-                next = integral;
+        boolean automatic = mode == Mode.AUTOMATIC;
+        if (automatic) {
+            if (rebalancePending && running) {
+                integralNow = previousOutput - proportional - derivative - uff;
+            } else if (s.clampsIntegral) {
+                integralNow = conditionallyIntegrated(s, proportional, next, derivative, uff, increment, lo, hi);
             }
-            case TRACKING -> {
-                double target = Double.isFinite(trackValue) ? trackValue : previousOutput;
-                output = clamp(clamp(target, lo, hi), s.outputMin(), s.outputMax());
-                unlimited = output;
-                next = integral;
-            }
-            default -> {
-                if (rebalancePending && started) {
-                    next = previousOutput - proportional - derivative - uff;
-                    // nothing was integrated on this sample, so conditional integration has nothing to undo
-                    increment = 0.0;
-                }
-                unlimited = proportional + next + derivative + uff;
-                output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
-                if (s.windupProtection() == WindupProtection.CLAMPING && output != unlimited
-                        && (unlimited > output ? increment > 0.0 : increment < 0.0)) {
-                    next -= increment;
-                    unlimited = proportional + next + derivative + uff;
-                    output = clamp(clamp(unlimited, lo, hi), s.outputMin(), s.outputMax());
-                }
-            }
+            unlimited = proportional + integralNow + derivative + uff;
+            output = limit(s, unlimited, lo, hi);
+        } else {
+            output = limit(s, heldOutput(), lo, hi);
+            unlimited = output;
+            integralNow = integral;
         }
-
-        if (!(Double.isFinite(error) && Double.isFinite(next) && Double.isFinite(derivative)
-                && Double.isFinite(unlimited))) {
+        // a sum is finite only when every term is: in automatic this one test covers them all
+        if (!(Double.isFinite(unlimited) && (automatic
+                || Double.isFinite(error) && Double.isFinite(integralNow) && Double.isFinite(derivative)))) {
             // finite inputs far too large for the gains: the sample is dropped like a faulty one
             return onFault(s, Fault.ARITHMETIC_OVERFLOW);
         }
-        double result = s.outputKind() == OutputKind.INCREMENT ? (started ? output - previousOutput : 0.0) : output;
-
-        // outside automatic the integral is not the law's own: the next automatic sample rebalances it
-        rebalancePending = mode != Mode.AUTOMATIC;
-        integral = next;
+        double result = s.incrementOutput ? (running ? output - previousOutput : 0.0) : output;
+        if (rebalancePending == automatic) {
+            // outside automatic the integral is not the law's own: the next automatic sample rebalances it
+            rebalancePending = !automatic;
+        }
+        integral = integralNow;
         derivativeState = derivative;
         previousError = error;
-        previousSetpoint = rampedSetpoint;
+        previousSetpoint = setpoint;
         previousMeasurement = y;
         previousUnlimited = unlimited;
         previousOutput = output;
         previousFeedforward = uff;
-        feedforwardApplied = feedforwardOn;
-        started = true;
-
-        proportionalTerm = proportional;
-        integralTerm = next;
-        derivativeTerm = derivative;
-        feedforwardTerm = uff;
-        emitted = result;
-        fault = Fault.NONE;
+        report(proportional, integralNow, derivative, uff, result, running);
         return result;
     }
 
-    private Fault classify(double r, double y, double h) {
+    /** The status of a good sample; the flags are written only when they change. */
+    private void report(double proportional, double integralNow, double derivative, double uff, double result,
+            boolean running) {
+        proportionalTerm = proportional;
+        integralTerm = integralNow;
+        derivativeTerm = derivative;
+        feedforwardTerm = uff;
+        emitted = result;
+        if (!running || feedforwardOn != feedforwardApplied || fault != Fault.NONE) {
+            feedforwardApplied = feedforwardOn;
+            started = true;
+            fault = Fault.NONE;
+        }
+    }
+
+    /**
+     * Conditional integration: the integral without this sample's increment when the output is
+     * limited and the increment pushes further into the limit.
+     */
+    private static double conditionallyIntegrated(ControllerSettings s, double proportional, double next,
+            double derivative, double uff, double increment, double lo, double hi) {
+        double unlimited = proportional + next + derivative + uff;
+        double output = limit(s, unlimited, lo, hi);
+        return output != unlimited && (unlimited > output ? increment > 0.0 : increment < 0.0) ? next - increment : next;
+    }
+
+    /** The output manual or tracking mode asks for; a non-finite track value holds the output. */
+    private double heldOutput() {
+        if (mode == Mode.MANUAL) {
+            return manualValue;
+        }
+        return Double.isFinite(trackValue) ? trackValue : previousOutput;
+    }
+
+    /** The output that back-calculation drives the integral towards (Åström &amp; Murray 2021, §11.4). */
+    private double appliedOutput(ControllerSettings s) {
+        return s.windupProtection() == WindupProtection.ACTUATOR_TRACKING && Double.isFinite(actuatorPosition)
+                ? actuatorPosition : previousOutput;
+    }
+
+    private Fault classify(double r, double y, boolean periodValid) {
         if (!Double.isFinite(r)) {
             return Fault.SETPOINT_NOT_FINITE;
         }
         if (!Double.isFinite(y)) {
             return Fault.MEASUREMENT_NOT_FINITE;
         }
-        if (!(h > 0.0) || h == Double.POSITIVE_INFINITY) {
+        if (!periodValid) {
             return Fault.PERIOD_NOT_VALID;
         }
         if (feedforwardOn && !Double.isFinite(feedforward)) {
@@ -252,37 +287,22 @@ public final class PidController {
         if (output != previousOutput) {
             rebalancePending = true;
         }
-        double result = s.outputKind() == OutputKind.INCREMENT ? output - previousOutput : output;
+        double result = s.incrementOutput ? output - previousOutput : output;
         previousOutput = output;
         emitted = result;
         return result;
     }
 
-    /**
-     * Back-calculation (Åström &amp; Murray 2021, §11.4): the integral moves towards the limited output.
-     * Without integral action there is nothing to wind up, and the integral (then a fixed bias) stays.
-     */
-    private double backCalculation(ControllerSettings s, double h) {
-        WindupProtection scheme = s.windupProtection();
-        if (s.integralGain == 0.0
-                || (scheme != WindupProtection.BACK_CALCULATION && scheme != WindupProtection.ACTUATOR_TRACKING)) {
-            return 0.0;
-        }
-        double applied = scheme == WindupProtection.ACTUATOR_TRACKING && Double.isFinite(actuatorPosition)
-                ? actuatorPosition : previousOutput;
-        // h/Tt capped at 1: the discrete tracking never over-corrects
-        return Math.min(h / s.trackingTimeSeconds(), 1.0) * (applied - previousUnlimited);
-    }
-
     /** Adopts newly published settings so that the output at the last inputs does not change. */
     private void adopt(ControllerSettings next) {
         if (started) {
-            double oldProportional = active.proportionalGain
-                    * proportionalInput(active, previousSetpoint, previousMeasurement,
-                            errorOf(active, previousSetpoint, previousMeasurement));
-            double newError = errorOf(next, previousSetpoint, previousMeasurement);
+            double oldRawError = rawError(active, previousSetpoint, previousMeasurement);
+            double oldProportional = active.proportionalGain * proportionalInput(active, previousSetpoint,
+                    oldRawError, deadband(oldRawError, active.errorDeadband()));
+            double newRawError = rawError(next, previousSetpoint, previousMeasurement);
+            double newError = deadband(newRawError, next.errorDeadband());
             double newProportional = next.proportionalGain
-                    * proportionalInput(next, previousSetpoint, previousMeasurement, newError);
+                    * proportionalInput(next, previousSetpoint, newRawError, newError);
             integral += oldProportional - newProportional;
             if (next.derivativeGain == 0.0) {
                 integral += derivativeState;
@@ -293,14 +313,14 @@ public final class PidController {
         active = next;
     }
 
-    private static double errorOf(ControllerSettings s, double setpoint, double measurement) {
-        return deadband(s.sign * wrap(s, setpoint - measurement), s.errorDeadband());
+    /** r − y with the action's sign, the short way round on a circular process variable. */
+    private static double rawError(ControllerSettings s, double setpoint, double measurement) {
+        return s.sign * wrap(s, setpoint - measurement);
     }
 
     /** b·r − y with the action's sign, less whatever the deadband removed from the error. */
-    private static double proportionalInput(ControllerSettings s, double setpoint, double measurement, double error) {
-        double rawError = s.sign * wrap(s, setpoint - measurement);
-        double weighted = rawError - s.sign * (1.0 - s.proportionalSetpointWeight()) * setpoint;
+    private static double proportionalInput(ControllerSettings s, double setpoint, double rawError, double error) {
+        double weighted = rawError - s.proportionalSetpointFactor * setpoint;
         return weighted - (rawError - error);
     }
 
@@ -320,6 +340,15 @@ public final class PidController {
     private static double slew(ControllerSettings s, double from, double to, double maxStep) {
         double distance = wrap(s, to - from);
         return Math.abs(distance) <= maxStep ? to : from + Math.copySign(maxStep, distance);
+    }
+
+    /**
+     * Within the slew bounds lo..hi, themselves within the range. Only when the last output lies
+     * outside a range that a retune narrowed can lo exceed hi; the range wins then.
+     */
+    private static double limit(ControllerSettings s, double value, double lo, double hi) {
+        double limited = clamp(value, lo, hi);
+        return lo > hi ? clamp(limited, s.outputMin(), s.outputMax()) : limited;
     }
 
     private static double clamp(double value, double lo, double hi) {
@@ -483,7 +512,8 @@ public final class PidController {
         started = snapshot.started();
         integral = snapshot.integral();
         derivativeState = s.derivativeGain > 0.0 ? snapshot.derivativeState() : 0.0;
-        previousError = errorOf(s, snapshot.previousSetpoint(), snapshot.previousMeasurement());
+        previousError = deadband(rawError(s, snapshot.previousSetpoint(), snapshot.previousMeasurement()),
+                s.errorDeadband());
         previousSetpoint = snapshot.previousSetpoint();
         previousMeasurement = snapshot.previousMeasurement();
         previousUnlimited = snapshot.previousUnlimited();

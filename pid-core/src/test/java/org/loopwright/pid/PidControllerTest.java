@@ -59,6 +59,28 @@ class PidControllerTest {
         assertThat(c.update(10.0, Double.NaN)).isEqualTo(5.0);
     }
 
+    @Test
+    void rangeNarrowedByRetuneWinsOverTheSlewLimit() {
+        // The output never leaves the actuator's range (the update's contract; common practice): when
+        // a retune leaves the last output beyond the new range, farther than one slew step, the next
+        // output is the range's nearest edge, and the slew limit applies again from there.
+        for (double direction : new double[] {1.0, -1.0}) {
+            ControllerSettings.Builder b = ControllerSettings.builder()
+                    .gains(new ParallelGains(1.0, 0.0, 0.0)).samplePeriodSeconds(0.1)
+                    .outputRange(-50.0, 50.0).outputSlewPerSecond(10.0);
+            PidController c = new PidController(b.build());
+            c.update(0.0, 0.0);
+            for (int k = 0; k < 20; k++) {
+                c.update(100.0 * direction, 0.0);
+            }
+            assertThat(c.position()).isEqualTo(20.0 * direction);
+            c.retune(b.outputRange(-5.0, 5.0).build());
+            // the law asks for 0, inside the new range but beyond one slew step from the last output
+            assertThat(c.update(0.0, 0.0)).isEqualTo(5.0 * direction);
+            assertThat(c.update(0.0, 0.0)).isEqualTo(4.0 * direction);
+        }
+    }
+
     @ParameterizedTest
     @EnumSource(DerivativeMethod.class)
     void variablePeriodUpdateEqualsFixedPeriodUpdateAtTheSamplePeriod(DerivativeMethod derivative) {
