@@ -14,7 +14,9 @@ import org.hipparchus.linear.RealMatrix;
  *
  * <p>A dead time L is exact for any L, whole number of periods or not: the inputs are kept as held
  * pieces (value, length) in a queue that starts with L seconds of zero input, and each advance
- * integrates exactly across the piece boundaries that fall inside it. Nothing is rounded.
+ * integrates exactly across the piece boundaries that fall inside it. Nothing is rounded, except
+ * that a boundary within a billionth of an interval from the interval's end is put at its end: a dead
+ * time of a whole number of periods then costs one step per period, not a step and a sliver.
  *
  * <p>Φ and Γ are cached by interval length (the last 64 lengths), so a
  * fixed-period simulation computes them once or twice and then allocates nothing. A biproper
@@ -27,7 +29,14 @@ import org.hipparchus.linear.RealMatrix;
 public final class LinearPlant implements Plant {
 
     private static final int CACHED_LENGTHS = 64;
+    /** A power of two, like every capacity after it, so the ring wraps with a mask. */
     private static final int INITIAL_PIECES = 16;
+    /**
+     * A piece that ends within this share of an interval from the interval's end ends at its end:
+     * a dead time of n periods, consumed a period at a time, otherwise leaves a float-rounding sliver
+     * (~1e-16 s) that would split every later period in two.
+     */
+    private static final double SLIVER = 1e-9;
 
     private final TransferFunction model;
     private final int order;
@@ -125,20 +134,22 @@ public final class LinearPlant implements Plant {
             return;
         }
         enqueue(inputHeldOverInterval, seconds);
+        double sliver = SLIVER * seconds;
         double remaining = seconds;
         while (remaining > 0.0 && pieces > 0) {
             double left = pieceSeconds[first] - firstConsumedSeconds;
-            if (left <= remaining) {
-                hold(pieceInput[first], left);
-                remaining -= left;
-                first = (first + 1) % pieceInput.length;
-                pieces--;
-                firstConsumedSeconds = 0.0;
-            } else {
+            if (left > remaining + sliver) {
                 hold(pieceInput[first], remaining);
                 firstConsumedSeconds += remaining;
-                remaining = 0.0;
+                return;
             }
+            // the piece ends inside this interval; ending within a sliver of its end, it ends at its end
+            double held = left < remaining - sliver ? left : remaining;
+            hold(pieceInput[first], held);
+            remaining -= held;
+            first = (first + 1) & (pieceInput.length - 1);
+            pieces--;
+            firstConsumedSeconds = 0.0;
         }
     }
 
@@ -147,9 +158,13 @@ public final class LinearPlant implements Plant {
         if (order == 0 || !(seconds > 0.0)) {
             return;
         }
-        int slot = discretisation(seconds);
+        int slot = cachedSeconds[lastHit] == seconds ? lastHit : discretisation(seconds);
         double[] phi = cachedTransition[slot];
         double[] gamma = cachedInputResponse[slot];
+        if (order == 1) {
+            state[0] = phi[0] * state[0] + gamma[0] * input;
+            return;
+        }
         for (int i = 0; i < order; i++) {
             double sum = gamma[i] * input;
             int row = i * order;
@@ -162,9 +177,6 @@ public final class LinearPlant implements Plant {
     }
 
     private int discretisation(double seconds) {
-        if (cachedSeconds[lastHit] == seconds) {
-            return lastHit;
-        }
         for (int i = 0; i < CACHED_LENGTHS; i++) {
             if (cachedSeconds[i] == seconds) {
                 lastHit = i;
@@ -201,7 +213,7 @@ public final class LinearPlant implements Plant {
         if (pieces == pieceInput.length) {
             grow();
         }
-        int slot = (first + pieces) % pieceInput.length;
+        int slot = (first + pieces) & (pieceInput.length - 1);
         pieceInput[slot] = input;
         pieceSeconds[slot] = seconds;
         pieces++;
@@ -213,7 +225,7 @@ public final class LinearPlant implements Plant {
         double[] inputs = new double[capacity];
         double[] lengths = new double[capacity];
         for (int i = 0; i < pieces; i++) {
-            int from = (first + i) % pieceInput.length;
+            int from = (first + i) & (pieceInput.length - 1);
             inputs[i] = pieceInput[from];
             lengths[i] = pieceSeconds[from];
         }
