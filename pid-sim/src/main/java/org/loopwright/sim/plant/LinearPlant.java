@@ -53,7 +53,10 @@ public final class LinearPlant implements Plant {
     private final double[] cachedSeconds = new double[CACHED_LENGTHS];
     private final double[][] cachedTransition;
     private final double[][] cachedInputResponse;
-    private int lastHit;
+    // the discretisation last used, so a fixed period looks nothing up
+    private double currentSeconds = Double.NaN;
+    private double[] currentTransition;
+    private double[] currentInputResponse;
     private int nextSlot;
 
     // the delay line: a ring of held pieces, oldest first
@@ -158,9 +161,11 @@ public final class LinearPlant implements Plant {
         if (order == 0 || !(seconds > 0.0)) {
             return;
         }
-        int slot = cachedSeconds[lastHit] == seconds ? lastHit : discretisation(seconds);
-        double[] phi = cachedTransition[slot];
-        double[] gamma = cachedInputResponse[slot];
+        if (seconds != currentSeconds) {
+            select(seconds);
+        }
+        double[] phi = currentTransition;
+        double[] gamma = currentInputResponse;
         if (order == 1) {
             state[0] = phi[0] * state[0] + gamma[0] * input;
             return;
@@ -176,19 +181,23 @@ public final class LinearPlant implements Plant {
         System.arraycopy(scratch, 0, state, 0, order);
     }
 
-    private int discretisation(double seconds) {
-        for (int i = 0; i < CACHED_LENGTHS; i++) {
+    /** Makes Φ(τ), Γ(τ) for τ = seconds current, from the cache or computed into its oldest slot. */
+    private void select(double seconds) {
+        int slot = -1;
+        for (int i = 0; i < CACHED_LENGTHS && slot < 0; i++) {
             if (cachedSeconds[i] == seconds) {
-                lastHit = i;
-                return i;
+                slot = i;
             }
         }
-        int slot = nextSlot;
-        nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
-        discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);
-        cachedSeconds[slot] = seconds;
-        lastHit = slot;
-        return slot;
+        if (slot < 0) {
+            slot = nextSlot;
+            nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
+            discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);
+            cachedSeconds[slot] = seconds;
+        }
+        currentSeconds = seconds;
+        currentTransition = cachedTransition[slot];
+        currentInputResponse = cachedInputResponse[slot];
     }
 
     /** e^([[A, B], [0, 0]]·τ) = [[Φ(τ), Γ(τ)], [0, 1]] (Van Loan's block form). */
