@@ -137,6 +137,17 @@ public final class LinearPlant implements Plant {
             return;
         }
         enqueue(inputHeldOverInterval, seconds);
+        if (firstConsumedSeconds == 0.0 && pieceSeconds[first] == seconds) {
+            // the common case: the oldest piece is exactly this interval long
+            hold(pieceInput[first], seconds);
+            dropFirst();
+        } else {
+            consume(seconds);
+        }
+    }
+
+    /** Holds the pieces that fall in the next {@code seconds}, in order, splitting at their boundaries. */
+    private void consume(double seconds) {
         double sliver = SLIVER * seconds;
         double remaining = seconds;
         while (remaining > 0.0 && pieces > 0) {
@@ -150,10 +161,14 @@ public final class LinearPlant implements Plant {
             double held = left < remaining - sliver ? left : remaining;
             hold(pieceInput[first], held);
             remaining -= held;
-            first = (first + 1) & (pieceInput.length - 1);
-            pieces--;
-            firstConsumedSeconds = 0.0;
+            dropFirst();
         }
+    }
+
+    private void dropFirst() {
+        first = (first + 1) & (pieceInput.length - 1);
+        pieces--;
+        firstConsumedSeconds = 0.0;
     }
 
     private void hold(double input, double seconds) {
