@@ -4,7 +4,6 @@ import org.loopwright.pid.PidController;
 import org.loopwright.pid.onoff.OnOffController;
 import org.loopwright.sim.nonideal.Actuator;
 import org.loopwright.sim.nonideal.Sensor;
-import org.loopwright.sim.nonideal.SensorModel;
 import org.loopwright.sim.plant.Plant;
 import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
@@ -38,7 +37,6 @@ public final class ClosedLoop {
     private final FeedbackLaw law;
     private final Actuator actuator;
     private final Sensor sensor;
-    private final boolean idealSensor;
     private final Trajectory trajectory;
     private final double periodSeconds;
     private final int samples;
@@ -69,8 +67,6 @@ public final class ClosedLoop {
                 .orElseGet(() -> new FeedbackLaw.OnOff(new OnOffController(scenario.onOffController().orElseThrow())));
         this.actuator = new Actuator(scenario.actuator());
         this.sensor = new Sensor(scenario.sensor(), scenario.seed());
-        // reads the process as it is, on time: the step skips the sensor (its delay line wraps with a division)
-        this.idealSensor = scenario.sensor().equals(SensorModel.IDEAL);
         this.periodSeconds = scenario.samplePeriodSeconds();
         this.samples = scenario.sampleCount();
         this.trajectory = new Trajectory(samples);
@@ -125,7 +121,7 @@ public final class ClosedLoop {
         if (k >= samples) {
             return false;
         }
-        double delay = idealSensor ? 0.0 : sensor.nextSampleDelaySeconds();
+        double delay = sensor.nextSampleDelaySeconds();
         double instant = k * periodSeconds + delay;
         if (k > 0) {
             // exactly h without jitter, so a linear plant's cached discretisation is hit every time
@@ -148,7 +144,7 @@ public final class ClosedLoop {
         }
         double process = plant.output();
         double r = setpointAt(instant);
-        double y = idealSensor ? process : sensor.read(process);
+        double y = sensor.read(process);
         double u = law.update(r, y, instant);
         delivered = actuator.deliver(u, periodSeconds);
         law.delivered(delivered);
