@@ -34,7 +34,7 @@ public final class LinearPlant implements Plant {
     /**
      * A piece that ends within this share of an interval from the interval's end ends at its end:
      * a dead time of n periods, consumed a period at a time, otherwise leaves a float-rounding sliver
-     * (~1e-16 s) that would split every later period in two.
+     * (of the order of 1e-15 s) that would split every later period in two.
      */
     private static final double SLIVER = 1e-9;
 
