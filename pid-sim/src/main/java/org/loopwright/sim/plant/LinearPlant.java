@@ -14,7 +14,9 @@ import org.hipparchus.linear.RealMatrix;
  *
  * <p>A dead time L is exact for any L, whole number of periods or not: the inputs are kept as held
  * pieces (value, length) in a queue that starts with L seconds of zero input, and each advance
- * integrates exactly across the piece boundaries that fall inside it. Nothing is rounded.
+ * integrates exactly across the piece boundaries that fall inside it. Nothing is rounded, except
+ * that a boundary within a billionth of an interval from the interval's end is put at its end: a dead
+ * time of a whole number of periods then costs one step per period, not a step and a sliver.
  *
  * <p>Φ and Γ are cached by interval length (the last 64 lengths), so a
  * fixed-period simulation computes them once or twice and then allocates nothing. A biproper
@@ -27,7 +29,14 @@ import org.hipparchus.linear.RealMatrix;
 public final class LinearPlant implements Plant {
 
     private static final int CACHED_LENGTHS = 64;
+    /** A power of two, like every capacity after it, so the ring wraps with a mask. */
     private static final int INITIAL_PIECES = 16;
+    /**
+     * A piece that ends within this share of an interval from the interval's end ends at its end:
+     * a dead time of n periods, consumed a period at a time, otherwise leaves a float-rounding sliver
+     * (of the order of 1e-15 s) that would split every later period in two.
+     */
+    private static final double SLIVER = 1e-9;
 
     private final TransferFunction model;
     private final int order;
@@ -44,7 +53,10 @@ public final class LinearPlant implements Plant {
     private final double[] cachedSeconds = new double[CACHED_LENGTHS];
     private final double[][] cachedTransition;
     private final double[][] cachedInputResponse;
-    private int lastHit;
+    // the discretisation last used, so a fixed period looks nothing up
+    private double currentSeconds = Double.NaN;
+    private double[] currentTransition;
+    private double[] currentInputResponse;
     private int nextSlot;
 
     // the delay line: a ring of held pieces, oldest first
@@ -125,21 +137,38 @@ public final class LinearPlant implements Plant {
             return;
         }
         enqueue(inputHeldOverInterval, seconds);
+        if (firstConsumedSeconds == 0.0 && pieceSeconds[first] == seconds) {
+            // the common case: the oldest piece is exactly this interval long
+            hold(pieceInput[first], seconds);
+            dropFirst();
+        } else {
+            consume(seconds);
+        }
+    }
+
+    /** Holds the pieces that fall in the next {@code seconds}, in order, splitting at their boundaries. */
+    private void consume(double seconds) {
+        double sliver = SLIVER * seconds;
         double remaining = seconds;
         while (remaining > 0.0 && pieces > 0) {
             double left = pieceSeconds[first] - firstConsumedSeconds;
-            if (left <= remaining) {
-                hold(pieceInput[first], left);
-                remaining -= left;
-                first = (first + 1) % pieceInput.length;
-                pieces--;
-                firstConsumedSeconds = 0.0;
-            } else {
+            if (left > remaining + sliver) {
                 hold(pieceInput[first], remaining);
                 firstConsumedSeconds += remaining;
-                remaining = 0.0;
+                return;
             }
+            // the piece ends inside this interval; ending within a sliver of its end, it ends at its end
+            double held = left < remaining - sliver ? left : remaining;
+            hold(pieceInput[first], held);
+            remaining -= held;
+            dropFirst();
         }
+    }
+
+    private void dropFirst() {
+        first = (first + 1) & (pieceInput.length - 1);
+        pieces--;
+        firstConsumedSeconds = 0.0;
     }
 
     private void hold(double input, double seconds) {
@@ -147,9 +176,15 @@ public final class LinearPlant implements Plant {
         if (order == 0 || !(seconds > 0.0)) {
             return;
         }
-        int slot = discretisation(seconds);
-        double[] phi = cachedTransition[slot];
-        double[] gamma = cachedInputResponse[slot];
+        if (seconds != currentSeconds) {
+            select(seconds);
+        }
+        double[] phi = currentTransition;
+        double[] gamma = currentInputResponse;
+        if (order == 1) {
+            state[0] = phi[0] * state[0] + gamma[0] * input;
+            return;
+        }
         for (int i = 0; i < order; i++) {
             double sum = gamma[i] * input;
             int row = i * order;
@@ -161,22 +196,23 @@ public final class LinearPlant implements Plant {
         System.arraycopy(scratch, 0, state, 0, order);
     }
 
-    private int discretisation(double seconds) {
-        if (cachedSeconds[lastHit] == seconds) {
-            return lastHit;
-        }
-        for (int i = 0; i < CACHED_LENGTHS; i++) {
+    /** Makes Φ(τ), Γ(τ) for τ = seconds current, from the cache or computed into its oldest slot. */
+    private void select(double seconds) {
+        int slot = -1;
+        for (int i = 0; i < CACHED_LENGTHS && slot < 0; i++) {
             if (cachedSeconds[i] == seconds) {
-                lastHit = i;
-                return i;
+                slot = i;
             }
         }
-        int slot = nextSlot;
-        nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
-        discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);
-        cachedSeconds[slot] = seconds;
-        lastHit = slot;
-        return slot;
+        if (slot < 0) {
+            slot = nextSlot;
+            nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
+            discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);
+            cachedSeconds[slot] = seconds;
+        }
+        currentSeconds = seconds;
+        currentTransition = cachedTransition[slot];
+        currentInputResponse = cachedInputResponse[slot];
     }
 
     /** e^([[A, B], [0, 0]]·τ) = [[Φ(τ), Γ(τ)], [0, 1]] (Van Loan's block form). */
@@ -201,7 +237,7 @@ public final class LinearPlant implements Plant {
         if (pieces == pieceInput.length) {
             grow();
         }
-        int slot = (first + pieces) % pieceInput.length;
+        int slot = (first + pieces) & (pieceInput.length - 1);
         pieceInput[slot] = input;
         pieceSeconds[slot] = seconds;
         pieces++;
@@ -213,7 +249,7 @@ public final class LinearPlant implements Plant {
         double[] inputs = new double[capacity];
         double[] lengths = new double[capacity];
         for (int i = 0; i < pieces; i++) {
-            int from = (first + i) % pieceInput.length;
+            int from = (first + i) & (pieceInput.length - 1);
             inputs[i] = pieceInput[from];
             lengths[i] = pieceSeconds[from];
         }
