@@ -2,8 +2,6 @@ package org.loopwright.sim.config;
 
 import java.io.IOException;
 import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Collection;
@@ -65,13 +63,7 @@ public final class YamlDocument {
      * @throws InputFileException when the file cannot be read or is not valid YAML
      */
     public static YamlDocument read(Path file) {
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (" + e + ")", e);
-        }
-        return parse(file.toString(), text);
+        return parse(file.toString(), InputText.read(file));
     }
 
     /**

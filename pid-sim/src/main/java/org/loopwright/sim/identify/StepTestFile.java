@@ -1,18 +1,10 @@
 package org.loopwright.sim.identify;
 
-import java.io.IOException;
-import java.io.Reader;
-import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 
-import org.apache.commons.csv.CSVFormat;
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
 import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputText;
 
 /**
  * Reads a step test from CSV (Apache Commons CSV): a header row naming the columns {@code time}
@@ -29,12 +21,6 @@ public final class StepTestFile {
     /** Fewest data rows that can show a step and a response. */
     public static final int MIN_ROWS = 10;
 
-    private static final CSVFormat FORMAT = CSVFormat.RFC4180.builder()
-            .setCommentMarker('#')
-            .setIgnoreSurroundingSpaces(true)
-            .setIgnoreEmptyLines(true)
-            .get();
-
     private StepTestFile() {
     }
 
@@ -44,13 +30,7 @@ public final class StepTestFile {
      * @throws InputFileException when the file cannot be read or a header or cell is not allowed
      */
     public static StepTest read(Path file) {
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (" + e + ")", e);
-        }
-        return parse(file.toString(), text);
+        return parse(file.toString(), InputText.read(file));
     }
 
     /**
@@ -60,18 +40,7 @@ public final class StepTestFile {
      * @throws InputFileException when a header or cell is not allowed
      */
     public static StepTest parse(String fileName, String text) {
-        List<List<String>> rows = new ArrayList<>();
-        try (Reader reader = new StringReader(text);
-             CSVParser parser = CSVParser.builder().setReader(reader).setFormat(FORMAT).get()) {
-            for (CSVRecord record : parser) {
-                rows.add(record.toList());
-            }
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(fileName, "not valid CSV (" + e.getMessage() + ")", e);
-        }
-        if (rows.isEmpty()) {
-            throw InputFileException.whole(fileName, "has no header row; required columns: " + String.join(", ", COLUMNS));
-        }
+        List<List<String>> rows = InputText.csvRows(fileName, text, COLUMNS);
         List<String> header = rows.get(0);
         int[] index = new int[COLUMNS.size()];
         for (int c = 0; c < index.length; c++) {

@@ -2,24 +2,16 @@ package org.loopwright.sim.replay;
 
 import static java.util.Map.entry;
 
-import java.io.IOException;
-import java.io.Reader;
-import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Set;
 import java.util.regex.Pattern;
 
-import org.apache.commons.csv.CSVFormat;
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
 import org.loopwright.pid.Mode;
 import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputText;
 import org.loopwright.sim.config.Keywords;
 
 /**
@@ -52,11 +44,6 @@ public final class TraceFile {
     public static final Keywords<Mode> MODES = Keywords.of(entry("auto", Mode.AUTOMATIC), entry("manual", Mode.MANUAL),
             entry("track", Mode.TRACKING));
 
-    private static final CSVFormat FORMAT = CSVFormat.RFC4180.builder()
-            .setCommentMarker('#')
-            .setIgnoreSurroundingSpaces(true)
-            .setIgnoreEmptyLines(true)
-            .get();
     private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
 
     /** What a numeric column allows besides finite numbers. */
@@ -89,13 +76,7 @@ public final class TraceFile {
      * @throws InputFileException when the file cannot be read or a header or cell is not allowed
      */
     public static Trace read(Path file) {
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (" + e + ")", e);
-        }
-        return parse(file.toString(), text);
+        return parse(file.toString(), InputText.read(file));
     }
 
     /**
@@ -105,19 +86,7 @@ public final class TraceFile {
      * @throws InputFileException when a header or cell is not allowed
      */
     public static Trace parse(String fileName, String text) {
-        List<List<String>> rows = new ArrayList<>();
-        try (Reader reader = new StringReader(text); CSVParser parser = CSVParser.builder()
-                .setReader(reader).setFormat(FORMAT).get()) {
-            for (CSVRecord record : parser) {
-                rows.add(record.toList());
-            }
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(fileName, "not valid CSV (" + e.getMessage() + ")", e);
-        }
-        if (rows.isEmpty()) {
-            throw InputFileException.whole(fileName, "has no header row; required columns: "
-                    + String.join(", ", REQUIRED_COLUMNS));
-        }
+        List<List<String>> rows = InputText.csvRows(fileName, text, REQUIRED_COLUMNS);
         List<String> header = rows.get(0);
         checkHeader(fileName, header);
         List<List<String>> data = rows.subList(1, rows.size());
