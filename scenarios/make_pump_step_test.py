@@ -5,6 +5,9 @@ lag with dead time (gain 0.05 bar/%, time constant 2 s, dead time 0.4 s) on top 
 seeded sensor noise of 0.002 bar. Run: python3 make_pump_step_test.py
 """
 import numpy as np
+from pathlib import Path
+
+HERE = Path(__file__).resolve().parent  # the data is written beside this script
 
 h, end = 0.05, 15.0
 t = np.round(np.arange(0.0, end + h / 2, h), 6)
@@ -13,7 +16,7 @@ gain, tau, dead = 0.05, 2.0, 0.4
 elapsed = np.clip(t - 2.0 - dead, 0.0, None)
 y = 2.0 + gain * 40.0 + gain * 20.0 * (1.0 - np.exp(-elapsed / tau))
 y += np.random.default_rng(7).normal(0.0, 0.002, t.size)
-with open("pump-step-test.csv", "w") as f:
+with open(HERE / "pump-step-test.csv", "w") as f:
     f.write("time,input,output\n")
     for row in zip(t, u, y):
         f.write("%.2f,%.1f,%.5f\n" % row)

@@ -22,6 +22,9 @@ use cont2discrete(method='zoh') times exp(-j*w*h*d) instead, so only whole-perio
 import csv
 import numpy as np
 from scipy import signal
+from pathlib import Path
+
+HERE = Path(__file__).resolve().parent  # the data is written beside this script
 
 INTEGRAL = {"FORWARD_EULER": "euler", "BACKWARD_EULER": "backward_diff", "TUSTIN": "bilinear"}
 DERIVATIVE = {"BACKWARD_EULER": "backward_diff", "TUSTIN": "bilinear", "STEP_INVARIANT": "zoh",
@@ -116,12 +119,12 @@ def plant_rows():
 
 
 def main():
-    with open("controller_responses.csv", "w", newline="") as f:
+    with open(HERE / "controller_responses.csv", "w", newline="") as f:
         out = csv.writer(f)
         out.writerow(["case", "kp", "ki", "kd", "tf", "integral_method", "derivative_method", "period",
                       "omega", "re", "im"])
         out.writerows(controller_rows())
-    with open("zoh_plant_responses.csv", "w", newline="") as f:
+    with open(HERE / "zoh_plant_responses.csv", "w", newline="") as f:
         out = csv.writer(f)
         out.writerow(["case", "numerator", "denominator", "dead_time", "period", "omega", "re", "im"])
         out.writerows(plant_rows())

@@ -106,6 +106,12 @@ public final class ControllerSettings {
         safeOutput = b.safeOutput;
         errorDeadband = nonNegativeFinite("errorDeadband", b.errorDeadband);
         wrapSpan = nonNegativeFinite("wrapSpan", b.wrapSpan);
+        if (wrapSpan > 0.0 && proportionalSetpointWeight != 1.0) {
+            // b·r has no meaning on a circle: the proportional term would jump by Kp·(1 − b)·span
+            // whenever the setpoint crosses the wrap point
+            throw new InvalidSettingException("proportionalSetpointWeight", proportionalSetpointWeight,
+                    "must be 1 on a circular process variable (wrapSpan=" + wrapSpan + ")");
+        }
 
         ParallelGains parallel = gains.toParallel();
         proportionalGain = parallel.proportionalGain();

@@ -53,11 +53,12 @@ public record StateSnapshot(Action action, OutputKind outputKind, double outputM
     private static final String HEADER = "loopwright-state";
 
     void requireCompatibleWith(ControllerSettings s) {
-        mismatch("action", action, s.action());
-        mismatch("outputKind", outputKind, s.outputKind());
-        mismatch("outputMin", outputMin, s.outputMin());
-        mismatch("outputMax", outputMax, s.outputMax());
-        mismatch("wrapSpan", wrapSpan, s.wrapSpan());
+        // named as in the text form, which is what the user has in front of them
+        mismatch("action", word(action), word(s.action()));
+        mismatch("output-kind", word(outputKind), word(s.outputKind()));
+        mismatch("output-min", outputMin, s.outputMin());
+        mismatch("output-max", outputMax, s.outputMax());
+        mismatch("wrap-span", wrapSpan, s.wrapSpan());
     }
 
     private static void mismatch(String field, Object saved, Object current) {

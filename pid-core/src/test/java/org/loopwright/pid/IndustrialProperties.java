@@ -40,7 +40,7 @@ class IndustrialProperties {
     private static ControllerSettings retuned(Random rnd, ControllerSettings from) {
         ControllerSettings.Builder b = from.toBuilder()
                 .gains(RandomSettings.inRandomForm(rnd, RandomSettings.idealGains(rnd)))
-                .setpointWeights(rnd.nextDouble(), rnd.nextDouble())
+                .setpointWeights(from.wrapSpan() > 0.0 ? 1.0 : rnd.nextDouble(), rnd.nextDouble())
                 .derivativeFilterRatio(2.0 + 18.0 * rnd.nextDouble())
                 .integralMethod(RandomSettings.pick(rnd, IntegralMethod.values()))
                 .derivativeMethod(RandomSettings.pick(rnd, DerivativeMethod.values()))

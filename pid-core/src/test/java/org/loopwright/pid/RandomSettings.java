@@ -81,7 +81,8 @@ final class RandomSettings {
             b.errorDeadband(0.5 * rnd.nextDouble());
         }
         if (rnd.nextInt(6) == 0) {
-            b.wrapSpan(360.0);
+            // a circular process variable takes b = 1 (b·r has no meaning on a circle)
+            b.wrapSpan(360.0).setpointWeights(1.0, rnd.nextDouble());
         }
         if (rnd.nextBoolean()) {
             b.trackingTimeSeconds(logUniform(rnd, 0.01, 100.0));

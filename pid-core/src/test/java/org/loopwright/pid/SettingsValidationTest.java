@@ -90,6 +90,8 @@ class SettingsValidationTest {
                 row("safeOutput must be finite: safeOutput=-Infinity", () -> valid().faultPolicy(FaultPolicy.SAFE_OUTPUT, -INF).build()),
                 row("errorDeadband must be finite and >= 0: errorDeadband=-0.1", () -> valid().errorDeadband(-0.1).build()),
                 row("wrapSpan must be finite and >= 0: wrapSpan=Infinity", () -> valid().wrapSpan(INF).build()),
+                row("proportionalSetpointWeight must be 1 on a circular process variable (wrapSpan=360.0):"
+                        + " proportionalSetpointWeight=0.5", () -> valid().wrapSpan(360.0).setpointWeights(0.5, 0.0).build()),
                 row("trackingTimeSeconds must be finite and > 0: trackingTimeSeconds=0.0", () -> valid().trackingTimeSeconds(0.0).build()),
                 row("trackingTimeSeconds must be finite and > 0: trackingTimeSeconds=Infinity",
                         () -> valid().trackingTimeSeconds(INF).build()),

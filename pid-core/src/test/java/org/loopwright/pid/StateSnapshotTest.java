@@ -99,15 +99,15 @@ class StateSnapshotTest {
     static Stream<Arguments> incompatibleSettings() {
         return Stream.of(
                 Arguments.of(bath().outputRange(0.0, 50.0),
-                        "snapshot taken under another configuration: outputMax=100.0 in the snapshot, outputMax=50.0 in this controller"),
+                        "snapshot taken under another configuration: output-max=100.0 in the snapshot, output-max=50.0 in this controller"),
                 Arguments.of(bath().outputRange(-100.0, 100.0),
-                        "snapshot taken under another configuration: outputMin=0.0 in the snapshot, outputMin=-100.0 in this controller"),
+                        "snapshot taken under another configuration: output-min=0.0 in the snapshot, output-min=-100.0 in this controller"),
                 Arguments.of(bath().action(Action.DIRECT),
-                        "snapshot taken under another configuration: action=REVERSE in the snapshot, action=DIRECT in this controller"),
+                        "snapshot taken under another configuration: action=reverse in the snapshot, action=direct in this controller"),
                 Arguments.of(bath().outputKind(OutputKind.INCREMENT),
-                        "snapshot taken under another configuration: outputKind=POSITION in the snapshot, outputKind=INCREMENT in this controller"),
+                        "snapshot taken under another configuration: output-kind=position in the snapshot, output-kind=increment in this controller"),
                 Arguments.of(bath().wrapSpan(360.0),
-                        "snapshot taken under another configuration: wrapSpan=0.0 in the snapshot, wrapSpan=360.0 in this controller"));
+                        "snapshot taken under another configuration: wrap-span=0.0 in the snapshot, wrap-span=360.0 in this controller"));
     }
 
     @ParameterizedTest

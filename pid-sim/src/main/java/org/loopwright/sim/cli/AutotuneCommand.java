@@ -49,7 +49,7 @@ public final class AutotuneCommand implements Callable<Integer> {
     private Path scenarioFile;
 
     @Option(names = "--relay-amplitude", paramLabel = "D",
-            description = "Relay amplitude d: the output switches between bias - d and bias + d (default: 10 % of the"
+            description = "Relay amplitude d: the output switches between bias - d and bias + d (default: 10 %% of the"
                     + " controller's output range).")
     private Double relayAmplitude;
 
@@ -58,7 +58,7 @@ public final class AutotuneCommand implements Callable<Integer> {
     private Double hysteresis;
 
     @Option(names = "--excursion-limit", paramLabel = "BAND",
-            description = "Abort when the process variable leaves setpoint +/- BAND (default: 25 % of the setpoint).")
+            description = "Abort when the process variable leaves setpoint +/- BAND (default: 25 %% of the setpoint, or 1 at setpoint 0).")
     private Double excursionLimit;
 
     @Option(names = "--json", description = "Print JSON instead of text.")

@@ -38,8 +38,8 @@ import picocli.CommandLine.Spec;
  * file, a nonlinear plant, an on-off controller, a bad period or an unwritable DIR.
  */
 @Command(name = "compare", mixinStandardHelpOptions = true,
-        description = {"Compare every integral x derivative discretisation at each sample period with the continuous",
-                "design: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
+        description = {"Compare every integral x derivative discretisation at each sample period with the continuous design.",
+                "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
                 "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller."})
 public final class CompareCommand implements Callable<Integer> {
 

@@ -32,9 +32,9 @@ import picocli.CommandLine.Spec;
  * nonlinear plant or an on-off controller.
  */
 @Command(name = "margins", mixinStandardHelpOptions = true,
-        description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop: the continuous design and the",
-                "loop as sampled (controller at z = e^(jωh), plant by its zero-order-hold equivalent),",
-                "with closed-loop stability decided from the poles. Needs a linear plant and a PID controller."})
+        description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop, continuous and sampled.",
+                "The sampled loop has the controller at z = e^(jωh) and the plant by its zero-order-hold equivalent;",
+                "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller."})
 public final class MarginsCommand implements Callable<Integer> {
 
     /** The table lists this many phase crossovers at most (JSON lists them all). */

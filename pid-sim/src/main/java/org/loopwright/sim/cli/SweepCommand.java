@@ -49,9 +49,9 @@ import picocli.CommandLine.Spec;
  * nonlinear plant.
  */
 @Command(name = "sweep", mixinStandardHelpOptions = true,
-        description = {"Simulate the scenario on many plants drawn around its own (gain, time constants and dead",
-            "time each scaled by a factor uniform within the spread) and report the spread of the response:",
-            "overshoot, settling time, IAE, time saturated (min, median, p90, max), unstable and unsettled",
+        description = {"Simulate the scenario on many plants drawn around its own and report the spread of the response.",
+            "Gain, time constants and dead time are each scaled by a factor uniform within the spread; the report",
+            "gives overshoot, settling time, IAE, time saturated (min, median, p90, max), unstable and unsettled",
             "shares, the worst run. Writes sweep-runs.csv, sweep-measurements.png/.svg and report.html."})
 public final class SweepCommand implements Callable<Integer> {
 
@@ -72,8 +72,8 @@ public final class SweepCommand implements Callable<Integer> {
 
     @Option(names = "--spread", paramLabel = "KEY=P%[,KEY=P%...]",
             defaultValue = "gain=20%,time-constant=20%,dead-time=20%",
-            description = {"How far each parameter strays, keys gain, time-constant, dead-time, each 0% to below",
-                "100%; the factor is uniform on [1-P, 1+P]; keys left out do not vary (default: ${DEFAULT-VALUE})."})
+            description = {"How far each parameter strays, keys gain, time-constant, dead-time, each 0%% to below",
+                "100%%; the factor is uniform on [1-P, 1+P]; keys left out do not vary (default: ${DEFAULT-VALUE})."})
     private String spreadText;
 
     @Option(names = "--seed", paramLabel = "S", defaultValue = "1",

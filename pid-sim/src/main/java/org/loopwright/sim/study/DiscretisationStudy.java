@@ -152,7 +152,12 @@ public final class DiscretisationStudy {
                     .integralMethod(integral == null ? settings.integralMethod() : integral)
                     .derivativeMethod(derivative == null ? settings.derivativeMethod() : derivative).build();
         } catch (InvalidSettingException e) {
-            return new StudyRow(StudyRow.Kind.NOT_APPLICABLE, integral, derivative, h, e.getMessage(), Double.NaN,
+            // in the study's own words: the settings' message names builder fields
+            String note = derivative == DerivativeMethod.FORWARD_EULER
+                    ? "a forward-Euler derivative needs h < 2·Tf: h=" + h + " s, Tf="
+                            + settings.derivativeFilterTimeSeconds() + " s"
+                    : e.getMessage();
+            return new StudyRow(StudyRow.Kind.NOT_APPLICABLE, integral, derivative, h, note, Double.NaN,
                     Double.NaN, Double.NaN, null, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
                     crossover * h, null, null);
         }

@@ -41,7 +41,7 @@ class ControllerFileTest {
                 integral-time: 30.0
                 derivative-time: 5.0
                 sample-period: 0.1
-                setpoint-weight-proportional: 0.8
+                setpoint-weight-proportional: 1.0
                 setpoint-weight-derivative: 0.5
                 derivative-filter: 8
                 integral-method: backward-euler
@@ -60,7 +60,7 @@ class ControllerFileTest {
                 """);
         assertThat(s.gains()).isEqualTo(new IdealGains(2.0, 30.0, 5.0));
         assertThat(s.samplePeriodSeconds()).isEqualTo(0.1);
-        assertThat(s.proportionalSetpointWeight()).isEqualTo(0.8);
+        assertThat(s.proportionalSetpointWeight()).isEqualTo(1.0);
         assertThat(s.derivativeSetpointWeight()).isEqualTo(0.5);
         assertThat(s.derivativeFilterRatio()).isEqualTo(8.0);
         assertThat(s.derivativeFilterTimeSeconds()).isEqualTo(5.0 / 8.0);
@@ -248,14 +248,14 @@ class ControllerFileTest {
         return Stream.of(
                 ControllerSettings.builder().gains(IdealGains.pi(2.0, 30.0)).samplePeriodSeconds(0.1).build(),
                 ControllerSettings.builder().gains(new IdealGains(2.0, 30.0, 5.0)).samplePeriodSeconds(0.1)
-                        .derivativeFilterRatio(7.0).outputRange(0.0, 100.0).build(),
+                        .derivativeFilterRatio(7.0).outputRange(0.0, 100.0).setpointWeights(0.6, 0.3).build(),
                 ControllerSettings.builder().gains(new ParallelGains(0.7, 0.013, 1.9)).samplePeriodSeconds(0.01)
                         .derivativeFilterTimeSeconds(0.3).integralMethod(IntegralMethod.FORWARD_EULER)
                         .derivativeMethod(DerivativeMethod.STEP_INVARIANT).action(Action.DIRECT)
                         .outputRange(-12.5, Double.POSITIVE_INFINITY).windupProtection(WindupProtection.ACTUATOR_TRACKING)
                         .trackingTimeSeconds(4.0).outputSlewPerSecond(3.0).setpointSlewPerSecond(0.25)
                         .faultPolicy(FaultPolicy.SAFE_OUTPUT, -1.0).errorDeadband(0.05).wrapSpan(360.0)
-                        .outputKind(OutputKind.INCREMENT).setpointWeights(0.6, 0.3).build(),
+                        .outputKind(OutputKind.INCREMENT).setpointWeights(1.0, 0.3).build(),
                 ControllerSettings.builder().gains(new SeriesGains(1.1, 12.0, 3.0)).samplePeriodSeconds(1e-4)
                         .derivativeMethod(DerivativeMethod.TUSTIN).windupProtection(WindupProtection.NONE).build(),
                 ControllerSettings.builder().gains(new ParallelGains(0.0, 0.5, 0.0)).samplePeriodSeconds(0.2)

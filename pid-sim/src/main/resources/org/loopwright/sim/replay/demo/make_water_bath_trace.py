@@ -13,6 +13,9 @@ Run from this directory: python3 make_water_bath_trace.py
 """
 import math
 import random
+from pathlib import Path
+
+HERE = Path(__file__).resolve().parent  # the data is written beside this script
 
 PERIOD_S = 2.0
 DURATION_S = 1800.0
@@ -58,7 +61,7 @@ def main():
         lines.append(f"{t:.1f},{setpoint:.1f},{cell},{'manual' if manual else 'auto'},"
                      f"{MANUAL_PERCENT if manual else ''},{heater:.2f}")
         temperature = ROOM_C + (temperature - ROOM_C) * decay + gain_c_per_percent * heater * (1.0 - decay)
-    with open("water-bath-trace.csv", "w", encoding="utf-8") as out:
+    with open(HERE / "water-bath-trace.csv", "w", encoding="utf-8") as out:
         out.write("\n".join(lines) + "\n")
 
 
