@@ -292,6 +292,6 @@ class ControllerFileTest {
         Path missing = dir.resolve("nowhere.yaml");
         assertThatThrownBy(() -> ControllerFile.read(missing))
                 .isInstanceOf(InputFileException.class)
-                .hasMessageStartingWith(missing + ": cannot be read (java.nio.file.NoSuchFileException");
+                .hasMessage(missing + ": cannot be read (no such file)");
     }
 }
