@@ -1,6 +1,7 @@
 package org.loopwright.sim.frequency;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 
 import org.hipparchus.analysis.polynomials.PolynomialFunction;
@@ -15,6 +16,9 @@ import org.hipparchus.linear.RealMatrix;
  * delay z^d gives) are split off first, exactly.
  */
 final class PolynomialRoots {
+
+    /** Largest |p(z)| accepted for a root, relative to Σ|c_i|·|z|^i (double rounding is ~1e-16 of it). */
+    private static final double ROOT_RESIDUAL = 1e-9;
 
     private PolynomialRoots() {
     }
@@ -40,10 +44,42 @@ final class PolynomialRoots {
                 companion.setEntry(j, j - 1, 1.0);
             }
         }
-        for (Complex root : new EigenDecompositionNonSymmetric(companion).getEigenvalues()) {
-            roots.add(root);
+        double[] reduced = new double[m + 1];
+        System.arraycopy(c, lowest, reduced, 0, m + 1);
+        // Hipparchus' decomposition can settle on wrong eigenvalues for some companion matrices (seen:
+        // a cubic with roots -1, 0.689, -0.205 came out as -0.156 +/- 0.844i, -0.205); the candidates
+        // are checked against the polynomial itself, and when they fail the transpose (same eigenvalues,
+        // another path through the iteration) is tried and the better of the two kept
+        Complex[] found = new EigenDecompositionNonSymmetric(companion).getEigenvalues();
+        double residual = worstResidual(reduced, found);
+        if (residual > ROOT_RESIDUAL) {
+            Complex[] again = new EigenDecompositionNonSymmetric(companion.transpose()).getEigenvalues();
+            if (worstResidual(reduced, again) < residual) {
+                found = again;
+            }
         }
+        roots.addAll(Arrays.asList(found));
         return roots;
+    }
+
+    /** The largest |p(z)| over the candidates, relative to the size of the terms Σ|c_i|·|z|^i. */
+    private static double worstResidual(double[] ascending, Complex[] candidates) {
+        double worst = 0.0;
+        for (Complex z : candidates) {
+            Complex value = Complex.ZERO;
+            for (int i = ascending.length - 1; i >= 0; i--) {
+                value = value.multiply(z).add(ascending[i]);
+            }
+            double scale = 0.0;
+            double power = 1.0;
+            for (double coefficient : ascending) {
+                scale += Math.abs(coefficient) * power;
+                power *= z.norm();
+            }
+            double relative = value.norm() / scale;
+            worst = Double.isNaN(relative) ? Double.POSITIVE_INFINITY : Math.max(worst, relative);
+        }
+        return worst;
     }
 
     /** The roots of a polynomial given in descending powers (as a transfer function holds it). */
