@@ -29,10 +29,13 @@ import java.util.concurrent.atomic.AtomicLong;
  * of samples in automatic with the output at a limit.
  * <li><b>Frozen measurement</b> (common practice): the measurement has stayed within the quantisation
  * step of one value for N samples while the output moved by more than the threshold; warn at N/2.
- * <li><b>Noise</b>: σ estimated from the first difference of the measurement, σ = (√π/2)·mean|Δy|
- * (for white Gaussian noise Δy has standard deviation σ√2 and mean absolute value 2σ/√π), the mean
- * running with time constant {@link MonitorSettings#noiseWindowSeconds()}. Slow process movement adds
- * little when h is small against the time scale; an oscillation adds its own.
+ * <li><b>Noise</b>: σ estimated from the spread of the first difference of the measurement: for white
+ * Gaussian noise Δy is N(0, 2σ²), whose median absolute value is 0.6745·√2·σ, so σ = median|Δy| / 0.9539.
+ * The median is tracked in O(1) by a multiplicative sign step, m ← m·(1 + η) when |Δy| &gt; m and
+ * m ← m/(1 + η) when smaller (a Robbins–Monro quantile estimate in log scale), η = h/window with
+ * window {@link MonitorSettings#noiseWindowSeconds()} (larger, 1/k, over the first samples). A
+ * setpoint step or a slip moves the estimate by at most a factor (1 + η) per sample, where a running
+ * mean would take in the whole jump; steady process movement still adds to it.
  * </ul>
  *
  * <p>A sample with a NaN or infinite value is counted and skipped: it changes no other figure. A change
@@ -63,8 +66,9 @@ public final class LoopMonitor {
     /** Filter time constant for the idle index's signals, in time scales (our choice). */
     static final double IDLE_FILTER_TIME_SCALES = 0.05;
     /** Differences taken before the noise estimate is trusted (our choice). */
-    static final long NOISE_MIN_DIFFERENCES = 30;
-    private static final double NOISE_FROM_MEAN_ABS_DIFF = Math.sqrt(Math.PI) / 2.0;
+    static final long NOISE_MIN_DIFFERENCES = 200;
+    /** median|Δy| = 0.67449·√2·σ for white Gaussian noise of standard deviation σ. */
+    private static final double MEDIAN_ABS_DIFFERENCE_PER_SIGMA = 0.6744897501960817 * Math.sqrt(2.0);
     private static final LoopCondition[] CONDITIONS = LoopCondition.values();
 
     private final MonitorSettings settings;
@@ -72,7 +76,9 @@ public final class LoopMonitor {
     private final double iaeLimit;
     private final double forgetting;
     private final double saturationWeight;
-    private final double noiseWeight;
+    private final double noiseStep;
+    private final double noiseGrowth;
+    private final double noiseShrink;
     private final double idleFilterWeight;
     private final double recoverySign;
     private final double lowLimit;
@@ -91,7 +97,7 @@ public final class LoopMonitor {
     private boolean previousAutomatic;
     private double previousMeasurement;
 
-    private double meanAbsDifference;
+    private double medianAbsDifference;
     private long differences;
 
     private double frozenReference;
@@ -131,7 +137,9 @@ public final class LoopMonitor {
         iaeLimit = settings.iaeLimit();
         forgetting = 1.0 - Math.min(1.0, h / settings.supervisionTimeSeconds());
         saturationWeight = Math.min(1.0, h / settings.saturationWindowSeconds());
-        noiseWeight = Math.min(1.0, h / settings.noiseWindowSeconds());
+        noiseStep = Math.min(1.0, h / settings.noiseWindowSeconds());
+        noiseGrowth = 1.0 + noiseStep;
+        noiseShrink = 1.0 / noiseGrowth;
         double filterTime = IDLE_FILTER_TIME_SCALES * settings.timeScaleSeconds();
         idleFilterWeight = h / (h + filterTime);
         recoverySign = settings.action().sign();
@@ -173,9 +181,7 @@ public final class LoopMonitor {
         samples++;
         double error = setpoint - measurement;
         if (hasPrevious) {
-            differences++;
-            meanAbsDifference += Math.max(noiseWeight, 1.0 / differences)
-                    * (Math.abs(measurement - previousMeasurement) - meanAbsDifference);
+            trackNoise(Math.abs(measurement - previousMeasurement));
         }
         watchFrozen(measurement, output);
         if (automatic) {
@@ -192,6 +198,20 @@ public final class LoopMonitor {
         previousAutomatic = automatic;
         previousMeasurement = measurement;
         publishStatuses();
+    }
+
+    private void trackNoise(double absDifference) {
+        differences++;
+        if (medianAbsDifference == 0.0) {
+            medianAbsDifference = absDifference;
+        } else if (differences * noiseStep >= 1.0) {
+            medianAbsDifference *= absDifference > medianAbsDifference ? noiseGrowth
+                    : absDifference < medianAbsDifference ? noiseShrink : 1.0;
+        } else {
+            double growth = 1.0 + 1.0 / differences;
+            medianAbsDifference *= absDifference > medianAbsDifference ? growth
+                    : absDifference < medianAbsDifference ? 1.0 / growth : 1.0;
+        }
     }
 
     private void watchFrozen(double measurement, double output) {
@@ -310,7 +330,7 @@ public final class LoopMonitor {
     }
 
     private double noise() {
-        return differences == 0 ? Double.NaN : NOISE_FROM_MEAN_ABS_DIFF * meanAbsDifference;
+        return differences == 0 ? Double.NaN : medianAbsDifference / MEDIAN_ABS_DIFFERENCE_PER_SIGMA;
     }
 
     /** The condition's status after the last sample; any thread. */

@@ -111,7 +111,7 @@ class LoopMonitorTest {
 
     @Test
     void theNoiseEstimateRecoversTheStandardDeviationOfWhiteGaussianNoise() {
-        // E|Δy| = 2σ/√π for white Gaussian noise of standard deviation σ (Δy is N(0, 2σ²))
+        // median|Δy| = 0.6745·√2·σ for white Gaussian noise of standard deviation σ (Δy is N(0, 2σ²))
         for (double sigma : new double[] {0.02, 0.07, 0.15}) {
             LoopMonitor monitor = new LoopMonitor(settings(2.0, 0.1).noiseWindowSeconds(1000.0).build());
             Random random = new Random(42);
@@ -123,6 +123,21 @@ class LoopMonitorTest {
                     : sigma > 0.05 ? ConditionStatus.WARN : ConditionStatus.OK;
             assertThat(monitor.status(LoopCondition.NOISE)).as("sigma %s", sigma).isEqualTo(expected);
         }
+    }
+
+    /** Setpoint steps of 100 σ every 20 s move the median-based estimate by a few per cent only. */
+    @Test
+    void setpointStepsHardlyMoveTheNoiseEstimate() {
+        double sigma = 0.01;
+        LoopMonitor monitor = new LoopMonitor(settings(2.0, 0.1).build());
+        Random random = new Random(9);
+        double y = 0.0;
+        for (int k = 0; k < 200_000; k++) {
+            double r = (k / 2000) % 2 == 0 ? 0.0 : 1.0;
+            y += 0.05 * (r - y); // a first-order response with a 0.2 s time constant
+            monitor.sample(r, y + sigma * random.nextGaussian(), 50.0, true);
+        }
+        assertThat(monitor.readSummary(new MonitorSummary()).noiseStdDev()).isCloseTo(sigma, within(0.1 * sigma));
     }
 
     /**

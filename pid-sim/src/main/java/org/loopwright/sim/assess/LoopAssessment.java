@@ -265,26 +265,28 @@ public final class LoopAssessment {
     }
 
     private static Finding noise(LoggedLoop loop, MonitorSettings s) {
-        String method = "sigma = sqrt(pi)/2 * mean |first difference of the measurement|";
-        double sum = 0.0;
-        long count = 0;
+        String method = "sigma = median |first difference of the measurement| / (0.6745 * sqrt 2)";
+        double[] differences = new double[Math.max(0, loop.length() - 1)];
+        int count = 0;
         for (int k = 1; k < loop.length(); k++) {
             double d = loop.measurement(k) - loop.measurement(k - 1);
             if (Double.isFinite(d)) {
-                sum += Math.abs(d);
-                count++;
+                differences[count++] = Math.abs(d);
             }
         }
         if (count < 30) {
             return Finding.notAssessed(LoopCondition.NOISE.label(), "", method, "common practice",
                     count + " pairs of consecutive measurements; the estimate needs 30");
         }
-        double sigma = Math.sqrt(Math.PI) / 2.0 * sum / count;
+        double[] used = java.util.Arrays.copyOf(differences, count);
+        java.util.Arrays.sort(used);
+        double median = count % 2 == 1 ? used[count / 2] : 0.5 * (used[count / 2 - 1] + used[count / 2]);
+        double sigma = median / (0.6744897501960817 * Math.sqrt(2.0));
         FindingStatus status = sigma > s.noiseAlarm() ? FindingStatus.ALARM
                 : sigma > s.noiseWarn() ? FindingStatus.WARN : FindingStatus.OK;
         return new Finding(LoopCondition.NOISE.label(), status, sigma, s.noiseAlarm(), "measurement units", method,
-                "common practice", String.format(Locale.ROOT, "white Gaussian noise assumed; process movement adds"
-                        + " to it; warn above %.4g (a/2), alarm above a", s.noiseWarn()));
+                "common practice", String.format(Locale.ROOT, "over the whole record; white Gaussian noise assumed"
+                        + " (the median ignores steps and slips); warn above %.4g (a/2), alarm above a", s.noiseWarn()));
     }
 
     private static Finding minimumVariance(AssessmentOptions options, double[] error, int[] steady, double h) {

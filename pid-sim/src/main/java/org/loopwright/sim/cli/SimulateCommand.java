@@ -8,6 +8,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 
+import org.loopwright.sim.assess.MonitorVerdict;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
@@ -105,6 +106,7 @@ public final class SimulateCommand implements Callable<Integer> {
             out.println("Step figures " + ResponseWindow.of(scenario).describe()
                     + " (the first setpoint change until the next change or load step); integrals to the end:");
             out.print(MetricsReport.table(metrics, cycle));
+            out.println(MonitorVerdict.of(scenario, trajectory));
             out.println("Wrote trajectory.csv, response.png, response.svg and report.html in " + outDirectory);
         }
         out.flush();
