@@ -33,6 +33,8 @@ public final class Scenario {
 
     /** The most samples a scenario may ask for (about 300 MB of trajectory). */
     public static final long MAX_SAMPLES = 5_000_000L;
+    /** The most integrator sub-steps a nonlinear plant may take per sample period. */
+    public static final long MAX_SUB_STEPS_PER_SAMPLE = 10_000L;
 
     private final ControllerSettings controller;
     private final OnOffSettings onOffController;
@@ -62,6 +64,12 @@ public final class Scenario {
         if (sensor.jitterSeconds() >= samplePeriodSeconds) {
             throw new IllegalArgumentException("jitter must be < the sample period (" + samplePeriodSeconds
                     + "): jitter=" + sensor.jitterSeconds());
+        }
+        if (samplePeriodSeconds / plant.integrationStepSeconds() > MAX_SUB_STEPS_PER_SAMPLE) {
+            throw new IllegalArgumentException("integration-step must give at most " + MAX_SUB_STEPS_PER_SAMPLE
+                    + " sub-steps per sample at the sample period " + samplePeriodSeconds + " (integration-step >= "
+                    + samplePeriodSeconds / MAX_SUB_STEPS_PER_SAMPLE + "): integration-step="
+                    + plant.integrationStepSeconds());
         }
         if (sampleCount() > MAX_SAMPLES) {
             throw new IllegalArgumentException("duration must give at most " + MAX_SAMPLES

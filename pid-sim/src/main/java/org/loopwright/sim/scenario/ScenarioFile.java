@@ -179,7 +179,8 @@ public final class ScenarioFile {
             } catch (IllegalArgumentException e) {
                 // checks across parts: duration against the sample period, jitter against it
                 String key = e.getMessage().substring(0, e.getMessage().indexOf(' '));
-                String at = doc.has("/sensor/" + key) ? "/sensor/" + key : doc.has("/" + key) ? "/" + key : "";
+                String at = doc.has("/sensor/" + key) ? "/sensor/" + key
+                        : doc.has("/plant/" + key) ? "/plant/" + key : doc.has("/" + key) ? "/" + key : "";
                 throw doc.error(at, e.getMessage());
             }
         }

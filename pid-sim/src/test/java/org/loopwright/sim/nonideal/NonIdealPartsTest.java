@@ -103,7 +103,9 @@ class NonIdealPartsTest {
                 Arguments.of((Runnable) () -> new ActuatorModel(0, 1, 1, -1), "dead-zone must be finite and >= 0: dead-zone=-1.0"),
                 Arguments.of((Runnable) () -> new SensorModel(-1, 0, 0, 0, 0),
                         "noise-std-dev must be finite and >= 0: noise-std-dev=-1.0"),
-                Arguments.of((Runnable) () -> new SensorModel(0, 0, -2, 0, 0), "delay-samples must be >= 0: delay-samples=-2"),
+                Arguments.of((Runnable) () -> new SensorModel(0, 0, -2, 0, 0),
+                        "delay-samples must be >= 0 and <= 100 (a longer delay belongs in the plant's dead-time):"
+                                + " delay-samples=-2"),
                 Arguments.of((Runnable) () -> new SensorModel(0, 0, 0, 0, 1.0),
                         "dropout-probability must be >= 0 and < 1: dropout-probability=1.0"));
     }
