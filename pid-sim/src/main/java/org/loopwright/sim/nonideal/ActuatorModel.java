@@ -1,8 +1,7 @@
 package org.loopwright.sim.nonideal;
 
-import org.loopwright.pid.SettingChecks;
-
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 
 /**
  * What the actuator does to the controller's output before the plant sees it, in this order: a dead

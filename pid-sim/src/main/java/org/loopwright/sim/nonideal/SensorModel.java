@@ -1,8 +1,7 @@
 package org.loopwright.sim.nonideal;
 
-import org.loopwright.pid.SettingChecks;
-
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 
 /**
  * What stands between the process and the controller's measurement, applied in this order: a delay
