@@ -21,4 +21,7 @@ public sealed interface PlantModel permits TransferFunction, DcMotorModel, Therm
     default double integrationStepSeconds() {
         return Double.POSITIVE_INFINITY;
     }
+
+    /** @return the kind of model, as a scenario file names it (any transfer function is {@link PlantType#TRANSFER_FUNCTION}) */
+    PlantType type();
 }
