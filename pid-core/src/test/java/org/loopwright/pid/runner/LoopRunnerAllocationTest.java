@@ -77,8 +77,8 @@ class LoopRunnerAllocationTest {
             return k % 101 == 0 ? Double.NaN : 55.0 + 0.01 * (k % 50);
         };
         AllocationProbe listener = new AllocationProbe(50_000, 200_000);
-        LoopRunner runner = new LoopRunner(RunnerSettings.builder().periodNanos(PERIOD).clock(clock)
-                .waitStrategy(WaitStrategy.HYBRID).spinMarginNanos(20_000).periodMode(PeriodMode.MEASURED)
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder().clock(clock)
+                .waitStrategy(WaitStrategy.PARK_THEN_SPIN).spinMarginNanos(20_000).periodMode(PeriodMode.MEASURED)
                 .overrunPolicy(OverrunPolicy.SKIP_MISSED).daemon(true).build(),
                 bathHeater(), () -> 60.0, probe, u -> heater[0] = u, listener);
         listener.runner = runner;
@@ -97,8 +97,8 @@ class LoopRunnerAllocationTest {
         // 50 kHz, parking until 10 µs before each deadline: 0.6 s of real time (more when parks overrun)
         long period = 20_000L;
         AllocationProbe listener = new AllocationProbe(10_000, 20_000);
-        LoopRunner runner = new LoopRunner(RunnerSettings.builder().periodNanos(period)
-                .waitStrategy(WaitStrategy.HYBRID).spinMarginNanos(10_000).periodMode(PeriodMode.MEASURED)
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder()
+                .waitStrategy(WaitStrategy.PARK_THEN_SPIN).spinMarginNanos(10_000).periodMode(PeriodMode.MEASURED)
                 .daemon(true).build(),
                 bathHeater(), () -> 60.0, () -> 58.5, u -> { }, listener);
         listener.runner = runner;
