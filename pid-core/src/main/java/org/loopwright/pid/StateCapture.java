@@ -4,7 +4,9 @@ package org.loopwright.pid;
  * A reusable holder that a controller copies its whole dynamic state into without allocating, so a
  * loop thread can take a snapshot at a caller's request and the caller turns it into a
  * {@link StateSnapshot} on its own thread (the allocation happens there). Used by the runner's
- * operator channel; see {@code LoopRunner#operator()}.
+ * operator channel; see {@code LoopRunner#operator()}. Like {@link PidController#snapshot()}, it
+ * holds only a state the controller itself reached, so the snapshot it makes is as valid as one
+ * taken directly.
  *
  * <p>Thread-safe for one writer and one reader at a time: {@link PidController#captureState} writes
  * the fields and then bumps {@link #captureCount()} (a volatile write); a reader that has seen the
@@ -52,9 +54,9 @@ public final class StateCapture {
         if (captureCount == 0) {
             throw new IllegalStateException("nothing captured yet: captureCount=0");
         }
-        return new StateSnapshot(action, outputKind, outputMin, outputMax, wrapSpan, mode, started, integral,
-                derivativeState, previousError, previousSetpoint, previousMeasurement, previousUnlimited,
-                previousOutput, previousFeedforward, feedforwardApplied, manualValue, faultCount);
+        return new StateSnapshot(new StateSnapshot.Values(action, outputKind, outputMin, outputMax, wrapSpan, mode,
+                started, integral, derivativeState, previousError, previousSetpoint, previousMeasurement,
+                previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied, manualValue, faultCount));
     }
 
     void write(ControllerSettings s, Mode mode, boolean started, double integral, double derivativeState,

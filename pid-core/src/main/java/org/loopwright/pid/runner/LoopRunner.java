@@ -2,6 +2,7 @@ package org.loopwright.pid.runner;
 
 import java.time.Duration;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.locks.LockSupport;
 
@@ -11,6 +12,7 @@ import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
 import org.loopwright.pid.StateCapture;
 import org.loopwright.pid.StateSnapshot;
+import org.loopwright.pid.monitor.LoopMonitor;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
@@ -33,6 +35,10 @@ import org.slf4j.LoggerFactory;
  * a faulty sample too, and write the policy's output once more when it differs. Either way the tick
  * counts as failed; after {@link RunnerSettings#maxConsecutiveFailures()} failed ticks in a row the
  * runner stops and {@link #stopReason()} says why.
+ *
+ * <p>A runner built with a {@link LoopMonitor} feeds it once per tick, after the output is written, with
+ * the setpoint, the measurement, the output the actuator was given and whether the controller is in
+ * automatic.
  *
  * <p>Restart: {@link #start()} may be called again once the runner has stopped (by {@link #stop()}
  * or by itself). The new run keeps the controller's state (so it resumes bumplessly), begins a new
@@ -67,6 +73,7 @@ public final class LoopRunner {
     private final MeasurementSource measurementSource;
     private final OutputSink outputSink;
     private final TimingListener listener;
+    private final LoopMonitor monitor; // null: none
     private final LoopClock clock;
     private final OperatorChannel channel;
     private final StatusBoard board = new StatusBoard();
@@ -109,7 +116,26 @@ public final class LoopRunner {
     public LoopRunner(RunnerSettings settings, PidController controller, SetpointSource setpointSource,
             MeasurementSource measurementSource, OutputSink outputSink, TimingListener listener) {
         this(settings, controller, Objects.requireNonNull(setpointSource, "setpointSource"), Double.NaN,
-                measurementSource, outputSink, listener);
+                measurementSource, outputSink, listener, null);
+    }
+
+    /**
+     * A runner that has not started and feeds {@code monitor} on every tick.
+     *
+     * @param settings          timing, failure tolerance and thread
+     * @param controller        the controller this runner alone updates
+     * @param setpointSource    the setpoint per tick
+     * @param measurementSource the process variable per tick
+     * @param outputSink        where each output goes
+     * @param listener          per-tick timing, or {@link TimingListener#NONE}
+     * @param monitor           the loop monitor this runner alone feeds
+     * @throws InvalidSettingException as the constructor without a monitor
+     */
+    public static LoopRunner monitored(RunnerSettings settings, PidController controller,
+            SetpointSource setpointSource, MeasurementSource measurementSource, OutputSink outputSink,
+            TimingListener listener, LoopMonitor monitor) {
+        return new LoopRunner(settings, controller, Objects.requireNonNull(setpointSource, "setpointSource"),
+                Double.NaN, measurementSource, outputSink, listener, Objects.requireNonNull(monitor, "monitor"));
     }
 
     /**
@@ -127,7 +153,7 @@ public final class LoopRunner {
      */
     public LoopRunner(RunnerSettings settings, PidController controller, double initialSetpoint,
             MeasurementSource measurementSource, OutputSink outputSink, TimingListener listener) {
-        this(settings, controller, null, initialSetpoint, measurementSource, outputSink, listener);
+        this(settings, controller, null, initialSetpoint, measurementSource, outputSink, listener, null);
         if (!Double.isFinite(initialSetpoint)) {
             throw new InvalidSettingException("initialSetpoint", initialSetpoint, "must be finite");
         }
@@ -135,7 +161,8 @@ public final class LoopRunner {
 
     private LoopRunner(RunnerSettings settings, PidController controller, SetpointSource setpointSource,
             double initialSetpoint, MeasurementSource measurementSource, OutputSink outputSink,
-            TimingListener listener) {
+            TimingListener listener, LoopMonitor monitor) {
+        this.monitor = monitor;
         this.settings = Objects.requireNonNull(settings, "settings");
         this.controller = Objects.requireNonNull(controller, "controller");
         this.setpointSource = setpointSource;
@@ -446,6 +473,9 @@ public final class LoopRunner {
                 }
             }
         }
+        if (monitor != null) {
+            monitor.sample(setpoint, measurement, tickOutput, controller.mode() == Mode.AUTOMATIC);
+        }
     }
 
     /** Records the first failure of a tick; later ones in the same tick add nothing. */
@@ -481,6 +511,11 @@ public final class LoopRunner {
     /** The settings this runner was built with. */
     public RunnerSettings settings() {
         return settings;
+    }
+
+    /** The monitor this runner feeds on every tick, if it was built with one. */
+    public Optional<LoopMonitor> monitor() {
+        return Optional.ofNullable(monitor);
     }
 
     /** The period of the current (or last) run in nanoseconds: the controller's sample period. */

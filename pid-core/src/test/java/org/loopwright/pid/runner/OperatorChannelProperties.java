@@ -97,8 +97,8 @@ class OperatorChannelProperties {
                         case MANUAL_OUTPUT -> manual = s.command().value();
                         case CAPTURE -> {
                             assertThat(s.capture().captureCount()).as("captured once").isEqualTo(1);
-                            assertThat(s.capture().toSnapshot().manualValue()).as("capture in order")
-                                    .isEqualTo(manual);
+                            assertThat(StateText.value(s.capture().toSnapshot(), "manual-value"))
+                                    .as("capture in order").isEqualTo(manual);
                         }
                     }
                 }

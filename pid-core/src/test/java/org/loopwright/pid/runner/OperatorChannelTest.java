@@ -112,8 +112,8 @@ class OperatorChannelTest {
         // the join in stop() orders the loop's last writes before these reads
         assertThat(operator.appliedCount()).isEqualTo(last);
         assertThat(controller.mode()).isEqualTo(Mode.MANUAL);
-        assertThat(capture.toSnapshot().manualValue()).isEqualTo(42.0);
-        assertThat(capture.toSnapshot()).usingRecursiveComparison().isEqualTo(controller.snapshot());
+        assertThat(StateText.value(capture.toSnapshot(), "manual-value")).isEqualTo(42.0);
+        assertThat(capture.toSnapshot()).isEqualTo(controller.snapshot());
         assertThat(runner.status().appliedCommandCount()).isEqualTo(last);
     }
 
@@ -139,8 +139,7 @@ class OperatorChannelTest {
         clock.open();
         runner.stop();
         // the capture ran before tick 6's update; the controller has run that update since
-        assertThat(taken.started()).isTrue();
-        assertThat(taken.integral()).isNotZero();
+        assertThat(StateText.value(taken, "integral")).isNotZero();
 
         GatedClock again = new GatedClock();
         PidController fresh = new PidController(settings());
@@ -154,7 +153,8 @@ class OperatorChannelTest {
         assertThat(second.status().rejectedCommandCount()).isZero();
         again.open();
         second.stop();
-        assertThat(fresh.faultCount()).isEqualTo(taken.faultCount());
+        // restored, then one tick on: the integral carried over (a fresh controller would start at 0)
+        assertThat(fresh.integralTerm()).isGreaterThan(0.5 * StateText.value(taken, "integral"));
     }
 
     @Test
