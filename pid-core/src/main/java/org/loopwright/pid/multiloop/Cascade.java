@@ -31,8 +31,9 @@ import org.loopwright.pid.WindupProtection;
  * the outer controller tracks the local setpoint; while the inner controller is outside automatic it
  * tracks the inner measurement, and so does the inner setpoint (so that the inner loop returns to
  * automatic with no error to jump on). The outer controller leaves tracking on the first outer
- * sample after the cause has gone: that sample still tracks the inner setpoint then in force, and
- * the outer law resumes from it one outer period later, so the inner setpoint never steps.
+ * sample after the cause has gone (a local spell between two outer samples counts): that sample
+ * still tracks the inner setpoint then in force, and the outer law resumes from it one outer period
+ * later, so the inner setpoint never steps.
  *
  * <p>Example: a position loop every 10 ms around a speed loop every 1 ms,
  * {@code new Cascade(new PidController(position), new PidController(speed))}, then once per
@@ -54,6 +55,7 @@ public final class Cascade {
     private double innerSetpoint;
     private boolean innerLimitedThisPeriod;
     private boolean outerFollowing;
+    private boolean localSinceOuterSample;
     private Mode outerModeBeforeFollowing = Mode.AUTOMATIC;
 
     /**
@@ -115,7 +117,10 @@ public final class Cascade {
     private void runOuter(double outerSetpoint, double outerMeasurement, double innerMeasurement) {
         boolean innerAutomatic = inner.mode() == Mode.AUTOMATIC;
         boolean follow = mode == CascadeMode.LOCAL || !innerAutomatic;
-        if (!follow && !outerFollowing) {
+        // local even for a moment since the last outer sample: the inner setpoint may have moved
+        boolean wasLocal = localSinceOuterSample;
+        localSinceOuterSample = mode == CascadeMode.LOCAL;
+        if (!follow && !outerFollowing && !wasLocal) {
             outer.actuatorPosition(innerLimitedThisPeriod && Double.isFinite(innerMeasurement)
                     ? innerMeasurement : innerSetpoint);
             innerSetpoint = outer.update(outerSetpoint, outerMeasurement);
@@ -150,6 +155,7 @@ public final class Cascade {
         if (mode != CascadeMode.LOCAL) {
             localSetpoint = innerSetpoint;
             mode = CascadeMode.LOCAL;
+            localSinceOuterSample = true;
         }
     }
 

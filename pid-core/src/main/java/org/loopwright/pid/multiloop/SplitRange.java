@@ -87,7 +87,8 @@ public final class SplitRange {
         if (u >= firstEnd) {
             return first.min();
         }
-        return first.min() + (first.max() - first.min()) * (firstEnd - u) / (firstEnd - outputMin);
+        // rounding may carry a + (b − a)·1 past b: the range holds
+        return Math.min(first.max(), first.min() + (first.max() - first.min()) * (firstEnd - u) / (firstEnd - outputMin));
     }
 
     /** The second actuator's value for a controller output (clamped to the output range first). */
@@ -96,7 +97,8 @@ public final class SplitRange {
         if (u <= secondStart) {
             return second.min();
         }
-        return second.min() + (second.max() - second.min()) * (u - secondStart) / (outputMax - secondStart);
+        return Math.min(second.max(),
+                second.min() + (second.max() - second.min()) * (u - secondStart) / (outputMax - secondStart));
     }
 
     /**
