@@ -9,6 +9,7 @@ module org.loopwright.pid {
 
     exports org.loopwright.pid;
     exports org.loopwright.pid.form;
+    exports org.loopwright.pid.multiloop;
     exports org.loopwright.pid.discrete;
     exports org.loopwright.pid.monitor;
     exports org.loopwright.pid.onoff;
