@@ -1,5 +1,8 @@
 package org.loopwright.sim.nonideal;
 
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
+
 /**
  * What stands between the process and the controller's measurement, applied in this order: a delay
  * of whole samples, additive Gaussian noise (seeded), quantisation to a step, and dropouts (a sample
@@ -15,12 +18,18 @@ package org.loopwright.sim.nonideal;
  *
  * @param noiseStdDev          the noise's standard deviation, &ge; 0, process units
  * @param quantisationStep     the resolution, &ge; 0 (0 for none), process units
- * @param delaySamples         the measurement delay in whole samples, &ge; 0
+ * @param delaySamples         the measurement delay in whole samples, 0 to {@link #MAX_DELAY_SAMPLES}
  * @param jitterSeconds        the largest delay of a sample instant, &ge; 0 and below the sample period
  * @param dropoutProbability   the chance that a sample is NaN, in [0, 1)
  */
 public record SensorModel(double noiseStdDev, double quantisationStep, int delaySamples, double jitterSeconds,
         double dropoutProbability) {
+
+    /**
+     * The longest measurement delay, in samples: the sampled-loop analysis carries one state per
+     * sample of delay, and a longer transport delay belongs in the plant's dead time, which is exact.
+     */
+    public static final int MAX_DELAY_SAMPLES = 100;
 
     /** The number of steps in the jitter grid. */
     public static final int JITTER_LEVELS = 16;
@@ -28,23 +37,18 @@ public record SensorModel(double noiseStdDev, double quantisationStep, int delay
     /** A sensor that reads the process exactly, on time. */
     public static final SensorModel IDEAL = new SensorModel(0.0, 0.0, 0, 0.0, 0.0);
 
-    /** Validates every value; errors name the scenario file's keys under {@code sensor}. */
+    /** Validates every value; errors name the fields. */
     public SensorModel {
-        nonNegative("noise-std-dev", noiseStdDev);
-        nonNegative("quantisation-step", quantisationStep);
-        if (delaySamples < 0) {
-            throw new IllegalArgumentException("delay-samples must be >= 0: delay-samples=" + delaySamples);
+        SettingChecks.nonNegative("noiseStdDev", noiseStdDev);
+        SettingChecks.nonNegative("quantisationStep", quantisationStep);
+        SettingChecks.atLeast("delaySamples", delaySamples, 0);
+        if (delaySamples > MAX_DELAY_SAMPLES) {
+            throw new InvalidSettingException("delaySamples", delaySamples, "must be <= " + MAX_DELAY_SAMPLES
+                    + " (a longer delay belongs in the plant's dead-time)");
         }
-        nonNegative("jitter", jitterSeconds);
+        SettingChecks.nonNegative("jitterSeconds", jitterSeconds);
         if (!(dropoutProbability >= 0.0 && dropoutProbability < 1.0)) {
-            throw new IllegalArgumentException("dropout-probability must be >= 0 and < 1: dropout-probability="
-                    + dropoutProbability);
-        }
-    }
-
-    private static void nonNegative(String key, double value) {
-        if (!Double.isFinite(value) || value < 0.0) {
-            throw new IllegalArgumentException(key + " must be finite and >= 0: " + key + "=" + value);
+            throw new InvalidSettingException("dropoutProbability", dropoutProbability, "must be >= 0 and < 1");
         }
     }
 }
