@@ -76,6 +76,8 @@ public final class LoopMonitor {
     private final double iaeLimit;
     private final double forgetting;
     private final double saturationWeight;
+    private final double noiseWarnMedian;
+    private final double noiseAlarmMedian;
     private final double noiseStep;
     private final double noiseGrowth;
     private final double noiseShrink;
@@ -137,6 +139,8 @@ public final class LoopMonitor {
         iaeLimit = settings.iaeLimit();
         forgetting = 1.0 - Math.min(1.0, h / settings.supervisionTimeSeconds());
         saturationWeight = Math.min(1.0, h / settings.saturationWindowSeconds());
+        noiseWarnMedian = settings.noiseWarn() * MEDIAN_ABS_DIFFERENCE_PER_SIGMA;
+        noiseAlarmMedian = settings.noiseAlarm() * MEDIAN_ABS_DIFFERENCE_PER_SIGMA;
         noiseStep = Math.min(1.0, h / settings.noiseWindowSeconds());
         noiseGrowth = 1.0 + noiseStep;
         noiseShrink = 1.0 / noiseGrowth;
@@ -187,8 +191,9 @@ public final class LoopMonitor {
         if (automatic) {
             automaticSamples++;
             double atLimit = output <= lowLimit || output >= highLimit ? 1.0 : 0.0;
-            saturationShare = automaticSamples == 1 ? atLimit
-                    : saturationShare + Math.max(saturationWeight, 1.0 / automaticSamples) * (atLimit - saturationShare);
+            // a plain mean until the window is full (1/n > weight), then the running share; no division after that
+            double weight = automaticSamples * saturationWeight >= 1.0 ? saturationWeight : 1.0 / automaticSamples;
+            saturationShare = automaticSamples == 1 ? atLimit : saturationShare + weight * (atLimit - saturationShare);
         }
         watchExcursions(setpoint, error, measurement, output, automatic);
 
@@ -314,7 +319,7 @@ public final class LoopMonitor {
                 | code(LoopCondition.FROZEN_MEASUREMENT, frozenOutputMax - frozenOutputMin <= settings.frozenOutputMove()
                         ? 0 : level(unchangedSamples, 0.5 * settings.frozenSamples() - 0.5, settings.frozenSamples() - 0.5))
                 | code(LoopCondition.NOISE, differences < NOISE_MIN_DIFFERENCES ? 0
-                        : level(noise(), settings.noiseWarn(), settings.noiseAlarm()));
+                        : level(medianAbsDifference, noiseWarnMedian, noiseAlarmMedian));
         if (word != statusWord.getPlain()) {
             statusWord.setRelease(word);
         }

@@ -20,7 +20,7 @@ class MonitoredRunnerTest {
 
     private static final long PERIOD = 1_000_000L;
 
-    private static final long WARM_UP = 50_000;
+    private static final long WARM_UP = 200_000;
     private static final long WINDOW = 100_000;
     private static final int WINDOWS = 3;
 
