@@ -28,6 +28,8 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
     static final String FULL = "UpdateBenchmark.fullFeatured";
     static final String BANK = "BankBenchmark.tick";
     static final String SIMULATION_STEP = "SimulationStepBenchmark.plantAndController";
+    /** The loop monitor's sample; its target is checked when the run has it. */
+    static final String MONITOR_SAMPLE = "MonitorBenchmark.monitorSample";
 
     /** Target: the full-featured update within this factor of the bare recurrence. */
     static final double FULL_OVER_BARE_LIMIT = 1.3;
@@ -52,11 +54,14 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
             comparisons.add(new Comparison(f, baseline, f.nsPerOp() / baseline.nsPerOp()));
         }
         List<TimingComparison> timingComparisons = compareTimings(timings);
-        List<TargetCheck> targets = List.of(
+        List<TargetCheck> targets = new ArrayList<>(List.of(
                 fullOverBare(full, bare),
                 fullAllocation(full),
                 bankPerController(required(byName, BANK), full),
-                simulationStep(required(byName, SIMULATION_STEP), full));
+                simulationStep(required(byName, SIMULATION_STEP), full)));
+        if (byName.containsKey(MONITOR_SAMPLE)) {
+            targets.add(monitorSample(byName.get(MONITOR_SAMPLE), full));
+        }
         return new SuiteSummary(command, mode, machine, comparisons, timingComparisons, targets);
     }
 
@@ -94,7 +99,7 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
             return bare;
         }
         if (name.startsWith("UpdateBenchmark.variablePeriod") || name.startsWith("BankBenchmark")
-                || name.startsWith("SimulationStepBenchmark")) {
+                || name.startsWith("SimulationStepBenchmark") || name.startsWith("MonitorBenchmark")) {
             return full;
         }
         return bare;
@@ -130,6 +135,16 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
         return new TargetCheck("bank of 1,000: cost per controller no worse than one controller alone",
                 String.format("%.2f ns per controller vs %.2f ns alone: %.2f×%s", bank.nsPerOp(), full.nsPerOp(), r,
                         within), met);
+    }
+
+    /** Met when the monitor's sample costs no more than the update, within the two confidence half-widths. */
+    private static TargetCheck monitorSample(JmhFigure sample, JmhFigure full) {
+        double r = sample.nsPerOp() / full.nsPerOp();
+        boolean met = sample.nsPerOp() - full.nsPerOp() <= finiteOrZero(sample.errorNs()) + finiteOrZero(full.errorNs());
+        boolean zero = !(sample.bytesPerOp() >= ZERO_BYTES_PER_OP);
+        return new TargetCheck("loop monitor: cost per sample no more than one update, 0 B per sample",
+                String.format("%.2f ns per sample vs %.2f ns per update: %.2f×, %.4f B/op", sample.nsPerOp(),
+                        full.nsPerOp(), r, sample.bytesPerOp()), met && zero);
     }
 
     private static TargetCheck simulationStep(JmhFigure step, JmhFigure full) {
