@@ -119,6 +119,18 @@ public final class ScenarioFile {
     }
 
     /**
+     * Reads a plant file: a YAML mapping with the one key {@code plant}, holding a plant mapping of
+     * the scenario format (as {@code identify --write-plant} writes it).
+     *
+     * @throws InputFileException naming the file, line, column, key, value and what is allowed
+     */
+    public static PlantModel readPlant(Path file) {
+        YamlDocument doc = YamlDocument.read(file);
+        doc.requireKeys("", List.of("plant"));
+        return new Reader(doc, file.toAbsolutePath().getParent()).plant("/plant");
+    }
+
+    /**
      * The built-in demo: a water bath of our own invention (a 2 kW heater, about 10 L of water, PI
      * control to 60 °C, a lid opened after an hour). Invented numbers, for demonstration only.
      */
