@@ -61,6 +61,7 @@ public final class ControllerSettings {
     // multiplies by h nor pays for a feature that is off
     final double setpointStepLimit;
     final double outputStepLimit;
+    final double largestOutputStep;
     final double fixedTrackingGain;
     final double proportionalSetpointFactor;
     final boolean slewsSetpoint;
@@ -132,7 +133,9 @@ public final class ControllerSettings {
         fixedPeriod = DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, samplePeriodSeconds);
         setpointStepLimit = setpointSlewPerSecond * samplePeriodSeconds;
-        outputStepLimit = outputSlewPerSecond * samplePeriodSeconds;
+        // an increment beyond the largest double cannot be told: such a step is limited like a slew
+        largestOutputStep = outputKind == OutputKind.INCREMENT ? Double.MAX_VALUE : Double.POSITIVE_INFINITY;
+        outputStepLimit = outputStep(samplePeriodSeconds);
         fixedTrackingGain = trackingGain(samplePeriodSeconds);
         proportionalSetpointFactor = sign * (1.0 - proportionalSetpointWeight);
         // an infinite slew limit still matters on a circular variable, where a difference may overflow to NaN
@@ -142,6 +145,11 @@ public final class ControllerSettings {
                 || windupProtection == WindupProtection.ACTUATOR_TRACKING);
         clampsIntegral = windupProtection == WindupProtection.CLAMPING;
         incrementOutput = outputKind == OutputKind.INCREMENT;
+    }
+
+    /** The largest output step in a period: the slew limit, and for an increment output the largest double. */
+    double outputStep(double periodSeconds) {
+        return Math.min(outputSlewPerSecond * periodSeconds, largestOutputStep);
     }
 
     /** The back-calculation gain h/Tt at a period, capped at 1 so that the discrete tracking never over-corrects. */
