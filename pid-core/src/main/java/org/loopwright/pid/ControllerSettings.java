@@ -80,12 +80,12 @@ public final class ControllerSettings {
         faultPolicy = Objects.requireNonNull(b.faultPolicy, "faultPolicy");
         outputKind = Objects.requireNonNull(b.outputKind, "outputKind");
 
-        samplePeriodSeconds = positiveFinite("samplePeriodSeconds", b.samplePeriodSeconds);
-        proportionalSetpointWeight = weight("proportionalSetpointWeight", b.proportionalSetpointWeight);
-        derivativeSetpointWeight = weight("derivativeSetpointWeight", b.derivativeSetpointWeight);
-        derivativeFilterRatio = positiveFinite("derivativeFilterRatio", b.derivativeFilterRatio);
+        samplePeriodSeconds = SettingChecks.positive("samplePeriodSeconds", b.samplePeriodSeconds);
+        proportionalSetpointWeight = SettingChecks.fraction("proportionalSetpointWeight", b.proportionalSetpointWeight);
+        derivativeSetpointWeight = SettingChecks.fraction("derivativeSetpointWeight", b.derivativeSetpointWeight);
+        derivativeFilterRatio = SettingChecks.positive("derivativeFilterRatio", b.derivativeFilterRatio);
         if (!Double.isNaN(b.derivativeFilterTimeSeconds)) {
-            positiveFinite("derivativeFilterTimeSeconds", b.derivativeFilterTimeSeconds);
+            SettingChecks.positive("derivativeFilterTimeSeconds", b.derivativeFilterTimeSeconds);
         }
         if (Double.isNaN(b.outputMin) || b.outputMin == Double.POSITIVE_INFINITY) {
             throw new InvalidSettingException("outputMin", b.outputMin, "must be a number below +infinity");
@@ -99,14 +99,11 @@ public final class ControllerSettings {
         }
         outputMin = b.outputMin;
         outputMax = b.outputMax;
-        outputSlewPerSecond = positiveOrInfinite("outputSlewPerSecond", b.outputSlewPerSecond);
-        setpointSlewPerSecond = positiveOrInfinite("setpointSlewPerSecond", b.setpointSlewPerSecond);
-        if (!Double.isFinite(b.safeOutput)) {
-            throw new InvalidSettingException("safeOutput", b.safeOutput, "must be finite");
-        }
-        safeOutput = b.safeOutput;
-        errorDeadband = nonNegativeFinite("errorDeadband", b.errorDeadband);
-        wrapSpan = nonNegativeFinite("wrapSpan", b.wrapSpan);
+        outputSlewPerSecond = SettingChecks.positiveOrInfinite("outputSlewPerSecond", b.outputSlewPerSecond, "no limit");
+        setpointSlewPerSecond = SettingChecks.positiveOrInfinite("setpointSlewPerSecond", b.setpointSlewPerSecond, "no limit");
+        safeOutput = SettingChecks.finite("safeOutput", b.safeOutput);
+        errorDeadband = SettingChecks.nonNegative("errorDeadband", b.errorDeadband);
+        wrapSpan = SettingChecks.nonNegative("wrapSpan", b.wrapSpan);
         if (wrapSpan > 0.0 && proportionalSetpointWeight != 1.0) {
             // b·r has no meaning on a circle: the proportional term would jump by Kp·(1 − b)·span
             // whenever the setpoint crosses the wrap point
@@ -212,7 +209,7 @@ public final class ControllerSettings {
     /** Tt = √(Ti·Td) for PID and Ti for PI (Åström &amp; Hägglund 2006, §3.5, a rule of thumb). */
     private double resolveTrackingTime(double explicit) {
         if (!Double.isNaN(explicit)) {
-            return positiveFinite("trackingTimeSeconds", explicit);
+            return SettingChecks.positive("trackingTimeSeconds", explicit);
         }
         if (integralGain == 0.0 || proportionalGain == 0.0) {
             return samplePeriodSeconds;
@@ -220,34 +217,6 @@ public final class ControllerSettings {
         double integralTime = proportionalGain / integralGain;
         double derivativeTime = derivativeGain / proportionalGain;
         return derivativeTime > 0.0 ? Math.sqrt(integralTime * derivativeTime) : integralTime;
-    }
-
-    private static double positiveFinite(String field, double value) {
-        if (!Double.isFinite(value) || value <= 0.0) {
-            throw new InvalidSettingException(field, value, "must be finite and > 0");
-        }
-        return value;
-    }
-
-    private static double nonNegativeFinite(String field, double value) {
-        if (!Double.isFinite(value) || value < 0.0) {
-            throw new InvalidSettingException(field, value, "must be finite and >= 0");
-        }
-        return value;
-    }
-
-    private static double positiveOrInfinite(String field, double value) {
-        if (Double.isNaN(value) || value <= 0.0) {
-            throw new InvalidSettingException(field, value, "must be > 0 (infinity for no limit)");
-        }
-        return value;
-    }
-
-    private static double weight(String field, double value) {
-        if (!Double.isFinite(value) || value < 0.0 || value > 1.0) {
-            throw new InvalidSettingException(field, value, "must be between 0 and 1");
-        }
-        return value;
     }
 
     /** The gains as given, in their own form. */
@@ -362,7 +331,7 @@ public final class ControllerSettings {
 
     /** The difference-equation coefficients at another sample period, as the variable-period update uses them. */
     public DiscretePid discretePid(double periodSeconds) {
-        positiveFinite("periodSeconds", periodSeconds);
+        SettingChecks.positive("periodSeconds", periodSeconds);
         return DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, periodSeconds);
     }

@@ -12,9 +12,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 
 import org.loopwright.sim.config.InputFileException;
-import org.loopwright.sim.plant.DcMotorModel;
-import org.loopwright.sim.plant.PlantModel;
-import org.loopwright.sim.plant.TankModel;
+import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
@@ -113,7 +111,7 @@ public final class SweepCommand implements Callable<Integer> {
             scenario = ScenarioFile.read(scenarioFile);
             if (scenario.linearPlant().isEmpty()) {
                 throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
-                        + LinearLoopFile.LINEAR_TYPES + "): plant.type=" + type(scenario.plant()));
+                        + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
             }
         } catch (InputFileException | IllegalArgumentException e) {
             err.println(e.getMessage());
@@ -150,13 +148,6 @@ public final class SweepCommand implements Callable<Integer> {
         }
         out.flush();
         return 0;
-    }
-
-    private static String type(PlantModel plant) {
-        if (plant instanceof DcMotorModel) {
-            return "dc-motor";
-        }
-        return plant instanceof TankModel ? "tank" : "thermal-zone";
     }
 
     private static String header(SweepResult result, int threadCount) {
