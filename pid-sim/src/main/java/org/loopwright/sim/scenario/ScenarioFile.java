@@ -21,6 +21,7 @@ import org.loopwright.sim.config.NumberRule;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.nonideal.ActuatorModel;
 import org.loopwright.sim.nonideal.SensorModel;
+import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantType;
 
 /**
@@ -169,8 +170,8 @@ public final class ScenarioFile {
      */
     public static PlantModel readPlant(Path file) {
         YamlDocument doc = YamlDocument.read(file);
-        doc.requireKeys("", List.of("plant"));
-        return new Reader(doc, file.toAbsolutePath().getParent()).plant("/plant");
+        FileMapping top = new FileMapping(doc, "", List.of(PLANT), "");
+        return PlantType.read(doc, top.get(PLANT));
     }
 
     /**
