@@ -192,8 +192,9 @@ final class DesignFiles {
             out.println("  " + m.choice());
         }
         DesignExperiment e = result.experiment();
-        out.println(String.format(Locale.ROOT, "Device: h = %s s, output %s .. %s, slew %s/s, sensor delay %d samples;"
-                + " limit Ms <= %s", s.samplePeriodSeconds(), s.outputMin(), s.outputMax(), s.outputSlewPerSecond(),
+        out.println(String.format(Locale.ROOT, "Device: h = %s s, output %s .. %s, slew %s, sensor delay %d samples;"
+                + " limit Ms <= %s", s.samplePeriodSeconds(), limit(s.outputMin()), limit(s.outputMax()),
+                Double.isFinite(s.outputSlewPerSecond()) ? s.outputSlewPerSecond() + " per s" : "none",
                 s.sensorDelaySamples(), s.maxSensitivity()));
         out.println(String.format(Locale.ROOT, "Checks: sampled loop (sensor delay included); setpoint step %.4g at 0 s,"
                 + " load step %.4g at %.4g s, run %.4g s (around the output %s); sweep of %d plants (%s, seed %d)",
@@ -238,6 +239,11 @@ final class DesignFiles {
         return "NO CANDIDATE MEETS THE CONSTRAINTS (stable, Ms <= " + result.spec().maxSensitivity() + ", no unstable"
                 + " sweep run). Least bad, by the smallest Ms: " + c.name() + " (" + figures + "; " + c.shortfall()
                 + "). Review before loading it.";
+    }
+
+    /** An output limit in words: the number, or "none". */
+    static String limit(double value) {
+        return Double.isFinite(value) ? String.valueOf(value) : "none";
     }
 
     static String cell(Object value) {

@@ -58,8 +58,10 @@ final class DesignReport {
                     m.choice())));
         }
         inputs.add(List.of("sample period", s.samplePeriodSeconds() + " s"));
-        inputs.add(List.of("output limits", s.outputMin() + " .. " + s.outputMax()));
-        inputs.add(List.of("output slew", s.outputSlewPerSecond() + " per s"));
+        inputs.add(List.of("output limits", DesignFiles.limit(s.outputMin()) + " .. "
+                + DesignFiles.limit(s.outputMax())));
+        inputs.add(List.of("output slew", Double.isFinite(s.outputSlewPerSecond()) ? s.outputSlewPerSecond() + " per s"
+                : "none"));
         inputs.add(List.of("sensor delay", s.sensorDelaySamples() + " samples"));
         inputs.add(List.of("limit on Ms", String.valueOf(s.maxSensitivity())));
         inputs.add(List.of("discretisation", "integral " + ControllerFile.INTEGRAL_METHODS.word(s.integralMethod())
@@ -71,23 +73,27 @@ final class DesignReport {
         inputs.add(List.of("robustness sweep", s.runs() + " plants, " + s.spread().text() + ", seed " + s.seed()));
         List<HtmlTable> tables = new ArrayList<>();
         tables.add(new HtmlTable("Inputs", List.of("item", "value"), inputs));
+        // the figures in one table, the words (shortfall, design notes, source) in the next
+        List<DesignFiles.Column> figures = DesignFiles.COLUMNS.subList(0, DesignFiles.COLUMNS.size() - 1);
         List<List<String>> rows = new ArrayList<>();
         for (Candidate c : result.candidates()) {
             List<String> row = new ArrayList<>();
-            for (DesignFiles.Column column : DesignFiles.COLUMNS) {
+            for (DesignFiles.Column column : figures) {
                 row.add(DesignFiles.cell(column.value().apply(c)));
             }
             rows.add(row);
         }
         tables.add(new HtmlTable("Candidates (margins of the sampled loop; '-': not applicable or not simulated)",
-                DesignFiles.COLUMNS.stream().map(DesignFiles.Column::heading).toList(), rows));
+                figures.stream().map(DesignFiles.Column::heading).toList(), rows));
         if (!result.notApplicable().isEmpty()) {
             tables.add(new HtmlTable("Rules that do not apply", List.of("rule (type): why"),
                     result.notApplicable().stream().map(List::of).toList()));
         }
-        List<List<String>> sources = new ArrayList<>();
-        result.candidates().stream().map(c -> List.of(c.name(), c.source())).distinct().forEach(sources::add);
-        tables.add(new HtmlTable("Sources of the candidates", List.of("candidate", "source"), sources));
+        List<List<String>> notes = new ArrayList<>();
+        result.candidates().forEach(c -> notes.add(List.of(c.name(), c.shortfall().isEmpty() ? "meets them"
+                : c.shortfall(), c.note(), c.source())));
+        tables.add(new HtmlTable("Candidates: the constraints, the design choices, the sources", List.of("candidate",
+                "constraints", "design notes", "source"), notes));
         if (!result.discretisation().isEmpty()) {
             List<List<String>> check = new ArrayList<>();
             for (DiscretisationCheck row : result.discretisation()) {

@@ -49,8 +49,10 @@ public final class DesignPlots {
             files.add(save(residuals(model.test().get(), model.fit().get()), directory, "fit-residuals"));
         }
         String recommended = result.recommended().map(Candidate::name).orElse("");
-        files.add(save(overlay(result, recommended, true), directory, "responses"));
-        files.add(save(overlay(result, recommended, false), directory, "outputs"));
+        if (result.candidates().stream().anyMatch(Candidate::stable)) {
+            files.add(save(overlay(result, recommended, true), directory, "responses"));
+            files.add(save(overlay(result, recommended, false), directory, "outputs"));
+        }
         if (result.recommended().isPresent()) {
             Candidate c = result.recommended().get();
             TransferFunction plant = c.scenario().linearPlant().orElseThrow();
@@ -65,8 +67,8 @@ public final class DesignPlots {
             files.addAll(StudyPlots.writeLoop(loop, c.ms(), "sampled loop of " + c.name() + ", h = " + h + " s",
                     Math.min(crossover / 100.0, 0.01 * Math.PI / h), Math.PI / h, directory));
             if (c.sweep().isPresent()) {
-                XYChart sweep = SweepFiles.plot(c.sweep().get(), "Sweep of " + c.name() + ": " + c.sweep().get().runs()
-                        .size() + " plants within " + result.spec().spread().text());
+                XYChart sweep = SweepFiles.plot(c.sweep().get(), "Robustness sweep of " + c.name() + ", plants within "
+                        + result.spec().spread().text());
                 files.add(save(sweep, directory, "sweep"));
             }
         }
@@ -90,11 +92,10 @@ public final class DesignPlots {
     }
 
     private static XYChart overlay(DesignResult result, String recommended, boolean measurement) {
-        XYChart chart = chart(measurement
-                        ? "Setpoint step at 0 s and load step at " + DesignModel.num(result.experiment().loadAtSeconds())
-                                + " s: process output of each stable candidate (deviation from the operating point)"
-                        : "Controller output of each stable candidate (deviation from the operating point)",
-                "time [s]", measurement ? "process output [measurement units]" : "controller output [output units]");
+        XYChart chart = chart((measurement ? "Process output" : "Controller output") + ", setpoint step at 0 s, load"
+                        + " step at " + DesignModel.num(result.experiment().loadAtSeconds()) + " s",
+                "time [s]", measurement ? "process output, deviation from the operating point"
+                        : "controller output, deviation from the operating point");
         boolean setpointDrawn = false;
         for (Candidate c : result.candidates()) {
             if (c.run().isEmpty()) {
@@ -121,7 +122,7 @@ public final class DesignPlots {
             boolean chosen = c.name().equals(recommended);
             XYSeries series = chart.addSeries(c.name() + (chosen ? " (recommended)" : ""), t, v);
             series.setMarker(SeriesMarkers.NONE);
-            series.setLineWidth(chosen ? 3.5f : 1.2f);
+            series.setLineStyle(new BasicStroke(chosen ? 3.5f : 1.2f));
         }
         return chart;
     }
@@ -130,6 +131,7 @@ public final class DesignPlots {
         XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT).title(title).xAxisTitle(xTitle)
                 .yAxisTitle(yTitle).build();
         chart.getStyler().setChartTitleFont(chart.getStyler().getChartTitleFont().deriveFont(13f));
+        chart.getStyler().setXAxisTickMarkSpacingHint(120);
         return chart;
     }
 
