@@ -5,12 +5,7 @@ import java.util.List;
 
 import org.hipparchus.analysis.polynomials.PolynomialFunction;
 import org.hipparchus.complex.Complex;
-import org.hipparchus.complex.ComplexField;
-import org.hipparchus.linear.Array2DRowFieldMatrix;
-import org.hipparchus.linear.ArrayFieldVector;
 import org.hipparchus.linear.EigenDecompositionNonSymmetric;
-import org.hipparchus.linear.FieldLUDecomposition;
-import org.hipparchus.linear.FieldMatrix;
 import org.hipparchus.linear.MatrixUtils;
 import org.hipparchus.linear.RealMatrix;
 import org.hipparchus.linear.RealVector;
@@ -211,23 +206,70 @@ public final class CascadeAnalysis {
             return new StateModel(power, input, c, d);
         }
 
-        /** C·(zI − A)⁻¹·B + D. */
+        /**
+         * C·(zI − A)⁻¹·B + D, by Gaussian elimination with partial pivoting on primitive arrays (the
+         * margin search asks for thousands of frequencies).
+         */
         Complex at(Complex z) {
             int n = order();
-            FieldMatrix<Complex> m = new Array2DRowFieldMatrix<>(ComplexField.getInstance(), n, n);
-            Complex[] rhs = new Complex[n];
+            double[][] re = new double[n][n + 1];
+            double[][] im = new double[n][n + 1];
             for (int i = 0; i < n; i++) {
                 for (int j = 0; j < n; j++) {
-                    m.setEntry(i, j, new Complex(-a.getEntry(i, j)).add(i == j ? z : Complex.ZERO));
+                    re[i][j] = -a.getEntry(i, j);
                 }
-                rhs[i] = new Complex(b.getEntry(i));
+                re[i][i] += z.getReal();
+                im[i][i] += z.getImaginary();
+                re[i][n] = b.getEntry(i);
             }
-            Complex[] x = new FieldLUDecomposition<>(m).getSolver().solve(new ArrayFieldVector<>(rhs)).toArray();
-            Complex sum = new Complex(d);
+            for (int col = 0; col < n; col++) {
+                int pivot = col;
+                for (int row = col + 1; row < n; row++) {
+                    if (Math.hypot(re[row][col], im[row][col]) > Math.hypot(re[pivot][col], im[pivot][col])) {
+                        pivot = row;
+                    }
+                }
+                double[] swap = re[col];
+                re[col] = re[pivot];
+                re[pivot] = swap;
+                swap = im[col];
+                im[col] = im[pivot];
+                im[pivot] = swap;
+                double pr = re[col][col];
+                double pi = im[col][col];
+                double norm = pr * pr + pi * pi;
+                for (int row = col + 1; row < n; row++) {
+                    // factor = m[row][col] / m[col][col]
+                    double fr = (re[row][col] * pr + im[row][col] * pi) / norm;
+                    double fi = (im[row][col] * pr - re[row][col] * pi) / norm;
+                    for (int k = col; k <= n; k++) {
+                        re[row][k] -= fr * re[col][k] - fi * im[col][k];
+                        im[row][k] -= fr * im[col][k] + fi * re[col][k];
+                    }
+                }
+            }
+            double[] xr = new double[n];
+            double[] xi = new double[n];
+            for (int row = n - 1; row >= 0; row--) {
+                double sr = re[row][n];
+                double si = im[row][n];
+                for (int k = row + 1; k < n; k++) {
+                    sr -= re[row][k] * xr[k] - im[row][k] * xi[k];
+                    si -= re[row][k] * xi[k] + im[row][k] * xr[k];
+                }
+                double pr = re[row][row];
+                double pi = im[row][row];
+                double norm = pr * pr + pi * pi;
+                xr[row] = (sr * pr + si * pi) / norm;
+                xi[row] = (si * pr - sr * pi) / norm;
+            }
+            double sumRe = d;
+            double sumIm = 0.0;
             for (int i = 0; i < n; i++) {
-                sum = sum.add(x[i].multiply(c.getEntry(i)));
+                sumRe += c.getEntry(i) * xr[i];
+                sumIm += c.getEntry(i) * xi[i];
             }
-            return sum;
+            return new Complex(sumRe, sumIm);
         }
     }
 }
