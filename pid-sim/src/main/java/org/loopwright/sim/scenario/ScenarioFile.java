@@ -68,6 +68,10 @@ import org.loopwright.sim.plant.PlantType;
  *          dropout-probability: 0.001}
  * duration: 400
  * seed: 7
+ * inner: {controller: ..., plant: ...}     # a cascade: the controller above is the outer one
+ *                                          # (windup: actuator-tracking, period a whole multiple)
+ * controller: {..., schedule: {variable: measurement, points: [{at: 20, gain: 2.0, integral-time: 30}]}}
+ * split-range: {split-at: 50, gap: 0, first: {min: 0, max: 100}, second: {min: 0, max: 100}}
  * </pre>
  * Required: one of {@code controller} or {@code on-off}, {@code plant} and {@code duration}.
  * Defaults: dead-time 0; dc-motor viscous-friction, load-torque and coulomb-friction 0,
