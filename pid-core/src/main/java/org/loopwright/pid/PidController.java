@@ -527,6 +527,16 @@ public final class PidController {
     }
 
     /**
+     * Copies the whole dynamic state into a holder without allocating (for a snapshot taken on the
+     * loop thread; the holder makes the {@link StateSnapshot} on the reader's thread).
+     */
+    public void captureState(StateCapture into) {
+        into.write(active, mode, started, integral, derivativeState, previousError, previousSetpoint,
+                previousMeasurement, previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied,
+                manualValue, faultCount);
+    }
+
+    /**
      * Restores a snapshot; the next automatic output equals the snapshot's last output (bumpless
      * restart), even when the gains have changed since.
      *

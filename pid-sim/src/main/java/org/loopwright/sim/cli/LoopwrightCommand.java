@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
 @Command(name = "loopwright", mixinStandardHelpOptions = true, version = "loopwright 0.1.0",
         description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
         subcommands = {CommandLine.HelpCommand.class, SimulateCommand.class, ReplayCommand.class,
-                MarginsCommand.class, CompareCommand.class, TuneCommand.class, IdentifyCommand.class,
+                MarginsCommand.class, CompareCommand.class, TuneCommand.class, DesignCommand.class, IdentifyCommand.class,
                 AutotuneCommand.class, SweepCommand.class})
 public final class LoopwrightCommand implements Runnable {
 
@@ -25,9 +25,10 @@ public final class LoopwrightCommand implements Runnable {
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;
 
+    /** No command is a usage error: the usage goes to standard error and the exit code is 2. */
     @Override
     public void run() {
-        spec.commandLine().usage(spec.commandLine().getOut());
+        throw new CommandLine.ParameterException(spec.commandLine(), "a command is required");
     }
 
     /** A command line with this project's exit codes and error handling. */

@@ -37,6 +37,7 @@ import org.loopwright.sim.config.NumberRule;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.nonideal.ActuatorModel;
 import org.loopwright.sim.nonideal.SensorModel;
+import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantType;
 
 /**
@@ -215,6 +216,18 @@ public final class ScenarioFile {
     }
 
     /**
+     * Reads a plant file: a YAML mapping with the one key {@code plant}, holding a plant mapping of
+     * the scenario format (as {@code identify --write-plant} writes it).
+     *
+     * @throws InputFileException naming the file, line, column, key, value and what is allowed
+     */
+    public static PlantModel readPlant(Path file) {
+        YamlDocument doc = YamlDocument.read(file);
+        FileMapping top = new FileMapping(doc, "", List.of(PLANT), "");
+        return PlantType.read(doc, top.get(PLANT));
+    }
+
+    /**
      * The built-in demo: a water bath of our own invention (a 2 kW heater, about 10 L of water, PI
      * control to 60 °C, a lid opened after an hour). Invented numbers, for demonstration only.
      */
@@ -246,7 +259,9 @@ public final class ScenarioFile {
             Scenario.Builder b = Scenario.builder();
             List<FileMapping> parts = new ArrayList<>(List.of(top));
             controller(top, b, parts);
-            b.plant(PlantType.read(doc, top.get(PLANT)));
+            FileMapping plant = PlantType.mapping(doc, top.get(PLANT));
+            parts.add(plant);
+            b.plant(PlantType.read(plant));
             top.find(INNER).ifPresent(p -> inner(top, p, b));
             top.find(SPLIT_RANGE).ifPresent(p -> {
                 FileMapping split = new FileMapping(doc, p, List.of(SPLIT_AT, GAP, FIRST, SECOND), "");
@@ -283,7 +298,8 @@ public final class ScenarioFile {
             try {
                 return b.build();
             } catch (InvalidSettingException e) {
-                // checks across parts (duration and jitter against the sample period): at the key of the part
+                // checks across parts (duration, jitter and the integration step against the sample period):
+                // at the key of the part
                 FileMapping part = parts.stream().filter(m -> m.declares(e.field())).findFirst().orElse(top);
                 throw part.located(e);
             }
