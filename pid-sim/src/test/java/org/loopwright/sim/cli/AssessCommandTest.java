@@ -29,10 +29,18 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 class AssessCommandTest {
 
     @TempDir
+    static Path shared;
+
+    @TempDir
     Path dir;
 
-    /** The sticking DC motor of LoopAssessmentTest, logged as a trace with an output column. */
-    private Path huntingMotorTrace() throws IOException {
+    private static Path trace;
+
+    /** The sticking DC motor of LoopAssessmentTest, logged once as a trace with an output column. */
+    private static synchronized Path huntingMotorTrace() throws IOException {
+        if (trace != null) {
+            return trace;
+        }
         ControllerSettings pi = ControllerSettings.builder().gains(IdealGains.pi(2.0, 1.0)).samplePeriodSeconds(0.005)
                 .outputRange(-12.0, 12.0).build();
         Trajectory t = Simulation.run(Scenario.builder()
@@ -45,15 +53,16 @@ class AssessCommandTest {
             lines.add(String.format(Locale.ROOT, "%.3f,%.6g,%.8g,%.8g,auto", t.time(k), t.setpoint(k), t.measurement(k),
                     t.output(k)));
         }
-        Files.writeString(dir.resolve("motor.yaml"), ControllerFile.toYaml(pi));
-        return Files.write(dir.resolve("motor.csv"), lines);
+        Files.writeString(shared.resolve("motor.yaml"), ControllerFile.toYaml(pi));
+        trace = Files.write(shared.resolve("motor.csv"), lines);
+        return trace;
     }
 
     @Test
     void aHuntingDriveIsReportedWithEveryFileAndTheDocumentedJsonKeys() throws IOException {
-        Path trace = huntingMotorTrace();
+        Path logged = huntingMotorTrace();
         Path out = dir.resolve("out");
-        CommandRun run = CommandRun.of("assess", trace.toString(), "--controller", dir.resolve("motor.yaml").toString(),
+        CommandRun run = CommandRun.of("assess", logged.toString(), "--controller", shared.resolve("motor.yaml").toString(),
                 "--span", "0.5", "--process-kind", "position-drive", "--dead-time", "0.01", "--out", out.toString(),
                 "--json");
         assertThat(run.exitCode()).as(run.err()).isZero();
