@@ -28,6 +28,9 @@ public final class MonitorVerdict {
 
     /** The line, e.g. "Monitor: oscillation ALARM (period 8.2 s, amplitude 0.036): the loop hunts". */
     public static String of(Scenario scenario, Trajectory t) {
+        if (t.hasInnerLoop()) {
+            return "Monitor: not run (a two-loop scenario: watch each loop with a monitor of its own)";
+        }
         if (scenario.controller().isEmpty()) {
             return "Monitor: not run (on-off control cycles by design)";
         }
