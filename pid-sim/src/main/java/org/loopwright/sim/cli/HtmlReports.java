@@ -23,10 +23,9 @@ final class HtmlReports {
     private HtmlReports() {
     }
 
-    /** The root command's version line, e.g. "loopwright 0.1.0". */
+    /** The tool's version line, e.g. "loopwright 0.1.0". */
     static String version(CommandSpec spec) {
-        String[] lines = spec.root().version();
-        return lines.length == 0 ? "loopwright" : lines[0];
+        return BuildVersion.line();
     }
 
     /** The page of one simulation: its metrics, its response plot, its scenario. */

@@ -44,8 +44,8 @@ public final class IdentifyCommand implements Callable<Integer> {
             description = "First or second order plus dead time (default: fopdt).")
     private String model;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Where to write the plot identify-<model>.png (default: the current directory).")
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopwright-identify",
+            description = "Where to write the plot identify-<model>.png (default: ${DEFAULT-VALUE}).")
     private Path outDirectory;
 
     @Option(names = "--json", description = "Print JSON instead of text.")

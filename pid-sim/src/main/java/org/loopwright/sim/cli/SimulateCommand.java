@@ -42,7 +42,7 @@ public final class SimulateCommand implements Callable<Integer> {
             description = "The scenario file (YAML; --show-demo prints an example of the format).")
     private Path scenarioFile;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopwright-simulate",
             description = "Directory for trajectory.csv and the plots (created if need be; default: ${DEFAULT-VALUE}).")
     private Path outDirectory;
 

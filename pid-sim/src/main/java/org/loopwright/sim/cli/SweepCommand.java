@@ -82,7 +82,7 @@ public final class SweepCommand implements Callable<Integer> {
             description = "Threads to run on (default: the number of processors).")
     private Integer threads;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopwright-sweep",
             description = "Directory for sweep-runs.csv, the plot and report.html (default: ${DEFAULT-VALUE}).")
     private Path outDirectory;
 
