@@ -13,6 +13,7 @@ import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.metrics.ResponseWindow;
 import org.loopwright.sim.report.MetricsReport;
+import org.loopwright.sim.report.ResultTable;
 import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.report.TrajectoryCsv;
 import org.loopwright.sim.scenario.Scenario;
@@ -88,13 +89,14 @@ public final class SimulateCommand implements Callable<Integer> {
         Files.createDirectories(outDirectory);
         TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
         System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(ResponsePlot.response(trajectory, title), outDirectory, "response");
+        ResponsePlot.save(ResponsePlot.response(trajectory, title, scenario.units()), outDirectory, "response");
         String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
                 + " (the first setpoint change until the next change or load step); integrals to the end.",
                 trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
                 ResponseWindow.of(scenario).describe());
-        HtmlReports.simulate(spec, outDirectory, title, summary, metrics, cycle, outDirectory.resolve("response.svg"),
-                scenarioFile == null ? "built-in water-bath demo" : title,
+        ResultTable table = MetricsReport.table(metrics, cycle, scenario.units());
+        HtmlReports.simulate(outDirectory, HtmlReports.record(spec, scenario, scenarioFile), title, summary, table,
+                outDirectory.resolve("response.svg"), scenarioFile == null ? "built-in water-bath demo" : title,
                 scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
 
         if (json) {
@@ -104,7 +106,7 @@ public final class SimulateCommand implements Callable<Integer> {
                     scenario.samplePeriodSeconds(), scenario.durationSeconds());
             out.println("Step figures " + ResponseWindow.of(scenario).describe()
                     + " (the first setpoint change until the next change or load step); integrals to the end:");
-            out.print(MetricsReport.table(metrics, cycle));
+            out.print(table.text());
             out.println("Wrote trajectory.csv, response.png, response.svg and report.html in " + outDirectory);
         }
         out.flush();

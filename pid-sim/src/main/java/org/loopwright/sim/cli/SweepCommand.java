@@ -128,7 +128,7 @@ public final class SweepCommand implements Callable<Integer> {
         try {
             written = new ArrayList<>(SweepFiles.write(result, outDirectory, title));
             written.add(HtmlReport.write(outDirectory.resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
-                    HtmlReports.version(spec), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
+                    HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
         } catch (IOException e) {
             err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)

@@ -57,7 +57,7 @@ class SimulateCommandTest {
         int code = run("simulate", scenario.toString(), "--out", dir.resolve("out").toString());
         assertThat(code).isZero();
         assertThat(out.toString()).contains("rise time (10-90 %)", "settling time (2 %)")
-                .containsPattern("limit cycle amplitude +[0-9.]+\\n").containsPattern("limit cycle period +[0-9.]+ s\\n");
+                .containsPattern("limit cycle amplitude +[0-9.]+  PV\\n").containsPattern("limit cycle period +[0-9.]+  s\\n");
         assertThat(dir.resolve("out/trajectory.csv")).exists();
     }
 
