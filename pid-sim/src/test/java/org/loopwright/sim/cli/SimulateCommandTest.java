@@ -3,7 +3,6 @@ package org.loopwright.sim.cli;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -13,7 +12,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import picocli.CommandLine;
 
 class SimulateCommandTest {
 
@@ -21,10 +19,10 @@ class SimulateCommandTest {
     private final StringWriter err = new StringWriter();
 
     private int run(String... args) {
-        CommandLine cli = LoopwrightCommand.commandLine();
-        cli.setOut(new PrintWriter(out));
-        cli.setErr(new PrintWriter(err));
-        return cli.execute(args);
+        CommandRun run = CommandRun.of(args);
+        out.append(run.out());
+        err.append(run.err());
+        return run.exitCode();
     }
 
     @Test
