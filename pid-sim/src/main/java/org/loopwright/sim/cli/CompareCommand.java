@@ -27,6 +27,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -55,12 +56,9 @@ public final class CompareCommand implements Callable<Integer> {
             description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
     private List<Double> periods;
 
-    @Option(names = "--out", paramLabel = "DIR",
-            description = "Write the plots (PNG and SVG) and report.html into this directory.")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print a JSON array of rows instead of the table.")
-    private boolean json;
+    /** Without --out, compare prints its table and writes no plots. */
+    @Mixin
+    private OutputOptions output;
 
     @Override
     public Integer call() {
@@ -80,12 +78,14 @@ public final class CompareCommand implements Callable<Integer> {
             List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
                     DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())));
             StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+            boolean json = output.json();
             if (json) {
                 out.println(Json.pretty(rows(result)));
             } else {
                 table(out, result, periods == null, loop.scenario().units());
             }
-            if (outDirectory != null) {
+            if (output.givenDirectory().isPresent()) {
+                Path outDirectory = output.givenDirectory().get();
                 List<Path> written;
                 try {
                     written = new ArrayList<>(StudyPlots.write(result, outDirectory));

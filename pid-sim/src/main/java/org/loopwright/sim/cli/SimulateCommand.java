@@ -22,6 +22,7 @@ import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -43,12 +44,8 @@ public final class SimulateCommand implements Callable<Integer> {
             description = "The scenario file (YAML; --show-demo prints an example of the format).")
     private Path scenarioFile;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopwright-simulate",
-            description = "Directory for trajectory.csv and the plots (created if need be; default: ${DEFAULT-VALUE}).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print the metrics as one JSON object instead of a table.")
-    private boolean json;
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--show-demo", description = "Print the built-in demo scenario (an example of the format) and stop.")
     private boolean showDemo;
@@ -86,6 +83,7 @@ public final class SimulateCommand implements Callable<Integer> {
         Optional<LimitCycle> cycle = scenario.onOffController().isPresent()
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();
 
+        Path outDirectory = output.directory("simulate");
         Files.createDirectories(outDirectory);
         TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
         System.setProperty("java.awt.headless", "true");
@@ -99,7 +97,7 @@ public final class SimulateCommand implements Callable<Integer> {
                 outDirectory.resolve("response.svg"), scenarioFile == null ? "built-in water-bath demo" : title,
                 scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
 
-        if (json) {
+        if (output.json()) {
             out.println(MetricsReport.jsonText(metrics, cycle));
         } else {
             out.printf("%s: %d samples every %s s over %s s%n", title, trajectory.length(),
