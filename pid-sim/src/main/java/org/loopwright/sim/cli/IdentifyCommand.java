@@ -11,6 +11,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import org.loopwright.pid.tuning.FopdtModel;
 import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.identify.IdentificationPlot;
 import org.loopwright.sim.identify.IdentifiedModel;
 import org.loopwright.sim.identify.ModelKind;
@@ -20,6 +21,7 @@ import org.loopwright.sim.identify.StepTestFile;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -41,35 +43,29 @@ public final class IdentifyCommand implements Callable<Integer> {
     private Path file;
 
     @Option(names = "--model", paramLabel = "fopdt|sopdt", defaultValue = "fopdt",
-            description = "First or second order plus dead time (default: fopdt).")
-    private String model;
+            converter = ModelWords.class,
+            description = "First or second order plus dead time (default: ${DEFAULT-VALUE}).")
+    private ModelKind kind;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopwright-identify",
-            description = "Where to write the plot identify-<model>.png (default: ${DEFAULT-VALUE}).")
-    private Path outDirectory;
+    @Mixin
+    private OutputOptions output;
 
-    @Option(names = "--json", description = "Print JSON instead of text.")
-    private boolean json;
+    /** {@code --model} by the words fopdt and sopdt. */
+    static final class ModelWords extends KeywordConverter<ModelKind> {
+        ModelWords() {
+            super(Keywords.byWord(ModelKind.values(), ModelKind::label));
+        }
+    }
 
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        ModelKind kind = switch (model) {
-            case "fopdt" -> ModelKind.FOPDT;
-            case "sopdt" -> ModelKind.SOPDT;
-            default -> null;
-        };
-        if (kind == null) {
-            err.println("--model must be fopdt or sopdt: --model=" + model);
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
-        }
         try {
             StepTest test = StepTestFile.read(file);
             IdentifiedModel fit = StepIdentification.identify(test, kind);
             Path plot = writePlot(test, fit, kind);
-            if (json) {
+            if (output.json()) {
                 out.println(Json.pretty(json(fit)));
             } else {
                 printText(out, fit, plot);
@@ -84,6 +80,7 @@ public final class IdentifyCommand implements Callable<Integer> {
     }
 
     private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) {
+        Path outDirectory = output.directory("identify");
         try {
             Files.createDirectories(outDirectory);
             return IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);

@@ -155,6 +155,32 @@ public final class FileKey<T> {
     }
 
     /**
+     * A required non-empty text.
+     *
+     * @param word  the file's key
+     * @param field the Java field it fills
+     * @return the key
+     */
+    public static FileKey<String> text(String word, String field) {
+        return new FileKey<>(word, field, new Kind<>() {
+            @Override
+            public String read(YamlDocument doc, String pointer) {
+                return doc.requiredText(pointer);
+            }
+
+            @Override
+            public String text(String value) {
+                return "\"" + value.replace("\\", "\\\\").replace("\"", "\\\"") + "\"";
+            }
+
+            @Override
+            public String allowed() {
+                return "a text";
+            }
+        }, null, true);
+    }
+
+    /**
      * A required section: a nested mapping or list (or a file's path) that its own reader reads;
      * reading it gives the section's pointer.
      *

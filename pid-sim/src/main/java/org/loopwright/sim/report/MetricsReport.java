@@ -1,12 +1,12 @@
 package org.loopwright.sim.report;
 
-import java.util.Locale;
 import java.util.Optional;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.scenario.Units;
 
 /**
  * The metrics of a run as a readable table or as one JSON object with the keys {@code rise_time},
@@ -53,27 +53,31 @@ public final class MetricsReport {
         }
     }
 
-    /** A table for people, one figure a line, "n/a" where a figure does not apply. */
-    public static String table(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        StringBuilder t = new StringBuilder();
-        row(t, "rise time (10-90 %)", m.riseTimeSeconds(), "s");
-        row(t, "settling time (2 %)", m.settlingTimeSeconds(), "s");
-        row(t, "overshoot", m.overshootPercent(), "%");
-        row(t, "peak time", m.peakTimeSeconds(), "s");
-        row(t, "steady-state error", m.steadyStateError(), "");
-        row(t, "IAE", m.iae(), "·s");
-        row(t, "ISE", m.ise(), "·s");
-        row(t, "ITAE", m.itae(), "·s²");
-        row(t, "total variation of output", m.totalVariation(), "");
-        row(t, "time saturated", 100.0 * m.saturatedFraction(), "%");
-        row(t, "limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), "");
-        row(t, "limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
-        return t.toString();
-    }
-
-    private static void row(StringBuilder t, String name, double value, String unit) {
-        String shown = Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value) + (unit.isEmpty() ? "" : " "
-                + unit) : "n/a";
-        t.append(String.format(Locale.ROOT, "  %-27s %s%n", name, shown));
+    /**
+     * The metrics as one typed table, a figure a row with its value and unit in the scenario's
+     * units: the text table, the HTML report's table and the JSON keys all come from it.
+     *
+     * @param m      the metrics
+     * @param cycle  the limit cycle of an on-off loop, if any
+     * @param units  the scenario's units
+     * @return the table
+     */
+    public static ResultTable table(ResponseMetrics m, Optional<LimitCycle> cycle, Units units) {
+        ResultTable table = ResultTable.of("Response metrics (" + NumberText.MISSING + ": the figure does not apply)",
+                ResultTable.Column.text("figure", "figure"), ResultTable.Column.number("value", "value", "", 4),
+                ResultTable.Column.text("unit", "unit"));
+        table.row("rise time (10-90 %)", m.riseTimeSeconds(), "s");
+        table.row("settling time (2 %)", m.settlingTimeSeconds(), "s");
+        table.row("overshoot", m.overshootPercent(), "%");
+        table.row("peak time", m.peakTimeSeconds(), "s");
+        table.row("steady-state error", m.steadyStateError(), units.processOrWord());
+        table.row("IAE", m.iae(), units.processSeconds());
+        table.row("ISE", m.ise(), units.processOrWord() + "²·s");
+        table.row("ITAE", m.itae(), units.processOrWord() + "·s²");
+        table.row("total variation of output", m.totalVariation(), units.outputOrWord());
+        table.row("time saturated", 100.0 * m.saturatedFraction(), "%");
+        table.row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), units.processOrWord());
+        table.row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
+        return table;
     }
 }

@@ -48,6 +48,7 @@ public final class Scenario {
     private final SensorModel sensor;
     private final double durationSeconds;
     private final long seed;
+    private final Units units;
 
     private Scenario(Builder b) {
         plant = Objects.requireNonNull(b.plant, "plant");
@@ -77,6 +78,7 @@ public final class Scenario {
                     + MAX_SAMPLES + " samples at the sample period " + samplePeriodSeconds);
         }
         seed = b.seed;
+        units = Objects.requireNonNull(b.units, "units");
     }
 
     private static <T> List<T> sorted(List<T> items, Comparator<T> order) {
@@ -103,6 +105,7 @@ public final class Scenario {
         b.sensor = sensor;
         b.durationSeconds = durationSeconds;
         b.seed = seed;
+        b.units = units;
         return b;
     }
 
@@ -209,6 +212,11 @@ public final class Scenario {
         return durationSeconds;
     }
 
+    /** @return the engineering units the scenario names, for axes, tables and CSV headers */
+    public Units units() {
+        return units;
+    }
+
     /** The seed of every random stream (noise, dropouts, jitter). */
     public long seed() {
         return seed;
@@ -234,6 +242,7 @@ public final class Scenario {
         private SensorModel sensor = SensorModel.IDEAL;
         private double durationSeconds = Double.NaN;
         private long seed = 1L;
+        private Units units = Units.NONE;
 
         private Builder() {
         }
@@ -292,6 +301,12 @@ public final class Scenario {
         /** The random seed (default 1). */
         public Builder seed(long value) {
             seed = value;
+            return this;
+        }
+
+        /** @param value the units the scenario names (default none) @return this builder */
+        public Builder units(Units value) {
+            units = value;
             return this;
         }
 
