@@ -171,7 +171,7 @@ class FrequencyCommandsTest {
 
     @Test
     void noCommandIsAUsageError() {
-        Run run = run();
+        CommandRun run = run();
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
         assertThat(run.err()).startsWith("a command is required").contains("Usage: loopwright");
         assertThat(run.out()).isEmpty();
