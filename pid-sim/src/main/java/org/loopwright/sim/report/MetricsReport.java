@@ -2,8 +2,6 @@ package org.loopwright.sim.report;
 
 import java.util.Optional;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.scenario.Units;
@@ -17,40 +15,54 @@ import org.loopwright.sim.scenario.Units;
  */
 public final class MetricsReport {
 
-    private static final ObjectMapper JSON = new ObjectMapper();
-
     private MetricsReport() {
     }
 
-    /** The metrics as a JSON object. */
-    public static ObjectNode json(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        ObjectNode o = JSON.createObjectNode();
-        put(o, "rise_time", m.riseTimeSeconds());
-        put(o, "settling_time", m.settlingTimeSeconds());
-        put(o, "overshoot_percent", m.overshootPercent());
-        put(o, "peak_time", m.peakTimeSeconds());
-        put(o, "steady_state_error", m.steadyStateError());
-        put(o, "iae", m.iae());
-        put(o, "ise", m.ise());
-        put(o, "itae", m.itae());
-        put(o, "total_variation", m.totalVariation());
-        put(o, "saturated_fraction", m.saturatedFraction());
-        put(o, "limit_cycle_amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN));
-        put(o, "limit_cycle_period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN));
-        return o;
+    /**
+     * The metrics as JSON: one record, written by {@link JsonOutput} (snake_case keys, null where a
+     * figure does not apply).
+     *
+     * @param riseTime              10–90 % rise time, s
+     * @param settlingTime          2 % settling time, s
+     * @param overshootPercent      overshoot, % of the step
+     * @param peakTime              time of the peak, s
+     * @param steadyStateError      setpoint minus measurement at the end, process units
+     * @param iae                   integral of |e|
+     * @param ise                   integral of e²
+     * @param itae                  integral of t·|e|
+     * @param totalVariation        total variation of the controller output
+     * @param saturatedFraction     share of the run at an output limit, 0–1
+     * @param limitCycleAmplitude   an on-off loop's cycle amplitude, process units
+     * @param limitCyclePeriod      an on-off loop's cycle period, s
+     */
+    public record MetricsJson(double riseTime, double settlingTime, double overshootPercent, double peakTime,
+            double steadyStateError, double iae, double ise, double itae, double totalVariation,
+            double saturatedFraction, double limitCycleAmplitude, double limitCyclePeriod) {
     }
 
-    /** One line of compact JSON. */
+    /**
+     * The metrics as a record for JSON.
+     *
+     * @param m     the metrics
+     * @param cycle the limit cycle of an on-off loop, if any
+     * @return the record
+     */
+    public static MetricsJson json(ResponseMetrics m, Optional<LimitCycle> cycle) {
+        return new MetricsJson(m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
+                m.peakTimeSeconds(), m.steadyStateError(), m.iae(), m.ise(), m.itae(), m.totalVariation(),
+                m.saturatedFraction(), cycle.map(LimitCycle::amplitude).orElse(Double.NaN),
+                cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN));
+    }
+
+    /**
+     * The metrics as JSON text.
+     *
+     * @param m     the metrics
+     * @param cycle the limit cycle of an on-off loop, if any
+     * @return the text
+     */
     public static String jsonText(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        return json(m, cycle).toString();
-    }
-
-    private static void put(ObjectNode o, String key, double value) {
-        if (Double.isFinite(value)) {
-            o.put(key, value);
-        } else {
-            o.putNull(key);
-        }
+        return JsonOutput.text(json(m, cycle));
     }
 
     /**
