@@ -22,17 +22,6 @@ final class HtmlReports {
     }
 
     /**
-     * The tool's version line, "loopwright 0.1.0" (from the build): for reports that write their own
-     * page; new reports take a whole {@link #record} instead.
-     *
-     * @param spec the command's spec (unused: the version is the build's, the same for every command)
-     * @return the version line
-     */
-    static String version(CommandSpec spec) {
-        return BuildVersion.line();
-    }
-
-    /**
      * The record of a report on a scenario: tool version, time, the command line as typed, the
      * scenario and its controller file with their SHA-256, and the controller settings in full.
      *
