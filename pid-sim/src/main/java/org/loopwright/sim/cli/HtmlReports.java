@@ -39,11 +39,11 @@ final class HtmlReports {
         return spec.root().commandLine().getParseResult().originalArgs();
     }
 
-    /** The page of one simulation: its metrics, its response plot, its scenario. */
+    /** The page of one simulation: its metrics, its response plots (the inner loop's too, for a cascade), its scenario. */
     static Path simulate(Path directory, ReportRecord record, String title, String summary, ResultTable metrics,
-            Path responseSvg, String scenarioName, String scenarioText) throws IOException {
+            List<Path> plots, String scenarioName, String scenarioText) throws IOException {
         return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Simulation of " + title, record,
-                List.of(summary), List.of(metrics.html()), List.of(responseSvg), scenarioName, scenarioText);
+                List.of(summary), List.of(metrics.html()), plots, scenarioName, scenarioText);
     }
 
     /** The page of a discretisation study: its table, its plots, its scenario. */
