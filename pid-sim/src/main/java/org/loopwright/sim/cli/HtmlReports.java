@@ -29,9 +29,9 @@ final class HtmlReports {
         return lines.length == 0 ? "loopwright" : lines[0];
     }
 
-    /** The page of one simulation: its metrics, its response plot, its scenario. */
+    /** The page of one simulation: its metrics, its response plots (the inner loop's too, for a cascade), its scenario. */
     static Path simulate(CommandSpec spec, Path directory, String title, String summary, ResponseMetrics m,
-            Optional<LimitCycle> cycle, Path responseSvg, String scenarioName, String scenarioText) throws IOException {
+            Optional<LimitCycle> cycle, List<Path> plots, String scenarioName, String scenarioText) throws IOException {
         List<List<String>> rows = new ArrayList<>();
         rows.add(row("rise time (10-90 %)", m.riseTimeSeconds(), "s"));
         rows.add(row("settling time (2 %)", m.settlingTimeSeconds(), "s"));
@@ -48,7 +48,7 @@ final class HtmlReports {
         HtmlTable table = new HtmlTable("Response metrics (n/a: the figure does not apply)",
                 List.of("figure", "value", "unit"), rows);
         return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Simulation of " + title, version(spec),
-                List.of(summary), List.of(table), List.of(responseSvg), scenarioName, scenarioText);
+                List.of(summary), List.of(table), plots, scenarioName, scenarioText);
     }
 
     private static List<String> row(String name, double value, String unit) {
