@@ -25,6 +25,7 @@ import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.replay.LoggedLoop;
 import org.loopwright.sim.replay.LoggedLoopFile;
 import org.loopwright.sim.report.AssessmentReport;
+import org.loopwright.sim.report.ReportRecord;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -101,6 +102,7 @@ public final class AssessCommand implements Callable<Integer> {
         List<String> assumptions = new ArrayList<>();
         LoggedLoop loop;
         AssessmentOptions options;
+        ControllerSettings controller;
         try {
             checkPositive("--sample-period", samplePeriod);
             checkPositive("--time-scale", timeScale);
@@ -110,7 +112,7 @@ public final class AssessCommand implements Callable<Integer> {
             }
             ProcessKind kind = PROCESS_KINDS.value(processKind).orElseThrow(() -> new IllegalArgumentException(
                     "--process-kind must be " + PROCESS_KINDS.describe() + ": --process-kind=" + processKind));
-            ControllerSettings controller = controllerFile == null ? null : ControllerFile.read(controllerFile);
+            controller = controllerFile == null ? null : ControllerFile.read(controllerFile);
             loop = LoggedLoopFile.read(traceFile);
             options = options(loop, controller, kind, assumptions);
         } catch (InputFileException | IllegalArgumentException e) {
@@ -122,8 +124,11 @@ public final class AssessCommand implements Callable<Integer> {
         List<Path> written = List.of();
         if (outDirectory != null) {
             Files.createDirectories(outDirectory);
-            written = AssessmentReport.write(outDirectory, HtmlReports.version(spec), loop, assessment,
-                    inputs(options, assumptions));
+            List<Path> inputFiles = controllerFile == null ? List.of(traceFile) : List.of(traceFile, controllerFile);
+            ReportRecord record = ReportRecord.of(BuildVersion.line(),
+                    spec.root().commandLine().getParseResult().originalArgs(), inputFiles,
+                    controller == null ? java.util.Map.of() : ControllerFile.resolved(controller));
+            written = AssessmentReport.write(outDirectory, record, loop, assessment, inputs(options, assumptions));
         }
         if (json) {
             assumptions.forEach(a -> err.println("assumed: " + a));

@@ -5,7 +5,7 @@ import org.loopwright.sim.simulate.Trajectory;
 /**
  * A loop's record as logged: per sample the time, setpoint, measurement, the controller output that
  * was logged, and whether the controller was in automatic. A missing sample is NaN. Read from a file by
- * {@link LoggedLoopFile}, or taken from a simulation by {@link #of(Trajectory)}.
+ * {@link LoggedLoopFile}, or taken from a simulation by {@link #of(String, Trajectory)}.
  *
  * <p>Thread-safe: immutable (the arrays are never handed out).
  */

@@ -114,10 +114,11 @@ public final class AssessmentReport {
     /**
      * Writes the two plots (PNG and SVG) and {@code report.html} into the directory.
      *
+     * @param record how the report was made (tool version, time, command line, input checksums, settings)
      * @param inputs lines describing the inputs and assumptions, shown at the end of the page
      * @return the files written
      */
-    public static List<Path> write(Path directory, String version, LoggedLoop loop, Assessment a, String inputs)
+    public static List<Path> write(Path directory, ReportRecord record, LoggedLoop loop, Assessment a, String inputs)
             throws IOException {
         System.setProperty("java.awt.headless", "true");
         ResponsePlot.save(trend(loop, a), directory, TREND);
@@ -132,7 +133,7 @@ public final class AssessmentReport {
         String summary = String.format(Locale.ROOT, "%d samples every %s s. Verdict: %s. Oscillation stretches"
                 + " flagged by the monitor are marked red on the trend.", a.samples(), number(a.samplePeriodSeconds()),
                 verdict(a));
-        Path page = HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Assessment of " + loop.name(), version,
+        Path page = HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Assessment of " + loop.name(), record,
                 List.of(summary), List.of(table),
                 List.of(directory.resolve(TREND + ".png"), directory.resolve(PHASE_PLOT + ".png")),
                 loop.name(), inputs);
