@@ -63,7 +63,7 @@ public final class MarginsCommand implements Callable<Integer> {
         }
         ControllerSettings settings = loop.settings();
         StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
-        SampledMargins sampled = LoopAnalysis.sampled(loop.plant(), settings);
+        SampledMargins sampled = LoopAnalysis.sampled(loop.scenario().sampledLoop().orElseThrow());
         if (json) {
             ObjectNode root = Json.object();
             root.set("continuous", margins(continuous));

@@ -15,7 +15,8 @@ import org.loopwright.sim.plant.TransferFunction;
  * <p>The loop is L = σ·C·P with σ = +1 for reverse action and −1 for direct action, so a direct-acting
  * controller on a plant of negative gain gives an ordinary loop. The sampled loop is the discrete
  * controller C(z) from {@link ControllerSettings#discretePid(double)} (the coefficients the running
- * controller uses) in series with the plant's {@link ZeroOrderHoldEquivalent}, evaluated at
+ * controller uses) in series with the plant's {@link ZeroOrderHoldEquivalent} and the sensor's whole
+ * samples of delay z^(−N) — the complete {@link SampledLoop} as the simulation runs it — evaluated at
  * z = e^{jωh} for 0 &lt; ω &le; π/h; no computation delay is assumed (the output is applied at the
  * sample it was computed from).
  *
@@ -50,21 +51,16 @@ public final class LoopAnalysis {
         return MarginSearch.search(continuousLoop(plant, settings), continuousBand(plant, settings));
     }
 
-    /** The margins and closed-loop poles of the loop sampled at the settings' own period and methods. */
-    public static SampledMargins sampled(TransferFunction plant, ControllerSettings settings) {
-        return sampled(plant, settings, settings.samplePeriodSeconds());
-    }
-
     /**
-     * The margins and closed-loop poles of the loop sampled at {@code periodSeconds}, with the
-     * settings' integral and derivative methods.
+     * The margins and closed-loop poles of the sampled loop: controller, plant and every sample of
+     * sensor delay in it.
      *
-     * @throws InvalidSettingException if the forward-Euler derivative is unstable at this period
+     * @throws InvalidSettingException if the forward-Euler derivative is unstable at the loop's period
      */
-    public static SampledMargins sampled(TransferFunction plant, ControllerSettings settings, double periodSeconds) {
-        PulseTransferFunction loop = sampledLoop(plant, settings, periodSeconds);
-        StabilityMargins margins = MarginSearch.search(loop, sampledBand(plant, settings, loop));
-        return new SampledMargins(margins, closedLoopPoles(loop));
+    public static SampledMargins sampled(SampledLoop loop) {
+        PulseTransferFunction pulse = sampledLoop(loop);
+        StabilityMargins margins = MarginSearch.search(pulse, sampledBand(loop, pulse));
+        return new SampledMargins(margins, closedLoopPoles(pulse));
     }
 
     /** The continuous loop σ·C(jω)·P(jω). */
@@ -88,12 +84,15 @@ public final class LoopAnalysis {
         return PulseTransferFunction.of(settings.discretePid(periodSeconds));
     }
 
-    /** The sampled loop σ·C(z)·P_zoh(z). */
-    public static PulseTransferFunction sampledLoop(TransferFunction plant, ControllerSettings settings,
-            double periodSeconds) {
-        return discreteController(settings, periodSeconds)
-                .times(ZeroOrderHoldEquivalent.of(plant, periodSeconds))
-                .times(settings.action().sign());
+    /** The sampled loop σ·C(z)·P_zoh(z)·z^(−N), N the samples of sensor delay. */
+    public static PulseTransferFunction sampledLoop(SampledLoop loop) {
+        double h = loop.periodSeconds();
+        PulseTransferFunction sensor = new PulseTransferFunction(PulseTransferFunction.constant(1.0),
+                PulseTransferFunction.constant(1.0), loop.sensorDelaySamples(), h);
+        return discreteController(loop.controller(), h)
+                .times(ZeroOrderHoldEquivalent.of(loop.plant(), h))
+                .times(sensor)
+                .times(loop.controller().action().sign());
     }
 
     /** The closed-loop poles of unity negative feedback around {@code loop}: roots of A(z)·z^d + B(z). */
@@ -123,12 +122,11 @@ public final class LoopAnalysis {
         return new FrequencyBand(low, high, POINTS_PER_DECADE, plant.deadTimeSeconds(), false);
     }
 
-    private static FrequencyBand sampledBand(TransferFunction plant, ControllerSettings settings,
-            PulseTransferFunction loop) {
-        double nyquist = loop.nyquistRadPerSecond();
-        double low = Math.min(continuousBand(plant, settings).lowestRadPerSecond(), nyquist * 1e-4);
+    private static FrequencyBand sampledBand(SampledLoop loop, PulseTransferFunction pulse) {
+        double nyquist = pulse.nyquistRadPerSecond();
+        double low = Math.min(continuousBand(loop.plant(), loop.controller()).lowestRadPerSecond(), nyquist * 1e-4);
         // z^(−d) and the hold's fractional delay turn the phase at about (d + 1)·h seconds
-        double delaySeconds = (loop.delaySamples() + 1) * loop.periodSeconds();
+        double delaySeconds = (pulse.delaySamples() + 1) * pulse.periodSeconds();
         return new FrequencyBand(low, nyquist, POINTS_PER_DECADE, delaySeconds, true);
     }
 

@@ -95,7 +95,7 @@ class FrequencyCommandsTest {
         assertThat(run.exitCode()).as(run.err()).isZero();
         Scenario s = ScenarioFile.read(Path.of(scenario("booster-pump.yaml")));
         StabilityMargins c = LoopAnalysis.continuous(s.linearPlant().orElseThrow(), s.controller().orElseThrow());
-        SampledMargins d = LoopAnalysis.sampled(s.linearPlant().orElseThrow(), s.controller().orElseThrow());
+        SampledMargins d = LoopAnalysis.sampled(s.sampledLoop().orElseThrow());
         JsonNode root = MAPPER.readTree(run.out());
         assertThat(root.get("continuous").get("phase_margin_deg").asDouble())
                 .isEqualTo(c.gainCrossover().orElseThrow().phaseMarginDegrees());
