@@ -13,6 +13,7 @@ import java.util.stream.Collectors;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.study.DiscretisationStudy;
 import org.loopwright.sim.study.SamplingVerdict;
@@ -34,13 +35,15 @@ import picocli.CommandLine.Spec;
  * study of {@link DiscretisationStudy} as a table (or a JSON array of rows), with its plots and
  * {@code report.html} in DIR.
  * Without {@code --periods} the periods are chosen from the continuous crossover ω_c so that ω_c·h is
- * 0.02, 0.1, 0.3 and 1 (see {@link DiscretisationStudy#defaultPeriods(double)}). Exit code 2 for a bad
+ * 0.02, 0.1, 0.3 and 1 (see {@link DiscretisationStudy#defaultPeriods(double, double)}; the scenario's own period is added). Exit code 2 for a bad
  * file, a nonlinear plant, an on-off controller, a bad period or an unwritable DIR.
  */
 @Command(name = "compare", mixinStandardHelpOptions = true,
         description = {"Compare every integral x derivative discretisation at each sample period with the continuous design.",
                 "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
-                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller."})
+                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller.",
+                "The sampled loop includes the sensor's delay-samples. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
+                        + "; '-' where the response did not settle or diverged."})
 public final class CompareCommand implements Callable<Integer> {
 
     @Spec
@@ -50,7 +53,8 @@ public final class CompareCommand implements Callable<Integer> {
     private Path scenarioFile;
 
     @Option(names = "--periods", split = ",", paramLabel = "H",
-            description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
+            description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1,"
+                    + " and the scenario's own sample period).")
     private List<Double> periods;
 
     @Option(names = "--out", paramLabel = "DIR",
@@ -76,7 +80,8 @@ public final class CompareCommand implements Callable<Integer> {
                 }
             }
             List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
-                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())));
+                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
+                    loop.settings().samplePeriodSeconds());
             StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
             if (json) {
                 out.println(Json.pretty(rows(result)));
@@ -141,7 +146,7 @@ public final class CompareCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
         out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
                 result.crossoverRadPerSecond(), result.periodsSeconds(),
-                defaultPeriods ? " (default: omega_c*h = 0.02, 0.1, 0.3, 1)" : "");
+                defaultPeriods ? " (default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)" : "");
         out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
                 result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
                 SamplingVerdict.TYPICAL_HIGH);

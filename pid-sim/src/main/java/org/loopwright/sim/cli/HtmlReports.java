@@ -10,6 +10,7 @@ import java.util.Optional;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
+import org.loopwright.sim.report.MetricsReport;
 import org.loopwright.sim.report.HtmlTable;
 import org.loopwright.sim.study.SamplingVerdict;
 import org.loopwright.sim.study.StudyResult;
@@ -32,28 +33,11 @@ final class HtmlReports {
     /** The page of one simulation: its metrics, its response plot, its scenario. */
     static Path simulate(CommandSpec spec, Path directory, String title, String summary, ResponseMetrics m,
             Optional<LimitCycle> cycle, Path responseSvg, String scenarioName, String scenarioText) throws IOException {
-        List<List<String>> rows = new ArrayList<>();
-        rows.add(row("rise time (10-90 %)", m.riseTimeSeconds(), "s"));
-        rows.add(row("settling time (2 %)", m.settlingTimeSeconds(), "s"));
-        rows.add(row("overshoot", m.overshootPercent(), "%"));
-        rows.add(row("peak time", m.peakTimeSeconds(), "s"));
-        rows.add(row("steady-state error", m.steadyStateError(), ""));
-        rows.add(row("IAE", m.iae(), "·s"));
-        rows.add(row("ISE", m.ise(), "·s"));
-        rows.add(row("ITAE", m.itae(), "·s²"));
-        rows.add(row("total variation of output", m.totalVariation(), ""));
-        rows.add(row("time saturated", 100.0 * m.saturatedFraction(), "%"));
-        rows.add(row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), ""));
-        rows.add(row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s"));
-        HtmlTable table = new HtmlTable("Response metrics (n/a: the figure does not apply)",
-                List.of("figure", "value", "unit"), rows);
+        List<List<String>> rows = MetricsReport.rows(m, cycle);
+        HtmlTable table = new HtmlTable("Response metrics (n/a: the figure does not apply). Overshoot: "
+                + ResponseMetrics.OVERSHOOT_DEFINITION + ".", List.of("figure", "value"), rows);
         return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Simulation of " + title, version(spec),
                 List.of(summary), List.of(table), List.of(responseSvg), scenarioName, scenarioText);
-    }
-
-    private static List<String> row(String name, double value, String unit) {
-        return List.of(name, Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value) : "n/a",
-                Double.isFinite(value) ? unit : "");
     }
 
     /** The page of a discretisation study: its table, its SVG plots, its scenario. */

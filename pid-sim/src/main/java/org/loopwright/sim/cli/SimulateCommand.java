@@ -17,6 +17,7 @@ import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.report.TrajectoryCsv;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.simulate.Divergence;
 import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 
@@ -35,7 +36,10 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "simulate", mixinStandardHelpOptions = true,
         description = {"Simulate a controller on a plant model and report the response.",
             "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
-            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention)."})
+            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention).",
+            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures are given only once the",
+            "output has settled (2 %% band), else 'not settled'.",
+            "Divergence: " + Divergence.RULE + "; such a run is stopped there and reported DIVERGED."})
 public final class SimulateCommand implements Callable<Integer> {
 
     @Parameters(index = "0", arity = "0..1", paramLabel = "SCENARIO.yaml",
@@ -89,14 +93,20 @@ public final class SimulateCommand implements Callable<Integer> {
         TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
         System.setProperty("java.awt.headless", "true");
         ResponsePlot.save(ResponsePlot.response(trajectory, title), outDirectory, "response");
+        String diverged = trajectory.diverged() ? String.format(Locale.ROOT, "DIVERGED: the process output passed"
+                + " the divergence bound at t = %s s and the run was stopped there (%s).", trajectory.divergedAtSeconds(),
+                Divergence.RULE) : "";
         String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
-                + " (the first setpoint change until the next change or load step); integrals to the end.",
+                + " (the first setpoint change until the next change or load step); integrals to the end. %s",
                 trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
-                ResponseWindow.of(scenario).describe());
+                ResponseWindow.of(scenario).describe(), diverged);
         HtmlReports.simulate(spec, outDirectory, title, summary, metrics, cycle, outDirectory.resolve("response.svg"),
                 scenarioFile == null ? "built-in water-bath demo" : title,
                 scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
 
+        if (trajectory.diverged()) {
+            err.println(diverged);
+        }
         if (json) {
             out.println(MetricsReport.jsonText(metrics, cycle));
         } else {

@@ -161,7 +161,8 @@ public final class SweepCommand implements Callable<Integer> {
 
     private static String header(SweepResult result, int threadCount) {
         int n = result.runs().size();
-        long unstable = count(result, LoopStability.UNSTABLE);
+        long unstable = count(result, LoopStability.UNSTABLE) + count(result, LoopStability.DIVERGED);
+        long diverged = count(result, LoopStability.DIVERGED);
         long notAssessed = count(result, LoopStability.NOT_ASSESSED);
         double notSettled = result.notSettledShare();
         List<String> spreads = new ArrayList<>();
@@ -172,10 +173,11 @@ public final class SweepCommand implements Callable<Integer> {
             }
         }
         return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; %s.%nunstable: %s (%d of %d, from the closed-loop poles of the sampled linear loop"
-                + " or a diverging simulation)%s; never settled (2 %% band): %s of the runs whose response moved.",
+                + " or a diverging simulation; %d diverged and were stopped, kept out of the distributions)%s;"
+                + " never settled (2 %% band): %s of the runs whose response moved.",
                 n, result.seed(), threadCount, spreads.isEmpty() ? "no spread: every run on the nominal plant"
                         : "each plant factor uniform within " + String.join(", ", spreads) + " of the nominal",
-                percent(result.unstableShare()), unstable, n,
+                percent(result.unstableShare()), unstable, n, diverged,
                 notAssessed == 0 ? "" : String.format(Locale.ROOT, "; stability not assessed for %d", notAssessed),
                 Double.isNaN(notSettled) ? "n/a" : percent(notSettled));
     }
@@ -259,6 +261,7 @@ public final class SweepCommand implements Callable<Integer> {
         spread.put("time_constant", result.spread().timeConstant());
         spread.put("dead_time", result.spread().deadTime());
         Json.number(root, "unstable_share", result.unstableShare());
+        Json.number(root, "diverged_share", result.divergedShare());
         Json.number(root, "not_assessed_share", result.notAssessedShare());
         Json.number(root, "not_settled_share", result.notSettledShare());
         distribution(root.putObject("overshoot_percent"), result.overshootPercent());

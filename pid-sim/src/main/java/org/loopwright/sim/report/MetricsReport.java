@@ -1,5 +1,7 @@
 package org.loopwright.sim.report;
 
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 
@@ -7,6 +9,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseState;
 
 /**
  * The metrics of a run as a readable table or as one JSON object with the keys {@code rise_time},
@@ -25,6 +28,7 @@ public final class MetricsReport {
     /** The metrics as a JSON object. */
     public static ObjectNode json(ResponseMetrics m, Optional<LimitCycle> cycle) {
         ObjectNode o = JSON.createObjectNode();
+        o.put("response", m.state().name().toLowerCase(Locale.ROOT).replace('_', '-'));
         put(o, "rise_time", m.riseTimeSeconds());
         put(o, "settling_time", m.settlingTimeSeconds());
         put(o, "overshoot_percent", m.overshootPercent());
@@ -53,27 +57,43 @@ public final class MetricsReport {
         }
     }
 
-    /** A table for people, one figure a line, "n/a" where a figure does not apply. */
+    /**
+     * The metrics as rows of (figure, value with its unit): the response's state first, then every
+     * figure; a figure that does not apply reads "n/a", or the state ("not settled", "DIVERGED") when
+     * that is why.
+     */
+    public static List<List<String>> rows(ResponseMetrics m, Optional<LimitCycle> cycle) {
+        String missing = m.state() == ResponseState.NOT_SETTLED || m.state() == ResponseState.DIVERGED
+                ? m.state().words() : "n/a";
+        String missingOverall = m.state() == ResponseState.DIVERGED ? m.state().words() : "n/a";
+        List<List<String>> rows = new ArrayList<>();
+        rows.add(List.of("response", m.state().words()));
+        rows.add(row("rise time (10-90 %)", m.riseTimeSeconds(), "s", missing));
+        rows.add(row("settling time (2 %)", m.settlingTimeSeconds(), "s", missing));
+        rows.add(row("overshoot", m.overshootPercent(), "%", missing));
+        rows.add(row("peak time", m.peakTimeSeconds(), "s", m.state() == ResponseState.SETTLED ? "n/a" : missing));
+        rows.add(row("steady-state error", m.steadyStateError(), "", missing));
+        rows.add(row("IAE", m.iae(), "·s", missingOverall));
+        rows.add(row("ISE", m.ise(), "·s", missingOverall));
+        rows.add(row("ITAE", m.itae(), "·s²", missingOverall));
+        rows.add(row("total variation of output", m.totalVariation(), "", missingOverall));
+        rows.add(row("time saturated", 100.0 * m.saturatedFraction(), "%", missingOverall));
+        rows.add(row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), "", "n/a"));
+        rows.add(row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s", "n/a"));
+        return rows;
+    }
+
+    /** A table for people, one figure a line (see {@link #rows}). */
     public static String table(ResponseMetrics m, Optional<LimitCycle> cycle) {
         StringBuilder t = new StringBuilder();
-        row(t, "rise time (10-90 %)", m.riseTimeSeconds(), "s");
-        row(t, "settling time (2 %)", m.settlingTimeSeconds(), "s");
-        row(t, "overshoot", m.overshootPercent(), "%");
-        row(t, "peak time", m.peakTimeSeconds(), "s");
-        row(t, "steady-state error", m.steadyStateError(), "");
-        row(t, "IAE", m.iae(), "·s");
-        row(t, "ISE", m.ise(), "·s");
-        row(t, "ITAE", m.itae(), "·s²");
-        row(t, "total variation of output", m.totalVariation(), "");
-        row(t, "time saturated", 100.0 * m.saturatedFraction(), "%");
-        row(t, "limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), "");
-        row(t, "limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
+        for (List<String> row : rows(m, cycle)) {
+            t.append(String.format(Locale.ROOT, "  %-27s %s%n", row.get(0), row.get(1)));
+        }
         return t.toString();
     }
 
-    private static void row(StringBuilder t, String name, double value, String unit) {
-        String shown = Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value) + (unit.isEmpty() ? "" : " "
-                + unit) : "n/a";
-        t.append(String.format(Locale.ROOT, "  %-27s %s%n", name, shown));
+    private static List<String> row(String name, double value, String unit, String missing) {
+        return List.of(name, Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value)
+                + (unit.isEmpty() ? "" : " " + unit) : missing);
     }
 }

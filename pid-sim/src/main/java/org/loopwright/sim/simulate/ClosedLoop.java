@@ -24,6 +24,8 @@ import org.loopwright.sim.scenario.SetpointChange;
  * An incremental (velocity-form) PID controller is taken to drive an integrating actuator: u(k) is
  * then the position that actuator reaches, as the controller reports it.
  *
+ * <p>A run whose process output diverges (see {@link Divergence}) stops at that sample.
+ *
  * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
  * cached its discretisation after the first samples). Usable from a benchmark:
  * {@code if (!loop.step()) loop.rewind();}.
@@ -47,6 +49,7 @@ public final class ClosedLoop {
     private final double[] loadAt;
     private final double[] loadValue;
 
+    private double divergenceBound;
     private int k;
     private double previousInstant;
     private double previousDelay;
@@ -99,6 +102,14 @@ public final class ClosedLoop {
         double rest = plant.output();
         sensor.reset(rest);
         trajectory.clear();
+        double scale = Math.abs(rest);
+        for (double value : changeValue) {
+            scale = Math.max(scale, Math.abs(value));
+        }
+        for (double value : loadValue) {
+            scale = Math.max(scale, Math.abs(value));
+        }
+        divergenceBound = Divergence.bound(scale);
         k = 0;
         previousInstant = 0.0;
         previousDelay = 0.0;
@@ -115,7 +126,9 @@ public final class ClosedLoop {
     /**
      * One sample: advance the plant to the next sample instant, read, update, deliver, record.
      *
-     * @return false, doing nothing, when every sample of the scenario has been taken
+     * @return false, doing nothing, when every sample of the scenario has been taken; false also when
+     *         the process output at this instant has diverged ({@link Divergence}): the run stops there,
+     *         the sample is not recorded and the trajectory is marked diverged
      */
     public boolean step() {
         if (k >= samples) {
@@ -143,6 +156,11 @@ public final class ClosedLoop {
             }
         }
         double process = plant.output();
+        if (Divergence.beyond(process, divergenceBound)) {
+            trajectory.markDiverged(instant);
+            k = samples;
+            return false;
+        }
         double r = setpointAt(instant);
         double y = sensor.read(process);
         double u = law.update(r, y, instant);

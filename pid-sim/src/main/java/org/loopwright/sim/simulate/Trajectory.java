@@ -22,6 +22,7 @@ public final class Trajectory {
     private final double[] delivered;
     private final boolean[] saturated;
     private int length;
+    private double divergedAtSeconds = Double.NaN;
 
     Trajectory(int capacity) {
         time = new double[capacity];
@@ -48,6 +49,21 @@ public final class Trajectory {
 
     void clear() {
         length = 0;
+        divergedAtSeconds = Double.NaN;
+    }
+
+    void markDiverged(double instant) {
+        divergedAtSeconds = instant;
+    }
+
+    /** Whether the run was stopped because it diverged (see {@link Divergence}). */
+    public boolean diverged() {
+        return !Double.isNaN(divergedAtSeconds);
+    }
+
+    /** The sample instant at which the run was found diverged, in seconds; NaN when it did not diverge. */
+    public double divergedAtSeconds() {
+        return divergedAtSeconds;
     }
 
     /** The number of samples recorded. */

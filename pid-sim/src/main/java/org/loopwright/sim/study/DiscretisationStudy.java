@@ -62,12 +62,16 @@ public final class DiscretisationStudy {
     /**
      * The periods studied when none are given: ω_c·h = 0.02, 0.1, 0.3 and 1, rounded to two significant
      * digits — finer than needed, inside the common-practice range 0.05–0.3 (see {@link SamplingVerdict}),
-     * at its top, and well above it.
+     * at its top, and well above it — and the scenario's own period, in increasing order.
      */
-    public static List<Double> defaultPeriods(double crossoverRadPerSecond) {
+    public static List<Double> defaultPeriods(double crossoverRadPerSecond, double ownPeriodSeconds) {
         List<Double> periods = new ArrayList<>();
         for (double wh : DEFAULT_CROSSOVER_TIMES_PERIOD) {
             periods.add(twoDigits(wh / crossoverRadPerSecond));
+        }
+        if (!periods.contains(ownPeriodSeconds)) {
+            periods.add(ownPeriodSeconds);
+            Collections.sort(periods);
         }
         return periods;
     }

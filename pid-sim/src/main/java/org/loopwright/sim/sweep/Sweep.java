@@ -125,12 +125,9 @@ public final class Sweep {
         Scenario drawn = scenario.withPlant(plant);
         Trajectory trajectory = Simulation.run(drawn);
         ResponseMetrics metrics = ResponseMetrics.of(drawn, trajectory);
-        boolean finite = true;
-        for (int k = 0; k < trajectory.length() && finite; k++) {
-            finite = Double.isFinite(trajectory.process(k));
-        }
         double poleMagnitude = largestPoleMagnitude(drawn);
-        LoopStability stability = !finite || poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
+        LoopStability stability = trajectory.diverged() ? LoopStability.DIVERGED
+                : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
                 : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
         int stride = Math.max(1, (trajectory.length() + PLOT_POINTS - 1) / PLOT_POINTS);
         int count = (trajectory.length() + stride - 1) / stride;

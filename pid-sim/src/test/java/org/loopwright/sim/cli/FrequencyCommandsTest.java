@@ -155,7 +155,8 @@ class FrequencyCommandsTest {
     void compareTableUsesDefaultPeriodsFromTheCrossover() {
         Run run = run("compare", scenario("third-order-p.yaml"));
         assertThat(run.exitCode()).as(run.err()).isZero();
-        assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1)", "continuous", "finer than needed",
+        assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)",
+                "0.01]", "continuous", "finer than needed",
                 "typical", "coarse");
     }
 

@@ -99,12 +99,12 @@ class HtmlReportTest {
         assertThat(elements(page, XHTML, "title").get(0).getTextContent()).isEqualTo("Simulation of pump.yaml");
         List<Element> tables = elements(page, XHTML, "table");
         assertThat(tables).hasSize(1);
-        assertThat(bodyRowFirstCells(tables.get(0))).containsExactly("rise time (10-90 %)", "settling time (2 %)",
+        assertThat(bodyRowFirstCells(tables.get(0))).containsExactly("response", "rise time (10-90 %)", "settling time (2 %)",
                 "overshoot", "peak time", "steady-state error", "IAE", "ISE", "ITAE", "total variation of output",
                 "time saturated", "limit cycle amplitude", "limit cycle period");
-        Element iaeRow = elements(elements(tables.get(0), XHTML, "tbody").get(0), XHTML, "tr").get(5);
+        Element iaeRow = elements(elements(tables.get(0), XHTML, "tbody").get(0), XHTML, "tr").get(6);
         assertThat(elements(iaeRow, XHTML, "td").get(1).getTextContent())
-                .isEqualTo(String.format(Locale.ROOT, "%.6g", metrics.get("iae").asDouble()));
+                .isEqualTo(String.format(Locale.ROOT, "%.6g ·s", metrics.get("iae").asDouble()));
         List<Element> figures = elements(page, XHTML, "figure");
         assertThat(figures).hasSize(1);
         assertThat(elements(figures.get(0), SVG, "svg")).hasSize(1);
