@@ -156,7 +156,7 @@ class FrequencyCommandsTest {
         Run run = run("compare", scenario("third-order-p.yaml"));
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)",
-                "0.01]", "continuous", "finer than needed",
+                "periods [0.01, 0.016, 0.081, 0.24, 0.81] s", "continuous", "finer than needed",
                 "typical", "coarse");
     }
 
