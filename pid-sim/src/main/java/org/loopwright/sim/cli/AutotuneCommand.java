@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -17,7 +18,7 @@ import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.pid.tuning.UltimatePoint;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.tuning.RelaySimulation;
@@ -41,6 +42,10 @@ import picocli.CommandLine.Spec;
         description = "Relay experiment on a scenario's plant in simulation, then tune from the ultimate point and"
                 + " verify each suggestion on the scenario.")
 public final class AutotuneCommand implements Callable<Integer> {
+
+    /** The relay settings' field names as the options that set them. */
+    private static final Map<String, String> OPTION_OF_FIELD = Map.of("relayAmplitude", "--relay-amplitude",
+            "hysteresis", "--hysteresis", "excursionLimit", "--excursion-limit");
 
     @Spec
     private CommandSpec spec;
@@ -67,52 +72,49 @@ public final class AutotuneCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
+        Scenario scenario = ScenarioFile.read(scenarioFile);
+        RelaySimulation.Outcome relay;
         try {
-            Scenario scenario = ScenarioFile.read(scenarioFile);
-            RelaySimulation.Outcome relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis),
-                    orNaN(excursionLimit));
-            if (relay.status() != RelayStatus.SUCCEEDED) {
-                err.println("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
-                        + relay.message());
-                err.flush();
-                return LoopwrightCommand.BAD_INPUT;
-            }
-            UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
-            ControllerSettings base = scenario.controller().orElseThrow();
-            List<TuningCandidate> suggestions = new ArrayList<>();
-            for (ControllerType type : ControllerType.values()) {
-                for (TuningRule rule : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
-                    TuningResult result = rule.tune(point, type);
-                    if (result instanceof TunedGains tuned) {
-                        suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
-                    }
+            relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis), orNaN(excursionLimit));
+        } catch (InvalidSettingException e) {
+            // the relay settings name their fields; say it with the options the user typed
+            String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
+            throw InputException.option(option, e.value(), e.rule());
+        }
+        if (relay.status() != RelayStatus.SUCCEEDED) {
+            throw new InputException("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
+                    + relay.message(), null);
+        }
+        UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
+        ControllerSettings base = scenario.controller().orElseThrow();
+        List<TuningCandidate> suggestions = new ArrayList<>();
+        for (ControllerType type : ControllerType.values()) {
+            for (TuningRule rule : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
+                TuningResult result = rule.tune(point, type);
+                if (result instanceof TunedGains tuned) {
+                    suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
                 }
             }
-            if (json) {
-                ObjectNode node = Json.object();
-                Json.number(node, "ultimate_gain", relay.ultimateGain());
-                Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
-                Json.number(node, "oscillation_amplitude", relay.amplitude());
-                node.put("cycles", relay.cycles());
-                Json.number(node, "setpoint", relay.settings().setpoint());
-                Json.number(node, "bias", relay.settings().bias());
-                Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
-                Json.number(node, "hysteresis", relay.settings().hysteresis());
-                relay.warnings().forEach(node.putArray("warnings")::add);
-                node.set("suggestions", TuningReport.json(suggestions));
-                out.println(Json.pretty(node));
-            } else {
-                RelaySimulationText.print(out, relay);
-                TuningReport.printTable(out, suggestions, List.of());
-            }
-            out.flush();
-            return 0;
-        } catch (InputFileException | InvalidSettingException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
         }
+        if (json) {
+            ObjectNode node = Json.object();
+            Json.number(node, "ultimate_gain", relay.ultimateGain());
+            Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
+            Json.number(node, "oscillation_amplitude", relay.amplitude());
+            node.put("cycles", relay.cycles());
+            Json.number(node, "setpoint", relay.settings().setpoint());
+            Json.number(node, "bias", relay.settings().bias());
+            Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
+            Json.number(node, "hysteresis", relay.settings().hysteresis());
+            relay.warnings().forEach(node.putArray("warnings")::add);
+            node.set("suggestions", TuningReport.json(suggestions));
+            out.println(Json.pretty(node));
+        } else {
+            RelaySimulationText.print(out, relay);
+            TuningReport.printTable(out, suggestions, List.of());
+        }
+        out.flush();
+        return 0;
     }
 
     private static double orNaN(Double value) {

@@ -11,8 +11,9 @@ import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.study.DiscretisationStudy;
@@ -65,50 +66,64 @@ public final class CompareCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        try {
-            LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
-            if (periods != null) {
-                for (double h : periods) {
-                    if (!Double.isFinite(h) || h <= 0.0) {
-                        err.println("--periods must each be finite and > 0: --periods=" + periods.stream()
-                                .map(String::valueOf).collect(Collectors.joining(",")));
-                        return LoopwrightCommand.BAD_INPUT;
-                    }
-                }
+        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
+        if (periods != null) {
+            checkPeriods(loop);
+        }
+        List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
+                DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
+                loop.settings().samplePeriodSeconds());
+        StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+        List<Path> written = List.of();
+        if (outDirectory != null) {
+            try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+                written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
+                written.add(HtmlReports.compare(spec, stage.directory(), String.valueOf(scenarioFile.getFileName()),
+                        result, written, String.valueOf(scenarioFile.getFileName()), Files.readString(scenarioFile)));
+                stage.commit();
             }
-            List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
-                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
-                    loop.settings().samplePeriodSeconds());
-            StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
-            if (json) {
-                out.println(Json.pretty(rows(result)));
-            } else {
-                table(out, result, periods == null);
+        }
+        if (json) {
+            out.println(Json.pretty(rows(result)));
+        } else {
+            table(out, result, periods == null);
+        }
+        if (outDirectory != null) {
+            (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
+            (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
+        }
+        out.flush();
+        err.flush();
+        return 0;
+    }
+
+    /** Each period finite and positive, and the study's work at it within its stated limits. */
+    private void checkPeriods(LinearLoopFile loop) {
+        String given = periods.stream().map(String::valueOf).collect(Collectors.joining(","));
+        if (periods.size() > DiscretisationStudy.MAX_PERIODS) {
+            throw InputException.option("--periods", given, "must list at most " + DiscretisationStudy.MAX_PERIODS
+                    + " periods");
+        }
+        for (double h : periods) {
+            if (!Double.isFinite(h) || h <= 0.0) {
+                throw InputException.option("--periods", given, "must each be finite and > 0");
             }
-            if (outDirectory != null) {
-                List<Path> written;
-                try {
-                    written = new ArrayList<>(StudyPlots.write(result, outDirectory));
-                    written.add(HtmlReports.compare(spec, outDirectory, String.valueOf(scenarioFile.getFileName()),
-                            result, written, String.valueOf(scenarioFile.getFileName()),
-                            Files.readString(scenarioFile)));
-                } catch (IOException e) {
-                    throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
-                }
-                (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
-                (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
+            double samples = loop.scenario().durationSeconds() / h;
+            if (samples > DiscretisationStudy.MAX_SAMPLES_PER_RUN) {
+                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each give at most %d"
+                        + " samples over the scenario's duration of %s s (h = %s s gives %.3g)",
+                        DiscretisationStudy.MAX_SAMPLES_PER_RUN, loop.scenario().durationSeconds(), h, samples));
             }
-            out.flush();
-            err.flush();
-            return 0;
-        } catch (InputFileException | IllegalArgumentException e) {
-            out.flush();
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+            double delaySamples = loop.plant().deadTimeSeconds() / h + loop.scenario().sensor().delaySamples();
+            if (delaySamples > SampledLoop.MAX_DELAY_SAMPLES) {
+                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each keep the loop's"
+                        + " delay (dead time %s s plus %d sensor samples) within %d samples (h = %s s gives %.3g)",
+                        loop.plant().deadTimeSeconds(), loop.scenario().sensor().delaySamples(),
+                        SampledLoop.MAX_DELAY_SAMPLES, h, delaySamples));
+            }
         }
     }
 

@@ -10,7 +10,7 @@ import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import org.loopwright.pid.tuning.FopdtModel;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.identify.IdentificationPlot;
 import org.loopwright.sim.identify.IdentifiedModel;
 import org.loopwright.sim.identify.ModelKind;
@@ -52,44 +52,35 @@ public final class IdentifyCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
         ModelKind kind = switch (model) {
             case "fopdt" -> ModelKind.FOPDT;
             case "sopdt" -> ModelKind.SOPDT;
             default -> null;
         };
         if (kind == null) {
-            err.println("--model must be fopdt or sopdt: --model=" + model);
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+            throw InputException.option("--model", model, "must be fopdt or sopdt");
         }
-        try {
-            StepTest test = StepTestFile.read(file);
-            IdentifiedModel fit = StepIdentification.identify(test, kind);
-            Path plot = writePlot(test, fit, kind);
-            if (json) {
-                out.println(Json.pretty(json(fit)));
-            } else {
-                printText(out, fit, plot);
-            }
-            out.flush();
-            return 0;
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        StepTest test = StepTestFile.read(file);
+        IdentifiedModel fit = StepIdentification.identify(test, kind);
+        Path plot = writePlot(test, fit, kind);
+        if (json) {
+            out.println(Json.pretty(json(fit)));
+        } else {
+            printText(out, fit, plot);
         }
+        out.flush();
+        return 0;
     }
 
-    private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) {
-        try {
-            Files.createDirectories(outDirectory);
-            return IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);
-        } catch (IOException e) {
-            throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+    private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) throws IOException {
+        String name = "identify-" + kind.label() + ".png";
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            IdentificationPlot.writePng(stage.directory().resolve(name), test, fit);
+            stage.commit();
         }
+        return outDirectory.resolve(name);
     }
 
     private static ObjectNode json(IdentifiedModel fit) {

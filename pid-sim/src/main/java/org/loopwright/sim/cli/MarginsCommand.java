@@ -8,7 +8,6 @@ import java.util.concurrent.Callable;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.GainCrossing;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.PhaseCrossing;
@@ -52,15 +51,7 @@ public final class MarginsCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        LinearLoopFile loop;
-        try {
-            loop = LinearLoopFile.read(scenarioFile, "margins");
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
-        }
+        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "margins");
         ControllerSettings settings = loop.settings();
         StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
         SampledMargins sampled = LoopAnalysis.sampled(loop.scenario().sampledLoop().orElseThrow());

@@ -10,7 +10,7 @@ import java.util.concurrent.Callable;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.replay.Replay;
 import org.loopwright.sim.replay.ReplayDemo;
@@ -60,47 +60,45 @@ public final class ReplayCommand implements Callable<Integer> {
     private boolean measuredPeriod;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
         if ((controllerFile == null) != (traceFile == null)) {
-            err.println("replay needs both --controller and --trace, or neither for the built-in demo");
-            return LoopwrightCommand.BAD_INPUT;
+            throw new InputException("replay needs both --controller and --trace, or neither for the built-in demo",
+                    null);
         }
-        try {
-            boolean demo = controllerFile == null;
-            String controllerName = demo ? ReplayDemo.CONTROLLER_NAME : controllerFile.toString();
-            String traceName = demo ? ReplayDemo.TRACE_NAME : traceFile.toString();
-            if (demo) {
-                out.println("No --controller or --trace given: replaying the built-in demo, a water bath heater"
-                        + " (invented demo data).");
-            }
-            ControllerSettings settings = demo
-                    ? ControllerFile.read(YamlDocument.parse(controllerName, ReplayDemo.controllerText()), "")
-                    : ControllerFile.read(controllerFile);
-            Trace trace = demo ? TraceFile.parse(traceName, ReplayDemo.traceText()) : TraceFile.read(traceFile);
-            ReplayResult result = Replay.run(settings, trace, measuredPeriod);
-            Path target = (outFile == null ? Path.of(DEFAULT_OUT) : outFile).toAbsolutePath();
-            write(result, target);
-            out.println("Replayed " + traceName + " through " + controllerName + " ("
-                    + (measuredPeriod ? "measured periods from the time column"
-                            : "fixed period " + settings.samplePeriodSeconds() + " s") + ")");
-            ReplaySummary.of(result).lines().forEach(out::println);
-            out.println("Wrote " + result.rowCount() + " rows to " + target);
-            out.flush();
-            return 0;
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        boolean demo = controllerFile == null;
+        String controllerName = demo ? ReplayDemo.CONTROLLER_NAME : controllerFile.toString();
+        String traceName = demo ? ReplayDemo.TRACE_NAME : traceFile.toString();
+        if (demo) {
+            out.println("No --controller or --trace given: replaying the built-in demo, a water bath heater"
+                    + " (invented demo data).");
         }
+        ControllerSettings settings = demo
+                ? ControllerFile.read(YamlDocument.parse(controllerName, ReplayDemo.controllerText()), "")
+                : ControllerFile.read(controllerFile);
+        Trace trace = demo ? TraceFile.parse(traceName, ReplayDemo.traceText()) : TraceFile.read(traceFile);
+        ReplayResult result = Replay.run(settings, trace, measuredPeriod);
+        Path target = (outFile == null ? Path.of(DEFAULT_OUT) : outFile).toAbsolutePath();
+        write(result, target);
+        out.println("Replayed " + traceName + " through " + controllerName + " ("
+                + (measuredPeriod ? "measured periods from the time column"
+                        : "fixed period " + settings.samplePeriodSeconds() + " s") + ")");
+        ReplaySummary.of(result).lines().forEach(out::println);
+        out.println("Wrote " + result.rowCount() + " rows to " + target);
+        out.flush();
+        return 0;
     }
 
-    private static void write(ReplayResult result, Path target) {
-        try (Writer writer = Files.newBufferedWriter(target, StandardCharsets.UTF_8)) {
-            result.writeCsv(writer);
-        } catch (IOException e) {
-            throw InputFileException.whole(target.toString(), "cannot be written (" + e + ")", e);
+    private static void write(ReplayResult result, Path target) throws IOException {
+        if (Files.isDirectory(target)) {
+            throw InputException.option("--out", target, "must name a file, not a directory");
+        }
+        try (OutputStage stage = OutputStage.in(target.getParent(), "--out")) {
+            try (Writer writer = Files.newBufferedWriter(stage.directory().resolve(target.getFileName().toString()),
+                    StandardCharsets.UTF_8)) {
+                result.writeCsv(writer);
+            }
+            stage.commit();
         }
     }
 }

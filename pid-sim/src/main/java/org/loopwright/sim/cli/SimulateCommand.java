@@ -8,7 +8,6 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.metrics.ResponseWindow;
@@ -70,42 +69,27 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         Scenario scenario;
         String title;
-        try {
-            if (scenarioFile == null) {
-                err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
-                        + " not a real bath).");
-                scenario = ScenarioFile.waterBathDemo();
-                title = "Water bath (built-in demo)";
-            } else {
-                scenario = ScenarioFile.read(scenarioFile);
-                title = String.valueOf(scenarioFile.getFileName());
-            }
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            return LoopwrightCommand.BAD_INPUT;
+        if (scenarioFile == null) {
+            err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
+                    + " not a real bath).");
+            scenario = ScenarioFile.waterBathDemo();
+            title = "Water bath (built-in demo)";
+        } else {
+            scenario = ScenarioFile.read(scenarioFile);
+            title = String.valueOf(scenarioFile.getFileName());
         }
         Trajectory trajectory = Simulation.run(scenario);
         ResponseMetrics metrics = ResponseMetrics.of(scenario, trajectory);
         Optional<LimitCycle> cycle = scenario.onOffController().isPresent()
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();
 
-        Files.createDirectories(outDirectory);
-        TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
-        System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(ResponsePlot.response(trajectory, title), outDirectory, "response");
-        String diverged = trajectory.diverged() ? String.format(Locale.ROOT, "DIVERGED: the process output passed"
-                + " the divergence bound at t = %s s and the run was stopped there (%s).", trajectory.divergedAtSeconds(),
-                Divergence.RULE) : "";
-        String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
-                + " (the first setpoint change until the next change or load step); integrals to the end. %s",
-                trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
-                ResponseWindow.of(scenario).describe(), diverged);
-        HtmlReports.simulate(spec, outDirectory, title, summary, metrics, cycle, outDirectory.resolve("response.svg"),
-                scenarioFile == null ? "built-in water-bath demo" : title,
-                scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            writeFiles(stage, scenario, trajectory, metrics, cycle, title);
+            stage.commit();
+        }
 
         if (trajectory.diverged()) {
-            err.println(diverged);
+            err.println(divergedNote(trajectory));
         }
         if (json) {
             out.println(MetricsReport.jsonText(metrics, cycle));
@@ -119,5 +103,26 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         out.flush();
         return 0;
+    }
+
+    private void writeFiles(OutputStage stage, Scenario scenario, Trajectory trajectory, ResponseMetrics metrics,
+            Optional<LimitCycle> cycle, String title) throws IOException {
+        Path directory = stage.directory();
+        TrajectoryCsv.write(trajectory, directory.resolve("trajectory.csv"));
+        System.setProperty("java.awt.headless", "true");
+        ResponsePlot.save(ResponsePlot.response(trajectory, title), directory, "response");
+        String diverged = trajectory.diverged() ? divergedNote(trajectory) : "";
+        String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
+                + " (the first setpoint change until the next change or load step); integrals to the end. %s",
+                trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
+                ResponseWindow.of(scenario).describe(), diverged);
+        HtmlReports.simulate(spec, directory, title, summary, metrics, cycle, directory.resolve("response.svg"),
+                scenarioFile == null ? "built-in water-bath demo" : title,
+                scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
+    }
+
+    private static String divergedNote(Trajectory trajectory) {
+        return String.format(Locale.ROOT, "DIVERGED: the process output passed the divergence bound at t = %s s and"
+                + " the run was stopped there (%s).", trajectory.divergedAtSeconds(), Divergence.RULE);
     }
 }

@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.plant.DcMotorModel;
 import org.loopwright.sim.plant.PlantModel;
@@ -97,28 +98,18 @@ public final class SweepCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        Scenario scenario;
-        Spread spread;
         int threadCount = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        try {
-            if (runs < 1 || runs > MAX_RUNS) {
-                throw new IllegalArgumentException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
-            }
-            if (threadCount < 1 || threadCount > MAX_THREADS) {
-                throw new IllegalArgumentException("--threads must be from 1 to " + MAX_THREADS + ": --threads="
-                        + threadCount);
-            }
-            spread = Spread.parse(spreadText);
-            scenario = ScenarioFile.read(scenarioFile);
-            if (scenario.linearPlant().isEmpty()) {
-                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
-                        + LinearLoopFile.LINEAR_TYPES + "): plant.type=" + type(scenario.plant()));
-            }
-        } catch (InputFileException | IllegalArgumentException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        if (runs < 1 || runs > MAX_RUNS) {
+            throw InputException.option("--runs", runs, "must be from 1 to " + MAX_RUNS);
+        }
+        if (threadCount < 1 || threadCount > MAX_THREADS) {
+            throw InputException.option("--threads", threadCount, "must be from 1 to " + MAX_THREADS);
+        }
+        Spread spread = Spread.parse(spreadText);
+        Scenario scenario = ScenarioFile.read(scenarioFile);
+        if (scenario.linearPlant().isEmpty()) {
+            throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
+                    + LinearLoopFile.LINEAR_TYPES + "): plant.type=" + type(scenario.plant()));
         }
         SweepResult result;
         try (SweepProgress progress = !json && !noProgress && System.console() != null
@@ -126,17 +117,17 @@ public final class SweepCommand implements Callable<Integer> {
             result = new Sweep(scenario, spread, seed).run(runs, threadCount, progress);
         }
         String title = String.valueOf(scenarioFile.getFileName());
-        List<Path> written;
-        try {
-            written = new ArrayList<>(SweepFiles.write(result, outDirectory, title));
-            written.add(HtmlReport.write(outDirectory.resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
-                    HtmlReports.version(spec), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
-                    List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
-        } catch (IOException e) {
-            err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)
-                    .getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        List<Path> written = new ArrayList<>();
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            for (Path p : SweepFiles.write(result, stage.directory(), title)) {
+                written.add(p.getFileName());
+            }
+            Path plot = stage.directory().resolve(written.get(1));
+            written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
+                    HtmlReports.version(spec), List.of(header(result, threadCount)),
+                    List.of(table(result), runsTable(result)), List.of(plot), title,
+                    Files.readString(scenarioFile, StandardCharsets.UTF_8)).getFileName());
+            stage.commit();
         }
         if (json) {
             out.println(Json.pretty(json(result, threadCount)));

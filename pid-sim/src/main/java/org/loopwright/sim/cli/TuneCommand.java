@@ -21,6 +21,7 @@ import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.tuning.TuningCandidate;
 import org.loopwright.sim.tuning.TuningEvaluation;
 
@@ -84,94 +85,87 @@ public final class TuneCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
+        ControllerType controllerType = parseType(type);
+        boolean fromModel = processGain != null || timeConstant != null || deadTime != null;
+        boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
+        if (fromModel == fromPoint) {
+            throw bad("give either --process-gain, --time-constant and --dead-time, or --ultimate-gain"
+                    + " and --ultimate-period");
+        }
+        if (fromModel && (processGain == null || timeConstant == null || deadTime == null)) {
+            throw bad("a model needs all of --process-gain, --time-constant and --dead-time");
+        }
+        if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
+            throw bad("an ultimate point needs both --ultimate-gain and --ultimate-period");
+        }
+        if (controllerOut != null && rule == null) {
+            throw bad("--write-controller needs --rule: which rule's settings to write");
+        }
+        if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
+            throw bad("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
+        }
+        if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
+            throw bad("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
+                    + " --closed-loop-time=" + closedLoopTime);
+        }
+        double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
+        List<TuningRule> rules = rule == null ? Arrays.stream(TuningRule.values())
+                .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));
+        List<TuningCandidate> candidates = new ArrayList<>();
+        List<RuleNotApplicable> skipped = new ArrayList<>();
+        FopdtModel model;
+        UltimatePoint point;
         try {
-            ControllerType controllerType = parseType(type);
-            boolean fromModel = processGain != null || timeConstant != null || deadTime != null;
-            boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
-            if (fromModel == fromPoint) {
-                throw new BadInput("give either --process-gain, --time-constant and --dead-time, or --ultimate-gain"
-                        + " and --ultimate-period");
+            model = fromModel ? new FopdtModel(processGain, timeConstant, deadTime) : null;
+            point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
+        } catch (InvalidSettingException e) {
+            throw bad(inOptionTerms(e));
+        }
+        for (TuningRule r : rules) {
+            TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);
+            if (result instanceof TunedGains tuned) {
+                candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model)
+                        : TuningEvaluation.withoutModel(tuned, ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
+            } else {
+                skipped.add((RuleNotApplicable) result);
             }
-            if (fromModel && (processGain == null || timeConstant == null || deadTime == null)) {
-                throw new BadInput("a model needs all of --process-gain, --time-constant and --dead-time");
-            }
-            if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
-                throw new BadInput("an ultimate point needs both --ultimate-gain and --ultimate-period");
-            }
-            if (controllerOut != null && rule == null) {
-                throw new BadInput("--write-controller needs --rule: which rule's settings to write");
-            }
-            if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
-                throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
-            }
-            if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
-                throw new BadInput("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
-                        + " --closed-loop-time=" + closedLoopTime);
-            }
-            double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
-            List<TuningRule> rules = rule == null ? Arrays.stream(TuningRule.values())
-                    .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));
-            List<TuningCandidate> candidates = new ArrayList<>();
-            List<RuleNotApplicable> skipped = new ArrayList<>();
-            FopdtModel model;
-            UltimatePoint point;
-            try {
-                model = fromModel ? new FopdtModel(processGain, timeConstant, deadTime) : null;
-                point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
-            } catch (InvalidSettingException e) {
-                throw new BadInput(inOptionTerms(e));
-            }
-            for (TuningRule r : rules) {
-                TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);
-                if (result instanceof TunedGains tuned) {
-                    candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model)
-                            : TuningEvaluation.withoutModel(tuned, ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
-                } else {
-                    skipped.add((RuleNotApplicable) result);
-                }
-            }
-            if (rule != null && candidates.isEmpty()) {
-                RuleNotApplicable why = skipped.get(0);
-                throw new BadInput(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
+        }
+        if (rule != null && candidates.isEmpty()) {
+            RuleNotApplicable why = skipped.get(0);
+            throw bad(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
+        }
+        if (controllerOut != null) {
+            write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
+        }
+        if (json) {
+            out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
+                    : TuningReport.json(candidates.get(0))));
+        } else {
+            out.println(fromModel
+                    ? "Model: K=" + processGain + ", T=" + timeConstant + " s, L=" + deadTime + " s (sample period "
+                            + TuningReport.num(TuningEvaluation.samplePeriodSeconds(model)) + " s in simulation)"
+                    : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
+                            + " or simulation; give K, T, L for those)");
+            if (rule == null) {
+                TuningReport.printTable(out, candidates, skipped);
+            } else {
+                TuningReport.printOne(out, candidates.get(0));
             }
             if (controllerOut != null) {
-                write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
+                out.println("Wrote " + controllerOut);
             }
-            if (json) {
-                out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
-                        : TuningReport.json(candidates.get(0))));
-            } else {
-                out.println(fromModel
-                        ? "Model: K=" + processGain + ", T=" + timeConstant + " s, L=" + deadTime + " s (sample period "
-                                + TuningReport.num(TuningEvaluation.samplePeriodSeconds(model)) + " s in simulation)"
-                        : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
-                                + " or simulation; give K, T, L for those)");
-                if (rule == null) {
-                    TuningReport.printTable(out, candidates, skipped);
-                } else {
-                    TuningReport.printOne(out, candidates.get(0));
-                }
-                if (controllerOut != null) {
-                    out.println("Wrote " + controllerOut);
-                }
-            }
-            out.flush();
-            return 0;
-        } catch (BadInput | InvalidSettingException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
         }
+        out.flush();
+        return 0;
     }
 
     static ControllerType parseType(String text) {
         return switch (text) {
             case "pi" -> ControllerType.PI;
             case "pid" -> ControllerType.PID;
-            default -> throw new BadInput("--type must be pi or pid: --type=" + text);
+            default -> throw bad("--type must be pi or pid: --type=" + text);
         };
     }
 
@@ -184,7 +178,7 @@ public final class TuneCommand implements Callable<Integer> {
         }
         String allowed = Arrays.stream(TuningRule.values()).filter(r -> r.usesModel() == fromModel)
                 .map(TuningRule::label).collect(Collectors.joining(", "));
-        throw new BadInput("--rule must be one of " + allowed + (fromModel ? " for a model" : " for an ultimate point")
+        throw bad("--rule must be one of " + allowed + (fromModel ? " for a model" : " for an ultimate point")
                 + ": --rule=" + label);
     }
 
@@ -199,20 +193,16 @@ public final class TuneCommand implements Callable<Integer> {
         return option + " " + e.rule() + ": " + option + "=" + e.value();
     }
 
-    private static void write(Path file, String text) {
-        try {
-            Files.writeString(file, text, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new BadInput(file + ": cannot be written (" + e + ")");
+    private static void write(Path file, String text) throws IOException {
+        Path absolute = file.toAbsolutePath();
+        try (OutputStage stage = OutputStage.in(absolute.getParent(), "--write-controller")) {
+            Files.writeString(stage.directory().resolve(absolute.getFileName().toString()), text,
+                    StandardCharsets.UTF_8);
+            stage.commit();
         }
     }
 
-    /** Bad input found by the command itself, reported on stderr with exit code 2. */
-    static final class BadInput extends RuntimeException {
-        private static final long serialVersionUID = 1L;
-
-        BadInput(String message) {
-            super(message);
-        }
+    private static InputException bad(String message) {
+        return new InputException(message, null);
     }
 }

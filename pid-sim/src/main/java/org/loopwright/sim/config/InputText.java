@@ -4,9 +4,7 @@ import java.io.IOException;
 import java.io.Reader;
 import java.io.StringReader;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AccessDeniedException;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -41,12 +39,8 @@ public final class InputText {
     public static String read(Path file) {
         try {
             return Files.readString(file, StandardCharsets.UTF_8);
-        } catch (NoSuchFileException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (no such file)", e);
-        } catch (AccessDeniedException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (permission denied)", e);
         } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (" + e + ")", e);
+            throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
         }
     }
 

@@ -2,6 +2,7 @@ package org.loopwright.sim.frequency;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 import org.hipparchus.complex.Complex;
 import org.loopwright.pid.ControllerSettings;
@@ -84,9 +85,19 @@ public final class LoopAnalysis {
         return PulseTransferFunction.of(settings.discretePid(periodSeconds));
     }
 
-    /** The sampled loop σ·C(z)·P_zoh(z)·z^(−N), N the samples of sensor delay. */
+    /**
+     * The sampled loop σ·C(z)·P_zoh(z)·z^(−N), N the samples of sensor delay.
+     *
+     * @throws IllegalArgumentException if the loop has more than {@link SampledLoop#MAX_DELAY_SAMPLES} of delay
+     */
     public static PulseTransferFunction sampledLoop(SampledLoop loop) {
         double h = loop.periodSeconds();
+        if (loop.delaySamples() > SampledLoop.MAX_DELAY_SAMPLES) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "the sampled loop's delay must be at most %d"
+                    + " samples for analysis: dead time %s s and %d sensor samples at h = %s s give %.4g",
+                    SampledLoop.MAX_DELAY_SAMPLES, loop.plant().deadTimeSeconds(), loop.sensorDelaySamples(), h,
+                    loop.delaySamples()));
+        }
         PulseTransferFunction sensor = new PulseTransferFunction(PulseTransferFunction.constant(1.0),
                 PulseTransferFunction.constant(1.0), loop.sensorDelaySamples(), h);
         return discreteController(loop.controller(), h)

@@ -26,6 +26,13 @@ import org.loopwright.sim.plant.TransferFunction;
 public record SampledLoop(TransferFunction plant, ControllerSettings controller, double periodSeconds,
         int sensorDelaySamples) {
 
+    /**
+     * The most samples of delay (plant dead time over h, plus the sensor's) an analysis takes: the
+     * closed-loop poles are eigenvalues of a companion matrix of about that order, O(n³) work, which is
+     * about a second at this size.
+     */
+    public static final int MAX_DELAY_SAMPLES = 1000;
+
     /** Checks the parts. */
     public SampledLoop {
         Objects.requireNonNull(plant, "plant");
@@ -37,6 +44,11 @@ public record SampledLoop(TransferFunction plant, ControllerSettings controller,
         if (sensorDelaySamples < 0) {
             throw new IllegalArgumentException("delay-samples must be >= 0: delay-samples=" + sensorDelaySamples);
         }
+    }
+
+    /** All the delay in the loop in samples of the period: the plant's dead time over h, plus the sensor's. */
+    public double delaySamples() {
+        return plant.deadTimeSeconds() / periodSeconds + sensorDelaySamples;
     }
 
     /** The loop at the controller's own period with an ideal, undelayed sensor. */

@@ -53,6 +53,10 @@ public final class DiscretisationStudy {
     private static final double[] DEFAULT_CROSSOVER_TIMES_PERIOD = {0.02, 0.1, 0.3, 1.0};
     /** ω_c·h at which the continuous design is simulated. */
     private static final double REFERENCE_CROSSOVER_TIMES_PERIOD = 0.002;
+    /** The most sample periods one study takes. */
+    public static final int MAX_PERIODS = 20;
+    /** The most samples one simulated response of a study may take (the scenario's duration over h). */
+    public static final int MAX_SAMPLES_PER_RUN = 1_000_000;
     /** The reference simulation's period is raised if it would need more samples than this. */
     private static final int MAX_REFERENCE_SAMPLES = 200_000;
 

@@ -158,7 +158,7 @@ class ReplayCommandTest {
         Path trace = file("t.csv", "time,setpoint,measurement\n0,1,0\n");
         Path nowhere = dir.resolve("nowhere.yaml");
         assertThat(run("replay", "--controller", nowhere.toString(), "--trace", trace.toString())).isEqualTo(2);
-        assertThat(err.toString().strip()).isEqualTo(nowhere + ": cannot be read (no such file)");
+        assertThat(err.toString().strip()).isEqualTo(nowhere + ": cannot be read (no such file or directory)");
     }
 
     @Test
@@ -167,7 +167,7 @@ class ReplayCommandTest {
         Path trace = file("t.csv", "time,setpoint,measurement\n0,1,0\n");
         assertThat(run("replay", "--controller", controller.toString(), "--trace", trace.toString(),
                 "--out", dir.toString())).isEqualTo(2);
-        assertThat(err.toString()).startsWith(dir.toAbsolutePath() + ": cannot be written (");
+        assertThat(err.toString()).startsWith("--out must name a file, not a directory: --out=" + dir.toAbsolutePath());
     }
 
     @Test
