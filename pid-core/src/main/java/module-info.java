@@ -8,6 +8,7 @@ module org.loopwright.pid {
     exports org.loopwright.pid;
     exports org.loopwright.pid.form;
     exports org.loopwright.pid.discrete;
+    exports org.loopwright.pid.monitor;
     exports org.loopwright.pid.onoff;
     exports org.loopwright.pid.runner;
     exports org.loopwright.pid.tuning;

@@ -61,6 +61,7 @@ public final class ControllerSettings {
     // multiplies by h nor pays for a feature that is off
     final double setpointStepLimit;
     final double outputStepLimit;
+    final double largestOutputStep;
     final double fixedTrackingGain;
     final double proportionalSetpointFactor;
     final boolean slewsSetpoint;
@@ -79,12 +80,12 @@ public final class ControllerSettings {
         faultPolicy = Objects.requireNonNull(b.faultPolicy, "faultPolicy");
         outputKind = Objects.requireNonNull(b.outputKind, "outputKind");
 
-        samplePeriodSeconds = positiveFinite("samplePeriodSeconds", b.samplePeriodSeconds);
-        proportionalSetpointWeight = weight("proportionalSetpointWeight", b.proportionalSetpointWeight);
-        derivativeSetpointWeight = weight("derivativeSetpointWeight", b.derivativeSetpointWeight);
-        derivativeFilterRatio = positiveFinite("derivativeFilterRatio", b.derivativeFilterRatio);
+        samplePeriodSeconds = SettingChecks.positive("samplePeriodSeconds", b.samplePeriodSeconds);
+        proportionalSetpointWeight = SettingChecks.fraction("proportionalSetpointWeight", b.proportionalSetpointWeight);
+        derivativeSetpointWeight = SettingChecks.fraction("derivativeSetpointWeight", b.derivativeSetpointWeight);
+        derivativeFilterRatio = SettingChecks.positive("derivativeFilterRatio", b.derivativeFilterRatio);
         if (!Double.isNaN(b.derivativeFilterTimeSeconds)) {
-            positiveFinite("derivativeFilterTimeSeconds", b.derivativeFilterTimeSeconds);
+            SettingChecks.positive("derivativeFilterTimeSeconds", b.derivativeFilterTimeSeconds);
         }
         if (Double.isNaN(b.outputMin) || b.outputMin == Double.POSITIVE_INFINITY) {
             throw new InvalidSettingException("outputMin", b.outputMin, "must be a number below +infinity");
@@ -98,14 +99,11 @@ public final class ControllerSettings {
         }
         outputMin = b.outputMin;
         outputMax = b.outputMax;
-        outputSlewPerSecond = positiveOrInfinite("outputSlewPerSecond", b.outputSlewPerSecond);
-        setpointSlewPerSecond = positiveOrInfinite("setpointSlewPerSecond", b.setpointSlewPerSecond);
-        if (!Double.isFinite(b.safeOutput)) {
-            throw new InvalidSettingException("safeOutput", b.safeOutput, "must be finite");
-        }
-        safeOutput = b.safeOutput;
-        errorDeadband = nonNegativeFinite("errorDeadband", b.errorDeadband);
-        wrapSpan = nonNegativeFinite("wrapSpan", b.wrapSpan);
+        outputSlewPerSecond = SettingChecks.positiveOrInfinite("outputSlewPerSecond", b.outputSlewPerSecond, "no limit");
+        setpointSlewPerSecond = SettingChecks.positiveOrInfinite("setpointSlewPerSecond", b.setpointSlewPerSecond, "no limit");
+        safeOutput = SettingChecks.finite("safeOutput", b.safeOutput);
+        errorDeadband = SettingChecks.nonNegative("errorDeadband", b.errorDeadband);
+        wrapSpan = SettingChecks.nonNegative("wrapSpan", b.wrapSpan);
         if (wrapSpan > 0.0 && proportionalSetpointWeight != 1.0) {
             // b·r has no meaning on a circle: the proportional term would jump by Kp·(1 − b)·span
             // whenever the setpoint crosses the wrap point
@@ -132,7 +130,9 @@ public final class ControllerSettings {
         fixedPeriod = DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, samplePeriodSeconds);
         setpointStepLimit = setpointSlewPerSecond * samplePeriodSeconds;
-        outputStepLimit = outputSlewPerSecond * samplePeriodSeconds;
+        // an increment beyond the largest double cannot be told: such a step is limited like a slew
+        largestOutputStep = outputKind == OutputKind.INCREMENT ? Double.MAX_VALUE : Double.POSITIVE_INFINITY;
+        outputStepLimit = outputStep(samplePeriodSeconds);
         fixedTrackingGain = trackingGain(samplePeriodSeconds);
         proportionalSetpointFactor = sign * (1.0 - proportionalSetpointWeight);
         // an infinite slew limit still matters on a circular variable, where a difference may overflow to NaN
@@ -142,6 +142,11 @@ public final class ControllerSettings {
                 || windupProtection == WindupProtection.ACTUATOR_TRACKING);
         clampsIntegral = windupProtection == WindupProtection.CLAMPING;
         incrementOutput = outputKind == OutputKind.INCREMENT;
+    }
+
+    /** The largest output step in a period: the slew limit, and for an increment output the largest double. */
+    double outputStep(double periodSeconds) {
+        return Math.min(outputSlewPerSecond * periodSeconds, largestOutputStep);
     }
 
     /** The back-calculation gain h/Tt at a period, capped at 1 so that the discrete tracking never over-corrects. */
@@ -204,7 +209,7 @@ public final class ControllerSettings {
     /** Tt = √(Ti·Td) for PID and Ti for PI (Åström &amp; Hägglund 2006, §3.5, a rule of thumb). */
     private double resolveTrackingTime(double explicit) {
         if (!Double.isNaN(explicit)) {
-            return positiveFinite("trackingTimeSeconds", explicit);
+            return SettingChecks.positive("trackingTimeSeconds", explicit);
         }
         if (integralGain == 0.0 || proportionalGain == 0.0) {
             return samplePeriodSeconds;
@@ -212,34 +217,6 @@ public final class ControllerSettings {
         double integralTime = proportionalGain / integralGain;
         double derivativeTime = derivativeGain / proportionalGain;
         return derivativeTime > 0.0 ? Math.sqrt(integralTime * derivativeTime) : integralTime;
-    }
-
-    private static double positiveFinite(String field, double value) {
-        if (!Double.isFinite(value) || value <= 0.0) {
-            throw new InvalidSettingException(field, value, "must be finite and > 0");
-        }
-        return value;
-    }
-
-    private static double nonNegativeFinite(String field, double value) {
-        if (!Double.isFinite(value) || value < 0.0) {
-            throw new InvalidSettingException(field, value, "must be finite and >= 0");
-        }
-        return value;
-    }
-
-    private static double positiveOrInfinite(String field, double value) {
-        if (Double.isNaN(value) || value <= 0.0) {
-            throw new InvalidSettingException(field, value, "must be > 0 (infinity for no limit)");
-        }
-        return value;
-    }
-
-    private static double weight(String field, double value) {
-        if (!Double.isFinite(value) || value < 0.0 || value > 1.0) {
-            throw new InvalidSettingException(field, value, "must be between 0 and 1");
-        }
-        return value;
     }
 
     /** The gains as given, in their own form. */
@@ -354,7 +331,7 @@ public final class ControllerSettings {
 
     /** The difference-equation coefficients at another sample period, as the variable-period update uses them. */
     public DiscretePid discretePid(double periodSeconds) {
-        positiveFinite("periodSeconds", periodSeconds);
+        SettingChecks.positive("periodSeconds", periodSeconds);
         return DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, periodSeconds);
     }

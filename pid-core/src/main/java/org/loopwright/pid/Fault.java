@@ -14,7 +14,9 @@ public enum Fault {
     FEEDFORWARD_NOT_FINITE,
     /**
      * The inputs were finite but so large that the law overflowed (an error, a term or the output
-     * beyond the range of a double); the sample is dropped like any other faulty one.
+     * beyond the range of a double, in automatic mode); the sample is dropped like any other faulty
+     * one, and the next sample starts the law again as a first sample does, bumpless from the last
+     * output. Manual and tracking outputs never overflow: the operator is always obeyed.
      */
     ARITHMETIC_OVERFLOW
 }

@@ -6,7 +6,8 @@ public enum OutputKind {
     POSITION,
     /**
      * The output is the change since the last sample (velocity form), for actuators that integrate
-     * their input such as motor-driven valves. The first sample emits 0.
+     * their input such as motor-driven valves. The first sample emits 0; a position step is at most
+     * {@link Double#MAX_VALUE}, so that the increment is always finite.
      */
     INCREMENT
 }

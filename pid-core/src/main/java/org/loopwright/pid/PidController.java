@@ -22,9 +22,12 @@ import org.slf4j.LoggerFactory;
  * dynamic state is zero; the recursions apply from the second sample on.
  *
  * <p>Bumpless by one rule: whenever the integral is not the law's own (after manual, tracking, a
- * safe output or a restore), the first automatic sample sets it so that the output equals the last
- * output; a retune moves it so that P + I + D at the last inputs is unchanged. A faulty sample (see
- * {@link Fault}) touches no state at all: it does not even adopt a pending retune.
+ * safe output, a restore or an overflow), the first automatic sample sets it so that the output
+ * equals the last output; a retune moves it so that P + I + D at the last inputs is unchanged (or,
+ * when the new settings cannot express those inputs, rebalances from the last output). A sample
+ * with a bad input (see {@link Fault}) touches no state at all: it does not even adopt a pending
+ * retune. Every state stays finite, so the controller never locks itself in a fault, and manual
+ * mode always obeys the operator.
  *
  * <p>Example: {@code double heaterPercent = controller.update(60.0, bathTemperature);} once per
  * sample period.
@@ -116,7 +119,7 @@ public final class PidController {
                 s.integralMethod().weightOnPrevious(s.integralGain, h),
                 hasDerivative ? method.pole(h, s.filterTimeSeconds) : 0.0,
                 hasDerivative ? method.gain(s.derivativeGain, h, s.filterTimeSeconds) : 0.0,
-                s.setpointSlewPerSecond() * h, s.outputSlewPerSecond() * h, s.trackingGain(h));
+                s.setpointSlewPerSecond() * h, s.outputStep(h), s.trackingGain(h));
     }
 
     /**
@@ -181,7 +184,7 @@ public final class PidController {
         double output;
         boolean automatic = mode == Mode.AUTOMATIC;
         if (automatic) {
-            if (rebalancePending && running) {
+            if (rebalancePending) {
                 integralNow = previousOutput - proportional - derivative - uff;
             } else if (s.clampsIntegral) {
                 integralNow = conditionallyIntegrated(s, proportional, next, derivative, uff, increment, lo, hi);
@@ -194,19 +197,25 @@ public final class PidController {
             integralNow = integral;
         }
         // a sum is finite only when every term is: in automatic this one test covers them all
-        if (!(Double.isFinite(unlimited) && (automatic
-                || Double.isFinite(error) && Double.isFinite(integralNow) && Double.isFinite(derivative)))) {
-            // finite inputs far too large for the gains: the sample is dropped like a faulty one
+        if (automatic && !Double.isFinite(unlimited)) {
+            // finite inputs far too large for the gains (or for the last inputs): the sample is dropped
+            // like a faulty one, and the law starts again at the next sample as at a first one, bumpless
+            // from the last output, so that ordinary inputs never meet these memories and stay in the fault
+            started = false;
+            rebalancePending = true;
             return onFault(s, Fault.ARITHMETIC_OVERFLOW);
         }
+        // outside automatic the output is the operator's whatever the law's terms; a term that overflowed
+        // restarts from zero, and the integral is rebalanced on the return to automatic anyway
+        boolean lawFinite = automatic || Double.isFinite(error) && Double.isFinite(derivative);
         double result = s.incrementOutput ? (running ? output - previousOutput : 0.0) : output;
         if (rebalancePending == automatic) {
             // outside automatic the integral is not the law's own: the next automatic sample rebalances it
             rebalancePending = !automatic;
         }
         integral = integralNow;
-        derivativeState = derivative;
-        previousError = error;
+        derivativeState = lawFinite ? derivative : 0.0;
+        previousError = lawFinite ? error : 0.0;
         previousSetpoint = setpoint;
         previousMeasurement = y;
         previousUnlimited = unlimited;
@@ -280,10 +289,10 @@ public final class PidController {
     private double onFault(ControllerSettings s, Fault seen) {
         faultCount++;
         fault = seen;
-        double output = clamp(previousOutput, s.outputMin(), s.outputMax());
-        if (s.faultPolicy() == FaultPolicy.SAFE_OUTPUT) {
-            output = clamp(s.safeOutput(), s.outputMin(), s.outputMax());
-        }
+        double target = s.faultPolicy() == FaultPolicy.SAFE_OUTPUT ? s.safeOutput() : previousOutput;
+        double step = s.largestOutputStep;
+        double output = limit(s, target, Math.max(s.outputMin(), previousOutput - step),
+                Math.min(s.outputMax(), previousOutput + step));
         if (output != previousOutput) {
             rebalancePending = true;
         }
@@ -303,12 +312,20 @@ public final class PidController {
             double newError = deadband(newRawError, next.errorDeadband());
             double newProportional = next.proportionalGain
                     * proportionalInput(next, previousSetpoint, newRawError, newError);
-            integral += oldProportional - newProportional;
+            double rebalanced = integral + (oldProportional - newProportional)
+                    + (next.derivativeGain == 0.0 ? derivativeState : 0.0);
+            if (Double.isFinite(rebalanced)) {
+                integral = rebalanced;
+                previousError = newError;
+            } else {
+                // the last inputs are beyond what the new settings can express (an error or P that
+                // overflows): this sample rebalances the integral from the last output instead
+                rebalancePending = true;
+                previousError = 0.0;
+            }
             if (next.derivativeGain == 0.0) {
-                integral += derivativeState;
                 derivativeState = 0.0;
             }
-            previousError = newError;
         }
         active = next;
     }
@@ -492,9 +509,10 @@ public final class PidController {
     /** A copy of the whole dynamic state, for a warm restart. */
     public StateSnapshot snapshot() {
         ControllerSettings s = active;
-        return new StateSnapshot(s.action(), s.outputKind(), s.outputMin(), s.outputMax(), s.wrapSpan(),
-                mode, started, integral, derivativeState, previousError, previousSetpoint, previousMeasurement,
-                previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied, manualValue, faultCount);
+        return new StateSnapshot(new StateSnapshot.Values(s.action(), s.outputKind(), s.outputMin(), s.outputMax(),
+                s.wrapSpan(), mode, started, integral, derivativeState, previousError, previousSetpoint,
+                previousMeasurement, previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied,
+                manualValue, faultCount));
     }
 
     /**
@@ -507,21 +525,22 @@ public final class PidController {
     public void restore(StateSnapshot snapshot) {
         ControllerSettings s = published;
         snapshot.requireCompatibleWith(s);
+        StateSnapshot.Values v = snapshot.values();
         active = s;
-        mode = snapshot.mode();
-        started = snapshot.started();
-        integral = snapshot.integral();
-        derivativeState = s.derivativeGain > 0.0 ? snapshot.derivativeState() : 0.0;
-        previousError = deadband(rawError(s, snapshot.previousSetpoint(), snapshot.previousMeasurement()),
-                s.errorDeadband());
-        previousSetpoint = snapshot.previousSetpoint();
-        previousMeasurement = snapshot.previousMeasurement();
-        previousUnlimited = snapshot.previousUnlimited();
-        previousOutput = snapshot.previousOutput();
-        previousFeedforward = snapshot.previousFeedforward();
-        feedforwardApplied = snapshot.feedforwardApplied();
-        manualValue = snapshot.manualValue();
-        faultCount = snapshot.faultCount();
+        mode = v.mode();
+        started = v.started();
+        integral = v.integral();
+        derivativeState = s.derivativeGain > 0.0 ? v.derivativeState() : 0.0;
+        previousError = v.previousError();
+        previousSetpoint = v.previousSetpoint();
+        previousMeasurement = v.previousMeasurement();
+        previousUnlimited = v.previousUnlimited();
+        previousOutput = v.previousOutput();
+        previousFeedforward = v.previousFeedforward();
+        feedforwardApplied = v.feedforwardApplied();
+        manualValue = v.manualValue();
+        faultCount = v.faultCount();
+        // the integral is the snapshot's, not the law's of these settings: the first automatic sample rebalances it
         rebalancePending = started;
         fault = Fault.NONE;
         LOG.debug("state restored: output {}", previousOutput);

@@ -23,30 +23,30 @@ import java.util.Map;
  * The first five keys describe the configuration the state belongs to: a snapshot restores only
  * into a controller with the same action, output kind, output range and wrap span.
  *
- * @param action              the action the state was taken under
- * @param outputKind          the output kind the state was taken under
- * @param outputMin           the output range's low end
- * @param outputMax           the output range's high end
- * @param wrapSpan            the process variable's wrap span (0 for none)
- * @param mode                the mode
- * @param started             whether the controller had seen a sample
- * @param integral            the integral, in output units
- * @param derivativeState     the filtered derivative, in output units
- * @param previousError       the last error (after action and deadband)
- * @param previousSetpoint    the last (slew-limited) setpoint
- * @param previousMeasurement the last measurement
- * @param previousUnlimited   the last output before the limits
- * @param previousOutput      the last actuator position
- * @param previousFeedforward the last feedforward contribution
- * @param feedforwardApplied  whether feedforward was on at the last sample
- * @param manualValue         the operator's output for manual mode
- * @param faultCount          faulty samples seen
+ * <p>Built only by {@link PidController#snapshot()} and {@link #parse(String)}, so a snapshot is
+ * always valid (every number finite) and a restore never brings in a state the controller could not
+ * have reached; a state field added later breaks no caller. Immutable and thread-safe.
  */
-public record StateSnapshot(Action action, OutputKind outputKind, double outputMin, double outputMax,
-        double wrapSpan, Mode mode, boolean started, double integral, double derivativeState,
-        double previousError, double previousSetpoint, double previousMeasurement, double previousUnlimited,
-        double previousOutput, double previousFeedforward, boolean feedforwardApplied, double manualValue,
-        long faultCount) {
+public final class StateSnapshot {
+
+    /** The state itself; the field names are those of the controller. */
+    record Values(Action action, OutputKind outputKind, double outputMin, double outputMax,
+            double wrapSpan, Mode mode, boolean started, double integral, double derivativeState,
+            double previousError, double previousSetpoint, double previousMeasurement, double previousUnlimited,
+            double previousOutput, double previousFeedforward, boolean feedforwardApplied, double manualValue,
+            long faultCount) {
+    }
+
+    private final Values values;
+
+    StateSnapshot(Values values) {
+        this.values = values;
+    }
+
+    /** The state, for the controller that restores it and for tests in this package. */
+    Values values() {
+        return values;
+    }
 
     /** The version of the text form written by {@link #toText()}. */
     public static final int TEXT_FORMAT_VERSION = 1;
@@ -54,11 +54,11 @@ public record StateSnapshot(Action action, OutputKind outputKind, double outputM
 
     void requireCompatibleWith(ControllerSettings s) {
         // named as in the text form, which is what the user has in front of them
-        mismatch("action", word(action), word(s.action()));
-        mismatch("output-kind", word(outputKind), word(s.outputKind()));
-        mismatch("output-min", outputMin, s.outputMin());
-        mismatch("output-max", outputMax, s.outputMax());
-        mismatch("wrap-span", wrapSpan, s.wrapSpan());
+        mismatch("action", word(values.action()), word(s.action()));
+        mismatch("output-kind", word(values.outputKind()), word(s.outputKind()));
+        mismatch("output-min", values.outputMin(), s.outputMin());
+        mismatch("output-max", values.outputMax(), s.outputMax());
+        mismatch("wrap-span", values.wrapSpan(), s.wrapSpan());
     }
 
     private static void mismatch(String field, Object saved, Object current) {
@@ -76,27 +76,45 @@ public record StateSnapshot(Action action, OutputKind outputKind, double outputM
     }
 
     private Map<String, String> fields() {
+        Values v = values;
         Map<String, String> f = new LinkedHashMap<>();
         f.put(HEADER, Integer.toString(TEXT_FORMAT_VERSION));
-        f.put("action", word(action));
-        f.put("output-kind", word(outputKind));
-        f.put("output-min", Double.toString(outputMin));
-        f.put("output-max", Double.toString(outputMax));
-        f.put("wrap-span", Double.toString(wrapSpan));
-        f.put("mode", word(mode));
-        f.put("started", Boolean.toString(started));
-        f.put("integral", Double.toString(integral));
-        f.put("derivative-state", Double.toString(derivativeState));
-        f.put("previous-error", Double.toString(previousError));
-        f.put("previous-setpoint", Double.toString(previousSetpoint));
-        f.put("previous-measurement", Double.toString(previousMeasurement));
-        f.put("previous-unlimited", Double.toString(previousUnlimited));
-        f.put("previous-output", Double.toString(previousOutput));
-        f.put("previous-feedforward", Double.toString(previousFeedforward));
-        f.put("feedforward-applied", Boolean.toString(feedforwardApplied));
-        f.put("manual-value", Double.toString(manualValue));
-        f.put("fault-count", Long.toString(faultCount));
+        f.put("action", word(v.action()));
+        f.put("output-kind", word(v.outputKind()));
+        f.put("output-min", Double.toString(v.outputMin()));
+        f.put("output-max", Double.toString(v.outputMax()));
+        f.put("wrap-span", Double.toString(v.wrapSpan()));
+        f.put("mode", word(v.mode()));
+        f.put("started", Boolean.toString(v.started()));
+        f.put("integral", Double.toString(v.integral()));
+        f.put("derivative-state", Double.toString(v.derivativeState()));
+        f.put("previous-error", Double.toString(v.previousError()));
+        f.put("previous-setpoint", Double.toString(v.previousSetpoint()));
+        f.put("previous-measurement", Double.toString(v.previousMeasurement()));
+        f.put("previous-unlimited", Double.toString(v.previousUnlimited()));
+        f.put("previous-output", Double.toString(v.previousOutput()));
+        f.put("previous-feedforward", Double.toString(v.previousFeedforward()));
+        f.put("feedforward-applied", Boolean.toString(v.feedforwardApplied()));
+        f.put("manual-value", Double.toString(v.manualValue()));
+        f.put("fault-count", Long.toString(v.faultCount()));
         return f;
+    }
+
+    /** Equal when every state value is equal (doubles compared as {@link Double#equals}). */
+    @Override
+    public boolean equals(Object other) {
+        return other instanceof StateSnapshot that && values.equals(that.values);
+    }
+
+    @Override
+    public int hashCode() {
+        return values.hashCode();
+    }
+
+    /** The text form, on one line. */
+    @Override
+    public String toString() {
+        return toText().replace('\n', ' ').strip();
     }
 
     private static String word(Enum<?> value) {
@@ -133,13 +151,13 @@ public record StateSnapshot(Action action, OutputKind outputKind, double outputM
             throw new IllegalArgumentException(r.where(HEADER) + "format version must be " + TEXT_FORMAT_VERSION
                     + ": " + HEADER + "=" + version);
         }
-        StateSnapshot snapshot = new StateSnapshot(r.choice("action", Action.class),
+        StateSnapshot snapshot = new StateSnapshot(new Values(r.choice("action", Action.class),
                 r.choice("output-kind", OutputKind.class), r.number("output-min"), r.number("output-max"),
                 r.number("wrap-span"), r.choice("mode", Mode.class), r.flag("started"), r.finite("integral"),
                 r.finite("derivative-state"), r.finite("previous-error"), r.finite("previous-setpoint"),
                 r.finite("previous-measurement"), r.finite("previous-unlimited"), r.finite("previous-output"),
                 r.finite("previous-feedforward"), r.flag("feedforward-applied"), r.finite("manual-value"),
-                r.count("fault-count"));
+                r.count("fault-count")));
         values.keySet().removeAll(snapshot.fields().keySet());
         if (!values.isEmpty()) {
             String key = values.keySet().iterator().next();

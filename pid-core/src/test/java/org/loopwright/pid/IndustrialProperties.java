@@ -62,7 +62,7 @@ class IndustrialProperties {
 
     /** The bound of the class comment, for the controller's state before the change and settings after. */
     private static double ownIncrement(PidController c, ControllerSettings s, double r, double y) {
-        StateSnapshot state = c.snapshot();
+        StateSnapshot.Values state = c.snapshot().values();
         double h = s.samplePeriodSeconds();
         double ki = s.parallelGains().integralGain();
         double ad = s.discretePid().derivativePole();
@@ -76,15 +76,15 @@ class IndustrialProperties {
     }
 
     private static double roundingScale(PidController c) {
-        StateSnapshot state = c.snapshot();
+        StateSnapshot.Values state = c.snapshot().values();
         return 1e-9 * (1.0 + Math.abs(c.proportionalTerm()) + Math.abs(state.integral())
                 + Math.abs(c.derivativeTerm()) + Math.abs(c.feedforwardTerm()) + Math.abs(state.previousUnlimited()));
     }
 
-    /** The snapshot with its last output and fault counter replaced, for an exact record comparison. */
-    static StateSnapshot sameCounters(StateSnapshot s, double previousOutput, long faultCount) {
-        return new StateSnapshot(s.action(), s.outputKind(), s.outputMin(), s.outputMax(), s.wrapSpan(), s.mode(),
-                s.started(), s.integral(), s.derivativeState(), s.previousError(), s.previousSetpoint(),
+    /** The state with its last output and fault counter replaced, for an exact comparison. */
+    static StateSnapshot.Values sameCounters(StateSnapshot.Values s, double previousOutput, long faultCount) {
+        return new StateSnapshot.Values(s.action(), s.outputKind(), s.outputMin(), s.outputMax(), s.wrapSpan(),
+                s.mode(), s.started(), s.integral(), s.derivativeState(), s.previousError(), s.previousSetpoint(),
                 s.previousMeasurement(), s.previousUnlimited(), previousOutput, s.previousFeedforward(),
                 s.feedforwardApplied(), s.manualValue(), faultCount);
     }
@@ -142,7 +142,7 @@ class IndustrialProperties {
         }
 
         void faultySample() {
-            StateSnapshot before = c.snapshot();
+            StateSnapshot.Values before = c.snapshot().values();
             double position = c.position();
             long faults = c.faultCount();
             double bad = RandomSettings.pick(rnd,
@@ -168,7 +168,7 @@ class IndustrialProperties {
             if (current.outputKind() == OutputKind.INCREMENT) {
                 assertThat(u).isEqualTo(expected - position);
             }
-            StateSnapshot after = c.snapshot();
+            StateSnapshot.Values after = c.snapshot().values();
             assertThat(after.faultCount()).isEqualTo(before.faultCount() + 1);
             assertThat(sameCounters(after, before.previousOutput(), before.faultCount())).isEqualTo(before);
         }
@@ -196,7 +196,7 @@ class IndustrialProperties {
 
         void retune() {
             ControllerSettings next = settings[rnd.nextInt(settings.length)];
-            boolean atRest = started && c.snapshot().previousSetpoint() == r;
+            boolean atRest = started && c.snapshot().values().previousSetpoint() == r;
             double last = c.position();
             double bound = ownIncrement(c, next, r, y);
             double scale = roundingScale(c);
@@ -206,13 +206,13 @@ class IndustrialProperties {
             if (atRest && c.mode() == Mode.AUTOMATIC) {
                 assertThat(Math.abs(c.position() - last)).as("retune bump").isLessThanOrEqualTo(bound + scale);
             }
-            if (atRest && c.mode() == Mode.MANUAL && c.snapshot().manualValue() == last) {
+            if (atRest && c.mode() == Mode.MANUAL && c.snapshot().values().manualValue() == last) {
                 assertThat(c.position()).isEqualTo(last);
             }
         }
 
         void switchFeedforward() {
-            boolean atRest = started && c.snapshot().previousSetpoint() == r;
+            boolean atRest = started && c.snapshot().values().previousSetpoint() == r;
             double last = c.position();
             if (!feedforwardOn) {
                 feedforward = 10.0 * rnd.nextGaussian();

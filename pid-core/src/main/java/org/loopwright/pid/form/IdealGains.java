@@ -1,6 +1,7 @@
 package org.loopwright.pid.form;
 
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 
 /**
  * Ideal (non-interacting, "standard") gains: u = Kc·(e + (1/Ti)·∫e dt + Td·de/dt).
@@ -22,9 +23,9 @@ public record IdealGains(double gain, double integralTime, double derivativeTime
 
     /** Validates every value; see the record description for the allowed ranges. */
     public IdealGains {
-        GainChecks.nonNegativeFinite("gain", gain);
-        GainChecks.positiveOrInfinite("integralTime", integralTime);
-        GainChecks.nonNegativeFinite("derivativeTime", derivativeTime);
+        SettingChecks.nonNegative("gain", gain);
+        SettingChecks.positiveOrInfinite("integralTime", integralTime, "no integral action");
+        SettingChecks.nonNegative("derivativeTime", derivativeTime);
     }
 
     /** PI or P-only gains: no derivative action. */

@@ -1,6 +1,7 @@
 package org.loopwright.pid.form;
 
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 
 /**
  * Parallel-form gains: u = Kp·e + Ki·∫e dt + Kd·de/dt, all in output units per unit of error
@@ -17,9 +18,9 @@ public record ParallelGains(double proportionalGain, double integralGain, double
 
     /** Validates every gain; see the record description for the allowed ranges. */
     public ParallelGains {
-        GainChecks.nonNegativeFinite("proportionalGain", proportionalGain);
-        GainChecks.nonNegativeFinite("integralGain", integralGain);
-        GainChecks.nonNegativeFinite("derivativeGain", derivativeGain);
+        SettingChecks.nonNegative("proportionalGain", proportionalGain);
+        SettingChecks.nonNegative("integralGain", integralGain);
+        SettingChecks.nonNegative("derivativeGain", derivativeGain);
     }
 
     @Override

@@ -1,5 +1,7 @@
 package org.loopwright.pid.form;
 
+import org.loopwright.pid.SettingChecks;
+
 /**
  * Series (interacting) gains: u = Kc'·(1 + 1/(s·Ti'))·(1 + s·Td')·e. Ti' = ∞ means no integral
  * action. The controller runs these as their exact ideal equivalent, with the derivative filter
@@ -13,9 +15,9 @@ public record SeriesGains(double gain, double integralTime, double derivativeTim
 
     /** Validates every value; see the record description for the allowed ranges. */
     public SeriesGains {
-        GainChecks.nonNegativeFinite("gain", gain);
-        GainChecks.positiveOrInfinite("integralTime", integralTime);
-        GainChecks.nonNegativeFinite("derivativeTime", derivativeTime);
+        SettingChecks.nonNegative("gain", gain);
+        SettingChecks.positiveOrInfinite("integralTime", integralTime, "no integral action");
+        SettingChecks.nonNegative("derivativeTime", derivativeTime);
     }
 
     @Override

@@ -3,7 +3,7 @@ package org.loopwright.pid.onoff;
 import java.util.Objects;
 
 import org.loopwright.pid.Action;
-import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 
 /**
  * The settings of an {@link OnOffController}. With reverse action (a heater) the output switches on
@@ -29,23 +29,11 @@ public record OnOffSettings(double offOutput, double onOutput, double hysteresis
 
     /** Validates every value; messages have the shape {@code "<field> <rule>: <field>=<value>"}. */
     public OnOffSettings {
-        finite("offOutput", offOutput);
-        finite("onOutput", onOutput);
-        nonNegativeFinite("hysteresis", hysteresis);
-        nonNegativeFinite("minimumOnSeconds", minimumOnSeconds);
-        nonNegativeFinite("minimumOffSeconds", minimumOffSeconds);
+        SettingChecks.finite("offOutput", offOutput);
+        SettingChecks.finite("onOutput", onOutput);
+        SettingChecks.nonNegative("hysteresis", hysteresis);
+        SettingChecks.nonNegative("minimumOnSeconds", minimumOnSeconds);
+        SettingChecks.nonNegative("minimumOffSeconds", minimumOffSeconds);
         Objects.requireNonNull(action, "action");
-    }
-
-    private static void finite(String field, double value) {
-        if (!Double.isFinite(value)) {
-            throw new InvalidSettingException(field, value, "must be finite");
-        }
-    }
-
-    private static void nonNegativeFinite(String field, double value) {
-        if (!Double.isFinite(value) || value < 0.0) {
-            throw new InvalidSettingException(field, value, "must be finite and >= 0");
-        }
     }
 }

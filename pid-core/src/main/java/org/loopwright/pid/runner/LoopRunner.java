@@ -2,11 +2,14 @@ package org.loopwright.pid.runner;
 
 import java.time.Duration;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.locks.LockSupport;
 
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
+import org.loopwright.pid.monitor.LoopMonitor;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
@@ -22,6 +25,10 @@ import org.slf4j.LoggerFactory;
  * a faulty sample too, and write the policy's output once more when it differs. Either way the tick
  * counts as failed; after {@link RunnerSettings#maxConsecutiveFailures()} failed ticks in a row the
  * runner stops and {@link #stopReason()} says why.
+ *
+ * <p>A runner built with a {@link LoopMonitor} feeds it once per tick, after the output is written, with
+ * the setpoint, the measurement, the output the actuator was given and whether the controller is in
+ * automatic.
  *
  * <p>Per tick the runner allocates nothing, takes no lock and logs nothing (as long as the callbacks
  * and the listener do the same); it logs once at start and once at stop.
@@ -49,6 +56,7 @@ public final class LoopRunner {
     private final MeasurementSource measurementSource;
     private final OutputSink outputSink;
     private final TimingListener listener;
+    private final LoopMonitor monitor; // null: none
     private final LoopClock clock;
     private final long periodNanos;
     private final long spinMarginNanos;
@@ -84,6 +92,32 @@ public final class LoopRunner {
      */
     public LoopRunner(RunnerSettings settings, PidController controller, SetpointSource setpointSource,
             MeasurementSource measurementSource, OutputSink outputSink, TimingListener listener) {
+        this(settings, controller, setpointSource, measurementSource, outputSink, listener, null);
+    }
+
+    /**
+     * A runner that has not started and feeds {@code monitor} on every tick.
+     *
+     * @param settings          timing, failure tolerance and thread
+     * @param controller        the controller this runner alone updates
+     * @param setpointSource    the setpoint per tick
+     * @param measurementSource the process variable per tick
+     * @param outputSink        where each output goes
+     * @param listener          per-tick timing, or {@link TimingListener#NONE}
+     * @param monitor           the loop monitor this runner alone feeds
+     * @throws InvalidSettingException as the constructor without a monitor
+     */
+    public static LoopRunner monitored(RunnerSettings settings, PidController controller,
+            SetpointSource setpointSource, MeasurementSource measurementSource, OutputSink outputSink,
+            TimingListener listener, LoopMonitor monitor) {
+        return new LoopRunner(settings, controller, setpointSource, measurementSource, outputSink, listener,
+                Objects.requireNonNull(monitor, "monitor"));
+    }
+
+    private LoopRunner(RunnerSettings settings, PidController controller, SetpointSource setpointSource,
+            MeasurementSource measurementSource, OutputSink outputSink, TimingListener listener,
+            LoopMonitor monitor) {
+        this.monitor = monitor;
         this.settings = Objects.requireNonNull(settings, "settings");
         this.controller = Objects.requireNonNull(controller, "controller");
         this.setpointSource = Objects.requireNonNull(setpointSource, "setpointSource");
@@ -296,6 +330,7 @@ public final class LoopRunner {
         double output = measuredPeriod
                 ? controller.update(setpoint, measurement, periodSeconds)
                 : controller.update(setpoint, measurement);
+        double written = output;
         try {
             outputSink.writeOutput(output);
         } catch (Exception e) {
@@ -305,12 +340,16 @@ public final class LoopRunner {
                     ? controller.update(setpoint, Double.NaN, periodSeconds)
                     : controller.update(setpoint, Double.NaN);
             if (Double.compare(fallback, output) != 0) {
+                written = fallback;
                 try {
                     outputSink.writeOutput(fallback);
                 } catch (Exception again) {
                     // already counted: one failed tick, reported with the first exception
                 }
             }
+        }
+        if (monitor != null) {
+            monitor.sample(setpoint, measurement, written, controller.mode() == Mode.AUTOMATIC);
         }
     }
 
@@ -325,6 +364,11 @@ public final class LoopRunner {
     /** The settings this runner was built with. */
     public RunnerSettings settings() {
         return settings;
+    }
+
+    /** The monitor this runner feeds on every tick, if it was built with one. */
+    public Optional<LoopMonitor> monitor() {
+        return Optional.ofNullable(monitor);
     }
 
     /** New, running or stopped. */

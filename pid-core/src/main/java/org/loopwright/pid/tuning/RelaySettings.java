@@ -4,6 +4,7 @@ import java.util.Objects;
 
 import org.loopwright.pid.Action;
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 
 /**
  * The settings of a {@link RelayExperiment}, validated once and immutable.
@@ -41,32 +42,23 @@ public final class RelaySettings {
     private final Action action;
 
     private RelaySettings(Builder b) {
-        setpoint = finite("setpoint", b.setpoint);
-        bias = finite("bias", b.bias);
-        relayAmplitude = positiveFinite("relayAmplitude", b.relayAmplitude);
-        hysteresis = finite("hysteresis", b.hysteresis);
-        if (hysteresis < 0.0) {
-            throw new InvalidSettingException("hysteresis", hysteresis, "must be finite and >= 0");
-        }
-        excursionLimit = positiveFinite("excursionLimit", b.excursionLimit);
+        setpoint = SettingChecks.finite("setpoint", b.setpoint);
+        bias = SettingChecks.finite("bias", b.bias);
+        relayAmplitude = SettingChecks.positive("relayAmplitude", b.relayAmplitude);
+        hysteresis = SettingChecks.nonNegative("hysteresis", b.hysteresis);
+        excursionLimit = SettingChecks.positive("excursionLimit", b.excursionLimit);
         if (excursionLimit <= hysteresis) {
             throw new InvalidSettingException("excursionLimit", excursionLimit,
                     "must be > hysteresis (" + hysteresis + ")");
         }
-        timeoutSeconds = positiveFinite("timeoutSeconds", b.timeoutSeconds);
-        maxHalfPeriodSeconds = positiveFinite("maxHalfPeriodSeconds", b.maxHalfPeriodSeconds);
+        timeoutSeconds = SettingChecks.positive("timeoutSeconds", b.timeoutSeconds);
+        maxHalfPeriodSeconds = SettingChecks.positive("maxHalfPeriodSeconds", b.maxHalfPeriodSeconds);
         if (maxHalfPeriodSeconds > timeoutSeconds) {
             throw new InvalidSettingException("maxHalfPeriodSeconds", maxHalfPeriodSeconds,
                     "must be <= timeoutSeconds (" + timeoutSeconds + ")");
         }
-        if (b.measuredCycles < 2) {
-            throw new InvalidSettingException("measuredCycles", b.measuredCycles, "must be >= 2");
-        }
-        measuredCycles = b.measuredCycles;
-        if (b.settlingCycles < 0) {
-            throw new InvalidSettingException("settlingCycles", b.settlingCycles, "must be >= 0");
-        }
-        settlingCycles = b.settlingCycles;
+        measuredCycles = SettingChecks.atLeast("measuredCycles", b.measuredCycles, 2);
+        settlingCycles = SettingChecks.atLeast("settlingCycles", b.settlingCycles, 0);
         if (!(b.cycleTolerance > 0.0 && b.cycleTolerance < 1.0)) {
             throw new InvalidSettingException("cycleTolerance", b.cycleTolerance, "must be > 0 and < 1");
         }
@@ -132,20 +124,6 @@ public final class RelaySettings {
     /** Reverse: output high while the measurement is below the setpoint (a heater); direct: the opposite. */
     public Action action() {
         return action;
-    }
-
-    private static double finite(String field, double value) {
-        if (!Double.isFinite(value)) {
-            throw new InvalidSettingException(field, value, "must be finite");
-        }
-        return value;
-    }
-
-    private static double positiveFinite(String field, double value) {
-        if (!Double.isFinite(value) || value <= 0.0) {
-            throw new InvalidSettingException(field, value, "must be finite and > 0");
-        }
-        return value;
     }
 
     /** Collects relay settings; {@link #build()} validates them. Not thread-safe. */

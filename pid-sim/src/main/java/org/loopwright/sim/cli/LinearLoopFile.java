@@ -4,10 +4,7 @@ import java.nio.file.Path;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.InputFileException;
-import org.loopwright.sim.plant.DcMotorModel;
-import org.loopwright.sim.plant.PlantModel;
-import org.loopwright.sim.plant.TankModel;
-import org.loopwright.sim.plant.ThermalZoneModel;
+import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
@@ -22,9 +19,6 @@ import org.loopwright.sim.scenario.ScenarioFile;
  */
 record LinearLoopFile(Scenario scenario, TransferFunction plant, ControllerSettings settings) {
 
-    /** The plant types a frequency-domain command accepts, as the scenario file names them. */
-    static final String LINEAR_TYPES = "first-order, fopdt, sopdt, integrating or transfer-function";
-
     /**
      * Reads {@code file} for {@code command}.
      *
@@ -33,22 +27,10 @@ record LinearLoopFile(Scenario scenario, TransferFunction plant, ControllerSetti
     static LinearLoopFile read(Path file, String command) {
         Scenario scenario = ScenarioFile.read(file);
         TransferFunction plant = scenario.linearPlant().orElseThrow(() -> InputFileException.whole(file.toString(),
-                command + " needs a linear plant (" + LINEAR_TYPES + "): plant.type=" + type(scenario.plant()), null));
+                command + " needs a linear plant (" + PlantType.linearWords() + "): plant.type="
+                        + scenario.plant().type().word(), null));
         ControllerSettings settings = scenario.controller().orElseThrow(() -> InputFileException.whole(
                 file.toString(), command + " needs a PID controller (the controller key): on-off=given", null));
         return new LinearLoopFile(scenario, plant, settings);
-    }
-
-    private static String type(PlantModel plant) {
-        if (plant instanceof DcMotorModel) {
-            return "dc-motor";
-        }
-        if (plant instanceof ThermalZoneModel) {
-            return "thermal-zone";
-        }
-        if (plant instanceof TankModel) {
-            return "tank";
-        }
-        return "transfer-function";
     }
 }

@@ -13,9 +13,7 @@ import java.util.concurrent.Callable;
 
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
-import org.loopwright.sim.plant.DcMotorModel;
-import org.loopwright.sim.plant.PlantModel;
-import org.loopwright.sim.plant.TankModel;
+import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
@@ -109,7 +107,7 @@ public final class SweepCommand implements Callable<Integer> {
         Scenario scenario = ScenarioFile.read(scenarioFile);
         if (scenario.linearPlant().isEmpty()) {
             throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
-                    + LinearLoopFile.LINEAR_TYPES + "): plant.type=" + type(scenario.plant()));
+                    + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
         }
         SweepResult result;
         try (SweepProgress progress = !json && !noProgress && System.console() != null
@@ -141,13 +139,6 @@ public final class SweepCommand implements Callable<Integer> {
         }
         out.flush();
         return 0;
-    }
-
-    private static String type(PlantModel plant) {
-        if (plant instanceof DcMotorModel) {
-            return "dc-motor";
-        }
-        return plant instanceof TankModel ? "tank" : "thermal-zone";
     }
 
     private static String header(SweepResult result, int threadCount) {

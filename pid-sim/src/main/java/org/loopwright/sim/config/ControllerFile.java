@@ -3,10 +3,11 @@ package org.loopwright.sim.config;
 import static java.util.Map.entry;
 
 import java.nio.file.Path;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import java.util.function.Function;
+import java.util.function.Predicate;
 
 import org.loopwright.pid.Action;
 import org.loopwright.pid.ControllerSettings;
@@ -90,31 +91,141 @@ public final class ControllerFile {
     public static final Keywords<OutputKind> OUTPUT_KINDS = Keywords.of(
             entry("position", OutputKind.POSITION), entry("increment", OutputKind.INCREMENT));
 
+    /** {@code form}: which gains the file gives. */
+    public static final FileKey<ControllerForm> FORM = FileKey.choice("form", "gains", FORMS);
+    /** {@code gain}: Kc of the ideal and series forms. */
+    public static final FileKey<Double> GAIN = FileKey.number("gain", "gain", NumberRule.ANY);
+    /** {@code integral-time}: Ti in seconds; absent for no integral action. */
+    public static final FileKey<Double> INTEGRAL_TIME = FileKey.number("integral-time", "integralTime", NumberRule.ANY)
+            .orElse(Double.POSITIVE_INFINITY);
+    /** {@code derivative-time}: Td in seconds. */
+    public static final FileKey<Double> DERIVATIVE_TIME = FileKey.number("derivative-time", "derivativeTime",
+            NumberRule.ANY).orElse(0.0);
+    /** {@code proportional-gain}: Kp of the parallel form. */
+    public static final FileKey<Double> PROPORTIONAL_GAIN = FileKey.number("proportional-gain", "proportionalGain",
+            NumberRule.ANY);
+    /** {@code integral-gain}: Ki of the parallel form. */
+    public static final FileKey<Double> INTEGRAL_GAIN = FileKey.number("integral-gain", "integralGain", NumberRule.ANY)
+            .orElse(0.0);
+    /** {@code derivative-gain}: Kd of the parallel form. */
+    public static final FileKey<Double> DERIVATIVE_GAIN = FileKey.number("derivative-gain", "derivativeGain",
+            NumberRule.ANY).orElse(0.0);
+    /** {@code sample-period}: h in seconds. */
+    public static final FileKey<Double> SAMPLE_PERIOD = FileKey.number("sample-period", "samplePeriodSeconds",
+            NumberRule.ANY);
+    /** {@code setpoint-weight-proportional}: b. */
+    public static final FileKey<Double> PROPORTIONAL_WEIGHT = FileKey.number("setpoint-weight-proportional",
+            "proportionalSetpointWeight", NumberRule.ANY).orElse(1.0);
+    /** {@code setpoint-weight-derivative}: c. */
+    public static final FileKey<Double> DERIVATIVE_WEIGHT = FileKey.number("setpoint-weight-derivative",
+            "derivativeSetpointWeight", NumberRule.ANY).orElse(0.0);
+    /** {@code derivative-filter}: N = Td/Tf. */
+    public static final FileKey<Double> FILTER_RATIO = FileKey.number("derivative-filter", "derivativeFilterRatio",
+            NumberRule.ANY).orElse(ControllerSettings.DEFAULT_DERIVATIVE_FILTER_RATIO);
+    /** {@code derivative-filter-time}: Tf in seconds, instead of N. */
+    public static final FileKey<Double> FILTER_TIME = FileKey.number("derivative-filter-time",
+            "derivativeFilterTimeSeconds", NumberRule.ANY).optional();
+    /** {@code integral-method}. */
+    public static final FileKey<IntegralMethod> INTEGRAL_METHOD = FileKey.choice("integral-method", "integralMethod",
+            INTEGRAL_METHODS).orElse(IntegralMethod.TUSTIN);
+    /** {@code derivative-method}. */
+    public static final FileKey<DerivativeMethod> DERIVATIVE_METHOD = FileKey.choice("derivative-method",
+            "derivativeMethod", DERIVATIVE_METHODS).orElse(DerivativeMethod.BACKWARD_EULER);
+    /** {@code action}. */
+    public static final FileKey<Action> ACTION = FileKey.choice("action", "action", ACTIONS).orElse(Action.REVERSE);
+    /** {@code output-min}: absent for no lower limit. */
+    public static final FileKey<Double> OUTPUT_MIN = FileKey.number("output-min", "outputMin", NumberRule.ANY)
+            .orElse(Double.NEGATIVE_INFINITY);
+    /** {@code output-max}: absent for no upper limit. */
+    public static final FileKey<Double> OUTPUT_MAX = FileKey.number("output-max", "outputMax", NumberRule.ANY)
+            .orElse(Double.POSITIVE_INFINITY);
+    /** {@code windup}. */
+    public static final FileKey<WindupProtection> WINDUP_PROTECTION = FileKey.choice("windup", "windupProtection",
+            WINDUP).orElse(WindupProtection.BACK_CALCULATION);
+    /** {@code tracking-time}: Tt in seconds; absent for the rule of thumb. */
+    public static final FileKey<Double> TRACKING_TIME = FileKey.number("tracking-time", "trackingTimeSeconds",
+            NumberRule.ANY).optional();
+    /** {@code output-slew}: units per second; absent for none. */
+    public static final FileKey<Double> OUTPUT_SLEW = FileKey.number("output-slew", "outputSlewPerSecond",
+            NumberRule.ANY).orElse(Double.POSITIVE_INFINITY);
+    /** {@code setpoint-slew}: units per second; absent for none. */
+    public static final FileKey<Double> SETPOINT_SLEW = FileKey.number("setpoint-slew", "setpointSlewPerSecond",
+            NumberRule.ANY).orElse(Double.POSITIVE_INFINITY);
+    /** {@code fault-policy}. */
+    public static final FileKey<FaultPolicy> FAULT_POLICY = FileKey.choice("fault-policy", "faultPolicy",
+            FAULT_POLICIES).orElse(FaultPolicy.HOLD);
+    /** {@code safe-output}: required with the safe-output policy, and only there. */
+    public static final FileKey<Double> SAFE_OUTPUT = FileKey.number("safe-output", "safeOutput", NumberRule.ANY)
+            .optional();
+    /** {@code error-deadband}. */
+    public static final FileKey<Double> ERROR_DEADBAND = FileKey.number("error-deadband", "errorDeadband",
+            NumberRule.ANY).orElse(0.0);
+    /** {@code wrap-span}: 0 for a process variable that is not circular. */
+    public static final FileKey<Double> WRAP_SPAN = FileKey.number("wrap-span", "wrapSpan", NumberRule.ANY)
+            .orElse(0.0);
+    /** {@code output-kind}. */
+    public static final FileKey<OutputKind> OUTPUT_KIND = FileKey.choice("output-kind", "outputKind", OUTPUT_KINDS)
+            .orElse(OutputKind.POSITION);
+
+    /**
+     * How each key is written from settings, in file order: when it applies and its value. The
+     * order, the allowed keys and the field-to-key map all come from this list.
+     */
+    private static final List<Written<?>> WRITTEN = List.of(
+            written(FORM, s -> true, s -> s.gains().form()),
+            written(GAIN, ControllerFile::timeForm, s -> timeGains(s)[0]),
+            written(INTEGRAL_TIME, ControllerFile::timeForm, s -> timeGains(s)[1]),
+            written(DERIVATIVE_TIME, ControllerFile::timeForm, s -> timeGains(s)[2]),
+            written(PROPORTIONAL_GAIN, s -> !timeForm(s), s -> s.parallelGains().proportionalGain()),
+            written(INTEGRAL_GAIN, s -> !timeForm(s), s -> s.parallelGains().integralGain()),
+            written(DERIVATIVE_GAIN, s -> !timeForm(s), s -> s.parallelGains().derivativeGain()),
+            written(SAMPLE_PERIOD, s -> true, ControllerSettings::samplePeriodSeconds),
+            written(PROPORTIONAL_WEIGHT, s -> true, ControllerSettings::proportionalSetpointWeight),
+            written(DERIVATIVE_WEIGHT, s -> true, ControllerSettings::derivativeSetpointWeight),
+            written(FILTER_RATIO, ControllerFile::filterFromRatio, ControllerSettings::derivativeFilterRatio),
+            written(FILTER_TIME, s -> !filterFromRatio(s), ControllerSettings::derivativeFilterTimeSeconds),
+            written(INTEGRAL_METHOD, s -> true, ControllerSettings::integralMethod),
+            written(DERIVATIVE_METHOD, s -> true, ControllerSettings::derivativeMethod),
+            written(ACTION, s -> true, ControllerSettings::action),
+            written(OUTPUT_MIN, s -> true, ControllerSettings::outputMin),
+            written(OUTPUT_MAX, s -> true, ControllerSettings::outputMax),
+            written(WINDUP_PROTECTION, s -> true, ControllerSettings::windupProtection),
+            written(TRACKING_TIME, s -> tracks(s.windupProtection()), ControllerSettings::trackingTimeSeconds),
+            written(OUTPUT_SLEW, s -> true, ControllerSettings::outputSlewPerSecond),
+            written(SETPOINT_SLEW, s -> true, ControllerSettings::setpointSlewPerSecond),
+            written(FAULT_POLICY, s -> true, ControllerSettings::faultPolicy),
+            written(SAFE_OUTPUT, s -> s.faultPolicy() == FaultPolicy.SAFE_OUTPUT, ControllerSettings::safeOutput),
+            written(ERROR_DEADBAND, s -> true, ControllerSettings::errorDeadband),
+            written(WRAP_SPAN, s -> true, ControllerSettings::wrapSpan),
+            written(OUTPUT_KIND, s -> true, ControllerSettings::outputKind));
+
     /** Every key a controller mapping may hold, in the order {@link #toYaml} writes them. */
-    public static final List<String> KEYS = List.of("form", "gain", "integral-time", "derivative-time",
-            "proportional-gain", "integral-gain", "derivative-gain", "sample-period", "setpoint-weight-proportional",
-            "setpoint-weight-derivative", "derivative-filter", "derivative-filter-time", "integral-method",
-            "derivative-method", "action", "output-min", "output-max", "windup", "tracking-time", "output-slew",
-            "setpoint-slew", "fault-policy", "safe-output", "error-deadband", "wrap-span", "output-kind");
+    public static final List<FileKey<?>> KEYS = WRITTEN.stream().<FileKey<?>>map(Written::key).toList();
 
-    private static final List<String> IDEAL_GAIN_KEYS = List.of("gain", "integral-time", "derivative-time");
-    private static final List<String> PARALLEL_GAIN_KEYS = List.of("proportional-gain", "integral-gain",
-            "derivative-gain");
+    private static final List<FileKey<?>> TIME_GAIN_KEYS = List.of(GAIN, INTEGRAL_TIME, DERIVATIVE_TIME);
+    private static final List<FileKey<?>> PARALLEL_GAIN_KEYS = List.of(PROPORTIONAL_GAIN, INTEGRAL_GAIN,
+            DERIVATIVE_GAIN);
 
-    /** Builder and gain field names (as {@link InvalidSettingException#field()} gives them) to file keys. */
-    private static final Map<String, String> KEY_BY_FIELD = Map.ofEntries(
-            entry("gain", "gain"), entry("integralTime", "integral-time"), entry("derivativeTime", "derivative-time"),
-            entry("proportionalGain", "proportional-gain"), entry("integralGain", "integral-gain"),
-            entry("derivativeGain", "derivative-gain"), entry("samplePeriodSeconds", "sample-period"),
-            entry("proportionalSetpointWeight", "setpoint-weight-proportional"),
-            entry("derivativeSetpointWeight", "setpoint-weight-derivative"),
-            entry("derivativeFilterRatio", "derivative-filter"),
-            entry("derivativeFilterTimeSeconds", "derivative-filter-time"),
-            entry("outputMin", "output-min"), entry("outputMax", "output-max"),
-            entry("trackingTimeSeconds", "tracking-time"), entry("outputSlewPerSecond", "output-slew"),
-            entry("setpointSlewPerSecond", "setpoint-slew"), entry("safeOutput", "safe-output"),
-            entry("errorDeadband", "error-deadband"), entry("wrapSpan", "wrap-span"));
-    private static final Pattern FIELD_NAME = Pattern.compile("\\b[a-z][A-Za-z]*\\b");
+    /**
+     * One key's writing rule.
+     *
+     * @param key     the key
+     * @param applies whether the key is written for these settings
+     * @param value   its value
+     * @param <T>     the value type
+     */
+    private record Written<T>(FileKey<T> key, Predicate<ControllerSettings> applies,
+            Function<ControllerSettings, T> value) {
+
+        String text(ControllerSettings settings) {
+            return key.text(value.apply(settings));
+        }
+    }
+
+    private static <T> Written<T> written(FileKey<T> key, Predicate<ControllerSettings> applies,
+            Function<ControllerSettings, T> value) {
+        return new Written<>(key, applies, value);
+    }
 
     private ControllerFile() {
     }
@@ -122,6 +233,8 @@ public final class ControllerFile {
     /**
      * Reads a controller file.
      *
+     * @param file the file
+     * @return the settings
      * @throws InputFileException naming the file, line, column, key, value and what is allowed
      */
     public static ControllerSettings read(Path file) {
@@ -132,221 +245,153 @@ public final class ControllerFile {
      * Reads the controller mapping at a JSON pointer of a document ({@code ""} for the whole
      * document, {@code "/controller"} for one embedded in a scenario file).
      *
+     * @param doc     the document
+     * @param pointer the mapping's pointer
+     * @return the settings
      * @throws InputFileException naming the file, line, column, key, value and what is allowed
      */
     public static ControllerSettings read(YamlDocument doc, String pointer) {
-        Reader reader = new Reader(doc, pointer);
-        try {
-            return reader.settings();
-        } catch (InvalidSettingException e) {
-            throw reader.located(e);
-        }
+        FileMapping file = new FileMapping(doc, pointer, KEYS, "");
+        return file.build(() -> settings(file));
     }
 
-    /** Reads one controller mapping; keeps the document and the mapping's pointer for messages. */
-    private static final class Reader {
-        private final YamlDocument doc;
-        private final String pointer;
+    private static ControllerSettings settings(FileMapping file) {
+        ControllerSettings.Builder builder = ControllerSettings.builder()
+                .gains(gains(file, file.get(FORM)))
+                .samplePeriodSeconds(file.get(SAMPLE_PERIOD))
+                .setpointWeights(file.get(PROPORTIONAL_WEIGHT), file.get(DERIVATIVE_WEIGHT))
+                .integralMethod(file.get(INTEGRAL_METHOD))
+                .derivativeMethod(file.get(DERIVATIVE_METHOD))
+                .action(file.get(ACTION))
+                .outputRange(file.get(OUTPUT_MIN), file.get(OUTPUT_MAX))
+                .outputSlewPerSecond(file.get(OUTPUT_SLEW))
+                .setpointSlewPerSecond(file.get(SETPOINT_SLEW))
+                .errorDeadband(file.get(ERROR_DEADBAND))
+                .wrapSpan(file.get(WRAP_SPAN))
+                .outputKind(file.get(OUTPUT_KIND));
+        derivativeFilter(file, builder);
+        windup(file, builder);
+        faultPolicy(file, builder);
+        return builder.build();
+    }
 
-        Reader(YamlDocument doc, String pointer) {
-            this.doc = doc;
-            this.pointer = pointer;
-        }
-
-        private String at(String key) {
-            return YamlDocument.child(pointer, key);
-        }
-
-        private boolean has(String key) {
-            return doc.has(at(key));
-        }
-
-        ControllerSettings settings() {
-            doc.requireKeys(pointer, KEYS);
-            ControllerForm form = doc.requiredChoice(at("form"), FORMS);
-            ControllerSettings.Builder builder = ControllerSettings.builder()
-                    .gains(gains(form))
-                    .samplePeriodSeconds(doc.requiredNumber(at("sample-period"), NumberRule.ANY))
-                    .setpointWeights(doc.optionalNumber(at("setpoint-weight-proportional"), NumberRule.ANY, 1.0),
-                            doc.optionalNumber(at("setpoint-weight-derivative"), NumberRule.ANY, 0.0))
-                    .integralMethod(doc.optionalChoice(at("integral-method"), INTEGRAL_METHODS, IntegralMethod.TUSTIN))
-                    .derivativeMethod(doc.optionalChoice(at("derivative-method"), DERIVATIVE_METHODS,
-                            DerivativeMethod.BACKWARD_EULER))
-                    .action(doc.optionalChoice(at("action"), ACTIONS, Action.REVERSE))
-                    .outputRange(doc.optionalNumber(at("output-min"), NumberRule.ANY, Double.NEGATIVE_INFINITY),
-                            doc.optionalNumber(at("output-max"), NumberRule.ANY, Double.POSITIVE_INFINITY))
-                    .outputSlewPerSecond(doc.optionalNumber(at("output-slew"), NumberRule.ANY, Double.POSITIVE_INFINITY))
-                    .setpointSlewPerSecond(
-                            doc.optionalNumber(at("setpoint-slew"), NumberRule.ANY, Double.POSITIVE_INFINITY))
-                    .errorDeadband(doc.optionalNumber(at("error-deadband"), NumberRule.ANY, 0.0))
-                    .wrapSpan(doc.optionalNumber(at("wrap-span"), NumberRule.ANY, 0.0))
-                    .outputKind(doc.optionalChoice(at("output-kind"), OUTPUT_KINDS, OutputKind.POSITION));
-            derivativeFilter(builder);
-            windup(builder);
-            faultPolicy(builder);
-            return builder.build();
-        }
-
-        private PidGains gains(ControllerForm form) {
-            List<String> own = form == ControllerForm.PARALLEL ? PARALLEL_GAIN_KEYS : IDEAL_GAIN_KEYS;
-            List<String> foreign = form == ControllerForm.PARALLEL ? IDEAL_GAIN_KEYS : PARALLEL_GAIN_KEYS;
-            String formWord = FORMS.word(form);
-            for (String key : foreign) {
-                if (has(key)) {
-                    throw doc.error(at(key), doc.keyName(at(key)) + " does not belong to form " + formWord
-                            + "; form " + formWord + " takes " + String.join(", ", own));
-                }
-            }
-            if (!has(own.get(0))) {
-                throw doc.error(at("form"), "missing key '" + own.get(0) + "' for form " + formWord + " ("
-                        + NumberRule.NON_NEGATIVE.describeNumber() + ")");
-            }
-            double first = doc.requiredNumber(at(own.get(0)), NumberRule.ANY);
-            return switch (form) {
-                case PARALLEL -> new ParallelGains(first,
-                        doc.optionalNumber(at("integral-gain"), NumberRule.ANY, 0.0),
-                        doc.optionalNumber(at("derivative-gain"), NumberRule.ANY, 0.0));
-                case IDEAL -> new IdealGains(first,
-                        doc.optionalNumber(at("integral-time"), NumberRule.ANY, Double.POSITIVE_INFINITY),
-                        doc.optionalNumber(at("derivative-time"), NumberRule.ANY, 0.0));
-                case SERIES -> new SeriesGains(first,
-                        doc.optionalNumber(at("integral-time"), NumberRule.ANY, Double.POSITIVE_INFINITY),
-                        doc.optionalNumber(at("derivative-time"), NumberRule.ANY, 0.0));
-            };
-        }
-
-        private void derivativeFilter(ControllerSettings.Builder builder) {
-            if (has("derivative-filter") && has("derivative-filter-time")) {
-                String later = doc.position(at("derivative-filter")).line()
-                        > doc.position(at("derivative-filter-time")).line() ? "derivative-filter" : "derivative-filter-time";
-                throw doc.error(at(later), "derivative-filter and derivative-filter-time exclude each other;"
-                        + " give derivative-filter (N = Td/Tf) or derivative-filter-time (Tf in seconds)");
-            }
-            builder.derivativeFilterRatio(doc.optionalNumber(at("derivative-filter"), NumberRule.ANY,
-                    ControllerSettings.DEFAULT_DERIVATIVE_FILTER_RATIO));
-            doc.optionalNumber(at("derivative-filter-time"), NumberRule.ANY)
-                    .ifPresent(builder::derivativeFilterTimeSeconds);
-        }
-
-        private void windup(ControllerSettings.Builder builder) {
-            WindupProtection windup = doc.optionalChoice(at("windup"), WINDUP, WindupProtection.BACK_CALCULATION);
-            builder.windupProtection(windup);
-            if (has("tracking-time")) {
-                if (windup != WindupProtection.BACK_CALCULATION && windup != WindupProtection.ACTUATOR_TRACKING) {
-                    throw doc.error(at("tracking-time"), doc.keyName(at("tracking-time"))
-                            + " applies only to windup: back-calculation or actuator-tracking (windup is "
-                            + WINDUP.word(windup) + ")");
-                }
-                builder.trackingTimeSeconds(doc.requiredNumber(at("tracking-time"), NumberRule.ANY));
+    private static PidGains gains(FileMapping file, ControllerForm form) {
+        List<FileKey<?>> own = form == ControllerForm.PARALLEL ? PARALLEL_GAIN_KEYS : TIME_GAIN_KEYS;
+        List<FileKey<?>> foreign = form == ControllerForm.PARALLEL ? TIME_GAIN_KEYS : PARALLEL_GAIN_KEYS;
+        String formWord = FORMS.word(form);
+        for (FileKey<?> key : foreign) {
+            if (file.has(key)) {
+                throw file.error(key, file.name(key) + " does not belong to form " + formWord + "; form " + formWord
+                        + " takes " + String.join(", ", FileMapping.words(own)));
             }
         }
-
-        private void faultPolicy(ControllerSettings.Builder builder) {
-            FaultPolicy policy = doc.optionalChoice(at("fault-policy"), FAULT_POLICIES, FaultPolicy.HOLD);
-            if (policy == FaultPolicy.SAFE_OUTPUT && !has("safe-output")) {
-                throw doc.error(at("fault-policy"), "missing key 'safe-output' for fault-policy safe-output ("
-                        + NumberRule.FINITE.describeNumber() + ")");
-            }
-            if (policy != FaultPolicy.SAFE_OUTPUT && has("safe-output")) {
-                throw doc.error(at("safe-output"), doc.keyName(at("safe-output"))
-                        + " applies only to fault-policy: safe-output (fault-policy is " + FAULT_POLICIES.word(policy)
-                        + ")");
-            }
-            builder.faultPolicy(policy, doc.optionalNumber(at("safe-output"), NumberRule.ANY, 0.0));
+        if (!file.has(own.get(0))) {
+            throw file.error(FORM, "missing key '" + own.get(0).word() + "' for form " + formWord + " ("
+                    + NumberRule.NON_NEGATIVE.describeNumber() + ")");
         }
+        return switch (form) {
+            case PARALLEL -> new ParallelGains(file.get(PROPORTIONAL_GAIN), file.get(INTEGRAL_GAIN),
+                    file.get(DERIVATIVE_GAIN));
+            case IDEAL -> new IdealGains(file.get(GAIN), file.get(INTEGRAL_TIME), file.get(DERIVATIVE_TIME));
+            case SERIES -> new SeriesGains(file.get(GAIN), file.get(INTEGRAL_TIME), file.get(DERIVATIVE_TIME));
+        };
+    }
 
-        /** The builder's complaint in file terms, at the key it is about (or the mapping, for a key not written). */
-        InputFileException located(InvalidSettingException e) {
-            String key = KEY_BY_FIELD.getOrDefault(e.field(), e.field());
-            String rule = fileTerms(e.rule());
-            String name = doc.keyName(at(key));
-            if (has(key)) {
-                return doc.error(at(key), name + " " + rule + ": " + name + "=" + doc.sourceText(at(key)));
-            }
-            return doc.error(pointer, name + " " + rule + " (" + key + " is not given)");
+    private static void derivativeFilter(FileMapping file, ControllerSettings.Builder builder) {
+        if (file.has(FILTER_RATIO) && file.has(FILTER_TIME)) {
+            YamlDocument doc = file.doc();
+            FileKey<Double> later = doc.position(FILTER_RATIO.pointer(file.pointer())).line()
+                    > doc.position(FILTER_TIME.pointer(file.pointer())).line() ? FILTER_RATIO : FILTER_TIME;
+            throw file.error(later, "derivative-filter and derivative-filter-time exclude each other;"
+                    + " give derivative-filter (N = Td/Tf) or derivative-filter-time (Tf in seconds)");
         }
+        builder.derivativeFilterRatio(file.get(FILTER_RATIO));
+        file.find(FILTER_TIME).ifPresent(builder::derivativeFilterTimeSeconds);
+    }
 
-        private static String fileTerms(String rule) {
-            Matcher words = FIELD_NAME.matcher(rule);
-            StringBuilder out = new StringBuilder();
-            while (words.find()) {
-                words.appendReplacement(out, Matcher.quoteReplacement(
-                        KEY_BY_FIELD.getOrDefault(words.group(), words.group())));
-            }
-            words.appendTail(out);
-            return out.toString();
+    private static void windup(FileMapping file, ControllerSettings.Builder builder) {
+        WindupProtection windup = file.get(WINDUP_PROTECTION);
+        builder.windupProtection(windup);
+        if (file.has(TRACKING_TIME) && !tracks(windup)) {
+            throw file.error(TRACKING_TIME, file.name(TRACKING_TIME)
+                    + " applies only to windup: back-calculation or actuator-tracking (windup is "
+                    + WINDUP.word(windup) + ")");
         }
+        file.find(TRACKING_TIME).ifPresent(builder::trackingTimeSeconds);
+    }
+
+    private static void faultPolicy(FileMapping file, ControllerSettings.Builder builder) {
+        FaultPolicy policy = file.get(FAULT_POLICY);
+        if (policy == FaultPolicy.SAFE_OUTPUT && !file.has(SAFE_OUTPUT)) {
+            throw file.error(FAULT_POLICY, "missing key 'safe-output' for fault-policy safe-output ("
+                    + NumberRule.FINITE.describeNumber() + ")");
+        }
+        if (policy != FaultPolicy.SAFE_OUTPUT && file.has(SAFE_OUTPUT)) {
+            throw file.error(SAFE_OUTPUT, file.name(SAFE_OUTPUT)
+                    + " applies only to fault-policy: safe-output (fault-policy is " + FAULT_POLICIES.word(policy)
+                    + ")");
+        }
+        builder.faultPolicy(policy, file.find(SAFE_OUTPUT).orElse(0.0));
+    }
+
+    private static boolean tracks(WindupProtection windup) {
+        return windup == WindupProtection.BACK_CALCULATION || windup == WindupProtection.ACTUATOR_TRACKING;
+    }
+
+    private static boolean timeForm(ControllerSettings settings) {
+        return settings.gains().form() != ControllerForm.PARALLEL;
+    }
+
+    /** Kc, Ti, Td of an ideal or series gain set, as written. */
+    private static double[] timeGains(ControllerSettings settings) {
+        PidGains gains = settings.gains();
+        if (gains instanceof SeriesGains s) {
+            return new double[] {s.gain(), s.integralTime(), s.derivativeTime()};
+        }
+        IdealGains i = (IdealGains) gains;
+        return new double[] {i.gain(), i.integralTime(), i.derivativeTime()};
+    }
+
+    /** Whether the filter is written as N (the settings' filter time is Td/N) rather than as Tf. */
+    private static boolean filterFromRatio(ControllerSettings settings) {
+        ParallelGains parallel = settings.parallelGains();
+        return parallel.derivativeGain() == 0.0
+                || settings.derivativeFilterTimeSeconds() == parallel.derivativeGain() / parallel.proportionalGain()
+                        / settings.derivativeFilterRatio();
+    }
+
+    /**
+     * The settings in full, every key that applies with its value as a file writes it, defaults
+     * and derived values included (the tracking time of the rule of thumb, an unlimited output as
+     * {@code .inf}): what a report shows so that nothing is left to a default the reader must know.
+     *
+     * @param settings the settings
+     * @return key word to value text, in file order
+     */
+    public static Map<String, String> resolved(ControllerSettings settings) {
+        Map<String, String> all = new LinkedHashMap<>();
+        for (Written<?> w : WRITTEN) {
+            if (w.applies().test(settings)) {
+                all.put(w.key().word(), w.text(settings));
+            }
+        }
+        return all;
     }
 
     /**
      * Writes settings as a controller file that {@link #read} turns back into the same settings.
-     * Unlimited values (no output limit, no slew limit) and keys that do not apply are left out.
+     * Unlimited values (no output limit, no slew limit, no integral action) are left out.
+     *
+     * @param settings the settings
+     * @return the YAML text
      */
     public static String toYaml(ControllerSettings settings) {
         StringBuilder yaml = new StringBuilder("# Loopwright controller settings\n");
-        PidGains gains = settings.gains();
-        line(yaml, "form", FORMS.word(gains.form()));
-        if (gains instanceof ParallelGains p) {
-            number(yaml, "proportional-gain", p.proportionalGain());
-            number(yaml, "integral-gain", p.integralGain());
-            number(yaml, "derivative-gain", p.derivativeGain());
-        } else if (gains instanceof IdealGains i) {
-            timeGains(yaml, i.gain(), i.integralTime(), i.derivativeTime());
-        } else if (gains instanceof SeriesGains s) {
-            timeGains(yaml, s.gain(), s.integralTime(), s.derivativeTime());
-        }
-        number(yaml, "sample-period", settings.samplePeriodSeconds());
-        number(yaml, "setpoint-weight-proportional", settings.proportionalSetpointWeight());
-        number(yaml, "setpoint-weight-derivative", settings.derivativeSetpointWeight());
-        ParallelGains parallel = settings.parallelGains();
-        boolean filterFromRatio = parallel.derivativeGain() == 0.0
-                || settings.derivativeFilterTimeSeconds() == parallel.derivativeGain() / parallel.proportionalGain()
-                        / settings.derivativeFilterRatio();
-        if (filterFromRatio) {
-            number(yaml, "derivative-filter", settings.derivativeFilterRatio());
-        } else {
-            number(yaml, "derivative-filter-time", settings.derivativeFilterTimeSeconds());
-        }
-        line(yaml, "integral-method", INTEGRAL_METHODS.word(settings.integralMethod()));
-        line(yaml, "derivative-method", DERIVATIVE_METHODS.word(settings.derivativeMethod()));
-        line(yaml, "action", ACTIONS.word(settings.action()));
-        finiteNumber(yaml, "output-min", settings.outputMin());
-        finiteNumber(yaml, "output-max", settings.outputMax());
-        WindupProtection windup = settings.windupProtection();
-        line(yaml, "windup", WINDUP.word(windup));
-        if (windup == WindupProtection.BACK_CALCULATION || windup == WindupProtection.ACTUATOR_TRACKING) {
-            number(yaml, "tracking-time", settings.trackingTimeSeconds());
-        }
-        finiteNumber(yaml, "output-slew", settings.outputSlewPerSecond());
-        finiteNumber(yaml, "setpoint-slew", settings.setpointSlewPerSecond());
-        line(yaml, "fault-policy", FAULT_POLICIES.word(settings.faultPolicy()));
-        if (settings.faultPolicy() == FaultPolicy.SAFE_OUTPUT) {
-            number(yaml, "safe-output", settings.safeOutput());
-        }
-        number(yaml, "error-deadband", settings.errorDeadband());
-        number(yaml, "wrap-span", settings.wrapSpan());
-        line(yaml, "output-kind", OUTPUT_KINDS.word(settings.outputKind()));
+        resolved(settings).forEach((key, value) -> {
+            if (!value.endsWith(".inf")) {
+                yaml.append(key).append(": ").append(value).append('\n');
+            }
+        });
         return yaml.toString();
-    }
-
-    private static void timeGains(StringBuilder yaml, double gain, double integralTime, double derivativeTime) {
-        number(yaml, "gain", gain);
-        finiteNumber(yaml, "integral-time", integralTime);
-        number(yaml, "derivative-time", derivativeTime);
-    }
-
-    private static void finiteNumber(StringBuilder yaml, String key, double value) {
-        if (Double.isFinite(value)) {
-            number(yaml, key, value);
-        }
-    }
-
-    /** Double.toString is the shortest text that reads back to the same double, and YAML reads it as a float. */
-    private static void number(StringBuilder yaml, String key, double value) {
-        line(yaml, key, Double.toString(value));
-    }
-
-    private static void line(StringBuilder yaml, String key, String value) {
-        yaml.append(key).append(": ").append(value).append('\n');
     }
 }

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.function.Function;
 
 /**
  * The words a file may use for one setting, each standing for a value, in the order they are
@@ -39,6 +40,26 @@ public final class Keywords<T> {
             Objects.requireNonNull(entry.getValue(), entry.getKey());
             if (table.containsValue(entry.getValue()) || table.put(entry.getKey(), entry.getValue()) != null) {
                 throw new IllegalArgumentException("listed twice: " + entry);
+            }
+        }
+        return new Keywords<>(table);
+    }
+
+    /**
+     * The table of values that carry their own word (an enum whose constants know their file word),
+     * in the order given.
+     *
+     * @param values the values
+     * @param word   the word of a value
+     * @param <T>    the type of value
+     * @return the table
+     * @throws IllegalArgumentException when a word is listed twice
+     */
+    public static <T> Keywords<T> byWord(T[] values, Function<T, String> word) {
+        Map<String, T> table = new LinkedHashMap<>();
+        for (T value : values) {
+            if (table.put(word.apply(value), value) != null) {
+                throw new IllegalArgumentException("listed twice: " + word.apply(value));
             }
         }
         return new Keywords<>(table);

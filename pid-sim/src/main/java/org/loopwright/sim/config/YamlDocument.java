@@ -231,9 +231,16 @@ public final class YamlDocument {
         return positions.get(at);
     }
 
-    /** The value as written in the file for a scalar ("2.50", "tustin"), "(empty)" for a key with no value. */
+    /** The value as written in the file: a scalar ("2.50", "tustin"), a list ("[1, 2.5]"); "(empty)" for a key with no value. */
     public String sourceText(String pointer) {
         JsonNode value = node(pointer);
+        if (value.isArray()) {
+            List<String> items = new ArrayList<>();
+            for (int i = 0; i < value.size(); i++) {
+                items.add(sourceText(child(pointer, i)));
+            }
+            return "[" + String.join(", ", items) + "]";
+        }
         String text = value.isNull() ? "" : sourceText.getOrDefault(pointer, value.toString());
         return text.isBlank() ? "(empty)" : text;
     }
@@ -271,6 +278,18 @@ public final class YamlDocument {
      *                            when the node is not a mapping
      */
     public void requireKeys(String pointer, Collection<String> allowedKeys) {
+        requireKeys(pointer, allowedKeys, "");
+    }
+
+    /**
+     * Requires a mapping at the pointer whose keys are all allowed, naming the mapping's kind in the
+     * message: "unknown key 'foo' for plant type tank; allowed: a, b, c".
+     *
+     * @param context how the message names the mapping ("for plant type tank"), or empty for
+     *                "in &lt;key&gt;"
+     * @throws InputFileException at the first unknown key, or when the node is not a mapping
+     */
+    public void requireKeys(String pointer, Collection<String> allowedKeys, String context) {
         JsonNode object = node(pointer);
         if (!object.isObject()) {
             throw error(pointer, keyName(pointer) + " must be a mapping of keys to values: "
@@ -280,7 +299,7 @@ public final class YamlDocument {
         while (keys.hasNext()) {
             String key = keys.next();
             if (!allowedKeys.contains(key)) {
-                String where = pointer.isEmpty() ? "" : " in " + keyName(pointer);
+                String where = !context.isEmpty() ? " " + context : pointer.isEmpty() ? "" : " in " + keyName(pointer);
                 throw error(child(pointer, key), "unknown key '" + key + "'" + where + "; allowed: "
                         + String.join(", ", allowedKeys));
             }
@@ -368,6 +387,29 @@ public final class YamlDocument {
             items.add(child(pointer, i));
         }
         return items;
+    }
+
+    /**
+     * A whole number from a range (a seed, a count of samples).
+     *
+     * @throws InputFileException when the value is not a whole number in the range
+     */
+    public long wholeNumber(String pointer, long least, long most) {
+        JsonNode value = node(pointer);
+        String key = keyName(pointer);
+        if (!value.isIntegralNumber() || !value.canConvertToLong() || value.longValue() < least
+                || value.longValue() > most) {
+            throw error(pointer, key + " must be " + describeWhole(least, most) + ": " + key + "="
+                    + sourceText(pointer));
+        }
+        return value.longValue();
+    }
+
+    /** "a whole number", with its bounds where they are narrower than a long's: "a whole number &gt;= 0". */
+    static String describeWhole(long least, long most) {
+        String lower = least == Long.MIN_VALUE ? "" : " >= " + least;
+        String upper = most == Long.MAX_VALUE ? "" : (lower.isEmpty() ? " <= " : " and <= ") + most;
+        return "a whole number" + lower + upper;
     }
 
     /**

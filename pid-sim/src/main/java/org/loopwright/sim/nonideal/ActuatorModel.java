@@ -1,5 +1,8 @@
 package org.loopwright.sim.nonideal;
 
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
+
 /**
  * What the actuator does to the controller's output before the plant sees it, in this order: a dead
  * zone (commands within ±deadZone give 0; outside it the command is shifted toward 0 by deadZone,
@@ -19,24 +22,19 @@ public record ActuatorModel(double min, double max, double slewPerSecond, double
     public static final ActuatorModel IDEAL = new ActuatorModel(Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
             Double.POSITIVE_INFINITY, 0.0);
 
-    /** Validates every value; errors name the scenario file's keys under {@code actuator}. */
+    /** Validates every value; errors name the fields. */
     public ActuatorModel {
         if (Double.isNaN(min) || min == Double.POSITIVE_INFINITY) {
-            throw new IllegalArgumentException("min must be a number below +infinity: min=" + min);
+            throw new InvalidSettingException("min", min, "must be a number below +infinity");
         }
         if (Double.isNaN(max) || max == Double.NEGATIVE_INFINITY) {
-            throw new IllegalArgumentException("max must be a number above -infinity: max=" + max);
+            throw new InvalidSettingException("max", max, "must be a number above -infinity");
         }
         if (min > max) {
-            throw new IllegalArgumentException("min must be <= max (max=" + max + "): min=" + min);
+            throw new InvalidSettingException("min", min, "must be <= max (max=" + max + ")");
         }
-        if (Double.isNaN(slewPerSecond) || slewPerSecond <= 0.0) {
-            throw new IllegalArgumentException("slew-per-second must be > 0 (infinity for no limit): slew-per-second="
-                    + slewPerSecond);
-        }
-        if (!Double.isFinite(deadZone) || deadZone < 0.0) {
-            throw new IllegalArgumentException("dead-zone must be finite and >= 0: dead-zone=" + deadZone);
-        }
+        SettingChecks.positiveOrInfinite("slewPerSecond", slewPerSecond, "no limit");
+        SettingChecks.nonNegative("deadZone", deadZone);
     }
 
     /** This actuator with another range. */

@@ -1,5 +1,8 @@
 package org.loopwright.sim.nonideal;
 
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
+
 /**
  * What stands between the process and the controller's measurement, applied in this order: a delay
  * of whole samples, additive Gaussian noise (seeded), quantisation to a step, and dropouts (a sample
@@ -28,23 +31,14 @@ public record SensorModel(double noiseStdDev, double quantisationStep, int delay
     /** A sensor that reads the process exactly, on time. */
     public static final SensorModel IDEAL = new SensorModel(0.0, 0.0, 0, 0.0, 0.0);
 
-    /** Validates every value; errors name the scenario file's keys under {@code sensor}. */
+    /** Validates every value; errors name the fields. */
     public SensorModel {
-        nonNegative("noise-std-dev", noiseStdDev);
-        nonNegative("quantisation-step", quantisationStep);
-        if (delaySamples < 0) {
-            throw new IllegalArgumentException("delay-samples must be >= 0: delay-samples=" + delaySamples);
-        }
-        nonNegative("jitter", jitterSeconds);
+        SettingChecks.nonNegative("noiseStdDev", noiseStdDev);
+        SettingChecks.nonNegative("quantisationStep", quantisationStep);
+        SettingChecks.atLeast("delaySamples", delaySamples, 0);
+        SettingChecks.nonNegative("jitterSeconds", jitterSeconds);
         if (!(dropoutProbability >= 0.0 && dropoutProbability < 1.0)) {
-            throw new IllegalArgumentException("dropout-probability must be >= 0 and < 1: dropout-probability="
-                    + dropoutProbability);
-        }
-    }
-
-    private static void nonNegative(String key, double value) {
-        if (!Double.isFinite(value) || value < 0.0) {
-            throw new IllegalArgumentException(key + " must be finite and >= 0: " + key + "=" + value);
+            throw new InvalidSettingException("dropoutProbability", dropoutProbability, "must be >= 0 and < 1");
         }
     }
 }

@@ -2,6 +2,9 @@ package org.loopwright.sim.plant;
 
 import java.util.Optional;
 
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
+
 /**
  * A permanent-magnet DC motor driven by its armature voltage (a gimbal axis, a pump), with friction
  * that truly sticks and slips:
@@ -33,25 +36,25 @@ public record DcMotorModel(double resistanceOhms, double inductanceHenries, doub
         double backEmfConstant, double inertia, double viscousFriction, double loadTorque, double coulombFriction,
         double staticFriction, MotorOutput output, double integrationStepSeconds) implements PlantModel {
 
-    /** Validates every value; errors name the scenario file's keys. */
+    /** Validates every value; errors name the fields. */
     public DcMotorModel {
-        Checks.positive("resistance", resistanceOhms);
-        Checks.positive("inductance", inductanceHenries);
-        Checks.positive("torque-constant", torqueConstant);
-        Checks.nonNegative("back-emf-constant", backEmfConstant);
-        Checks.positive("inertia", inertia);
-        Checks.nonNegative("viscous-friction", viscousFriction);
-        Checks.finite("load-torque", loadTorque);
-        Checks.nonNegative("coulomb-friction", coulombFriction);
-        Checks.nonNegative("static-friction", staticFriction);
+        SettingChecks.positive("resistanceOhms", resistanceOhms);
+        SettingChecks.positive("inductanceHenries", inductanceHenries);
+        SettingChecks.positive("torqueConstant", torqueConstant);
+        SettingChecks.nonNegative("backEmfConstant", backEmfConstant);
+        SettingChecks.positive("inertia", inertia);
+        SettingChecks.nonNegative("viscousFriction", viscousFriction);
+        SettingChecks.finite("loadTorque", loadTorque);
+        SettingChecks.nonNegative("coulombFriction", coulombFriction);
+        SettingChecks.nonNegative("staticFriction", staticFriction);
         if (staticFriction < coulombFriction) {
-            throw new IllegalArgumentException("static-friction must be >= coulomb-friction (coulomb-friction="
-                    + coulombFriction + "): static-friction=" + staticFriction);
+            throw new InvalidSettingException("staticFriction", staticFriction,
+                    "must be >= coulombFriction (coulombFriction=" + coulombFriction + ")");
         }
         if (output == null) {
-            throw new IllegalArgumentException("output must be speed or position: output=null");
+            throw new InvalidSettingException("output", null, "must be speed or position");
         }
-        Checks.positive("integration-step", integrationStepSeconds);
+        SettingChecks.positive("integrationStepSeconds", integrationStepSeconds);
     }
 
     @Override
@@ -60,6 +63,11 @@ public record DcMotorModel(double resistanceOhms, double inductanceHenries, doub
     }
 
     /** Without friction or load, the linear model: Kt/((Js+b)(Ls+R) + Kt·Ke), times 1/s for position. */
+    @Override
+    public PlantType type() {
+        return PlantType.DC_MOTOR;
+    }
+
     @Override
     public Optional<TransferFunction> linear() {
         if (coulombFriction > 0.0 || staticFriction > 0.0 || loadTorque != 0.0) {

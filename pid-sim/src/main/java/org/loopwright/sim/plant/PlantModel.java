@@ -13,4 +13,7 @@ public sealed interface PlantModel permits TransferFunction, DcMotorModel, Therm
 
     /** The model as a transfer function with dead time, when it is linear; empty for nonlinear plants. */
     Optional<TransferFunction> linear();
+
+    /** @return the kind of model, as a scenario file names it (any transfer function is {@link PlantType#TRANSFER_FUNCTION}) */
+    PlantType type();
 }

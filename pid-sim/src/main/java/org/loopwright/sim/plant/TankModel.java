@@ -2,6 +2,8 @@ package org.loopwright.sim.plant;
 
 import java.util.Optional;
 
+import org.loopwright.pid.SettingChecks;
+
 /**
  * A tank draining through an outlet by gravity (Torricelli): A·dh/dt = q_in − k·√h, with the inflow
  * clipped at 0 (a pump cannot suck back) and the level never below 0.
@@ -17,17 +19,22 @@ import java.util.Optional;
 public record TankModel(double areaSquareMetres, double outletCoefficient, double initialLevelMetres,
         double integrationStepSeconds) implements PlantModel {
 
-    /** Validates every value; errors name the scenario file's keys. */
+    /** Validates every value; errors name the fields. */
     public TankModel {
-        Checks.positive("area", areaSquareMetres);
-        Checks.positive("outlet-coefficient", outletCoefficient);
-        Checks.nonNegative("initial-level", initialLevelMetres);
-        Checks.positive("integration-step", integrationStepSeconds);
+        SettingChecks.positive("areaSquareMetres", areaSquareMetres);
+        SettingChecks.positive("outletCoefficient", outletCoefficient);
+        SettingChecks.nonNegative("initialLevelMetres", initialLevelMetres);
+        SettingChecks.positive("integrationStepSeconds", integrationStepSeconds);
     }
 
     @Override
     public Plant newPlant() {
         return new Tank(this);
+    }
+
+    @Override
+    public PlantType type() {
+        return PlantType.TANK;
     }
 
     @Override

@@ -2,6 +2,8 @@ package org.loopwright.sim.plant;
 
 import java.util.Optional;
 
+import org.loopwright.pid.SettingChecks;
+
 /**
  * A heated zone (a water bath, an oven) as one lumped heat capacity losing heat to the ambient:
  * C·dT/dt = P − G·(T − T_ambient), with heater power P = clamp(u, 0, maxPower): a heater cannot cool.
@@ -19,18 +21,23 @@ import java.util.Optional;
 public record ThermalZoneModel(double heatCapacityJoulesPerKelvin, double lossWattsPerKelvin, double ambientCelsius,
         double maxPowerWatts, double integrationStepSeconds) implements PlantModel {
 
-    /** Validates every value; errors name the scenario file's keys. */
+    /** Validates every value; errors name the fields. */
     public ThermalZoneModel {
-        Checks.positive("heat-capacity", heatCapacityJoulesPerKelvin);
-        Checks.nonNegative("loss-coefficient", lossWattsPerKelvin);
-        Checks.finite("ambient", ambientCelsius);
-        Checks.positiveOrInfinite("max-power", maxPowerWatts);
-        Checks.positive("integration-step", integrationStepSeconds);
+        SettingChecks.positive("heatCapacityJoulesPerKelvin", heatCapacityJoulesPerKelvin);
+        SettingChecks.nonNegative("lossWattsPerKelvin", lossWattsPerKelvin);
+        SettingChecks.finite("ambientCelsius", ambientCelsius);
+        SettingChecks.positiveOrInfinite("maxPowerWatts", maxPowerWatts, "no limit");
+        SettingChecks.positive("integrationStepSeconds", integrationStepSeconds);
     }
 
     @Override
     public Plant newPlant() {
         return new ThermalZone(this);
+    }
+
+    @Override
+    public PlantType type() {
+        return PlantType.THERMAL_ZONE;
     }
 
     @Override

@@ -3,14 +3,17 @@ package org.loopwright.sim.plant;
 import java.util.Arrays;
 import java.util.Optional;
 
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
+
 /**
  * A rational transfer function with a dead time, G(s) = N(s)/D(s)·e^(−sL), coefficients in
  * descending powers of s. Proper (deg N &le; deg D), with a non-zero leading denominator coefficient.
  *
  * <p>Example: 1/(s+1)³ is {@code new TransferFunction(new double[] {1}, new double[] {1, 3, 3, 1}, 0)};
  * the factories build the common process models, for example {@code TransferFunction.fopdt(2.0, 30.0, 5.0)}
- * for 2·e^(−5s)/(30s+1). Errors name the scenario file's key: {@code "time-constant must be finite and > 0:
- * time-constant=-1.0"}.
+ * for 2·e^(−5s)/(30s+1). Errors name the field: {@code "timeConstantSeconds must be finite and > 0:
+ * timeConstantSeconds=-1.0"}.
  *
  * @param numerator        N(s), descending powers of s
  * @param denominator      D(s), descending powers of s
@@ -24,16 +27,15 @@ public record TransferFunction(double[] numerator, double[] denominator, double 
         numerator = finiteCopy("numerator", numerator);
         denominator = finiteCopy("denominator", denominator);
         if (denominator[0] == 0.0) {
-            throw new IllegalArgumentException("denominator leading coefficient must be non-zero: denominator="
-                    + Arrays.toString(denominator));
+            throw new InvalidSettingException("denominator", Arrays.toString(denominator),
+                    "must have a non-zero leading coefficient");
         }
         if (numerator.length > denominator.length) {
-            throw new IllegalArgumentException("numerator degree must not exceed the denominator's: numerator="
-                    + Arrays.toString(numerator) + ", denominator=" + Arrays.toString(denominator));
+            throw new InvalidSettingException("numerator", Arrays.toString(numerator),
+                    "must not have more coefficients than denominator (denominator=" + Arrays.toString(denominator)
+                            + ")");
         }
-        if (!Double.isFinite(deadTimeSeconds) || deadTimeSeconds < 0.0) {
-            throw new IllegalArgumentException("dead-time must be finite and >= 0: dead-time=" + deadTimeSeconds);
-        }
+        SettingChecks.nonNegative("deadTimeSeconds", deadTimeSeconds);
     }
 
     /** K/(Ts+1). */
@@ -43,31 +45,31 @@ public record TransferFunction(double[] numerator, double[] denominator, double 
 
     /** K·e^(−Ls)/(Ts+1): first order plus dead time. */
     public static TransferFunction fopdt(double gain, double timeConstantSeconds, double deadTimeSeconds) {
-        return new TransferFunction(new double[] {Checks.finite("gain", gain)},
-                new double[] {Checks.positive("time-constant", timeConstantSeconds), 1.0}, deadTimeSeconds);
+        return new TransferFunction(new double[] {SettingChecks.finite("gain", gain)},
+                new double[] {SettingChecks.positive("timeConstantSeconds", timeConstantSeconds), 1.0}, deadTimeSeconds);
     }
 
     /** K·e^(−Ls)/((T1·s+1)(T2·s+1)): second order plus dead time from two time constants. */
     public static TransferFunction sopdt(double gain, double firstTimeConstantSeconds,
             double secondTimeConstantSeconds, double deadTimeSeconds) {
-        double t1 = Checks.positive("time-constants", firstTimeConstantSeconds);
-        double t2 = Checks.positive("time-constants", secondTimeConstantSeconds);
-        return new TransferFunction(new double[] {Checks.finite("gain", gain)}, new double[] {t1 * t2, t1 + t2, 1.0},
+        double t1 = SettingChecks.positive("timeConstantsSeconds", firstTimeConstantSeconds);
+        double t2 = SettingChecks.positive("timeConstantsSeconds", secondTimeConstantSeconds);
+        return new TransferFunction(new double[] {SettingChecks.finite("gain", gain)}, new double[] {t1 * t2, t1 + t2, 1.0},
                 deadTimeSeconds);
     }
 
     /** K·ωn²·e^(−Ls)/(s² + 2ζωn·s + ωn²): second order plus dead time from natural frequency and damping. */
     public static TransferFunction sopdtOscillatory(double gain, double naturalFrequencyRadPerSecond,
             double damping, double deadTimeSeconds) {
-        double wn = Checks.positive("natural-frequency", naturalFrequencyRadPerSecond);
-        double zeta = Checks.positive("damping", damping);
-        return new TransferFunction(new double[] {Checks.finite("gain", gain) * wn * wn},
+        double wn = SettingChecks.positive("naturalFrequencyRadPerSecond", naturalFrequencyRadPerSecond);
+        double zeta = SettingChecks.positive("damping", damping);
+        return new TransferFunction(new double[] {SettingChecks.finite("gain", gain) * wn * wn},
                 new double[] {1.0, 2.0 * zeta * wn, wn * wn}, deadTimeSeconds);
     }
 
     /** K·e^(−Ls)/s: integrating plus dead time (a level, a position). */
     public static TransferFunction integrating(double gain, double deadTimeSeconds) {
-        return new TransferFunction(new double[] {Checks.finite("gain", gain)}, new double[] {1.0, 0.0}, deadTimeSeconds);
+        return new TransferFunction(new double[] {SettingChecks.finite("gain", gain)}, new double[] {1.0, 0.0}, deadTimeSeconds);
     }
 
     /** The same rational part with another dead time. */
@@ -86,18 +88,22 @@ public record TransferFunction(double[] numerator, double[] denominator, double 
     }
 
     @Override
+    public PlantType type() {
+        return PlantType.TRANSFER_FUNCTION;
+    }
+
+    @Override
     public Optional<TransferFunction> linear() {
         return Optional.of(this);
     }
 
     private static double[] finiteCopy(String field, double[] values) {
         if (values == null || values.length == 0) {
-            throw new IllegalArgumentException(field + " must have at least one coefficient: " + field + "=[]");
+            throw new InvalidSettingException(field, "[]", "must have at least one coefficient");
         }
         for (double v : values) {
             if (!Double.isFinite(v)) {
-                throw new IllegalArgumentException(field + " coefficients must be finite: " + field + "="
-                        + Arrays.toString(values));
+                throw new InvalidSettingException(field, Arrays.toString(values), "must have finite coefficients");
             }
         }
         return values.clone();

@@ -1,5 +1,7 @@
 package org.loopwright.sim.scenario;
 
+import org.loopwright.pid.SettingChecks;
+
 /**
  * A load disturbance: from {@code atSeconds} on, {@code value} is added to the plant's input
  * (replacing the level of any earlier load step; 0 before the first). It takes effect at its own
@@ -12,7 +14,7 @@ public record LoadStep(double atSeconds, double value) {
 
     /** Validates every value; errors name the scenario file's keys. */
     public LoadStep {
-        Validation.nonNegative("at", atSeconds);
-        Validation.finite("value", value);
+        SettingChecks.nonNegative("atSeconds", atSeconds);
+        SettingChecks.finite("value", value);
     }
 }

@@ -7,6 +7,8 @@ import java.util.Objects;
 import java.util.Optional;
 
 import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.SettingChecks;
 import org.loopwright.pid.onoff.OnOffSettings;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.nonideal.ActuatorModel;
@@ -54,19 +56,19 @@ public final class Scenario {
         controller = b.controller;
         onOffController = b.onOffController;
         samplePeriodSeconds = controller != null ? controller.samplePeriodSeconds()
-                : Validation.positive("sample-period", b.samplePeriodSeconds);
+                : SettingChecks.positive("samplePeriodSeconds", b.samplePeriodSeconds);
         setpoint = sorted(b.setpoint, Comparator.comparingDouble(SetpointChange::atSeconds));
         disturbances = sorted(b.disturbances, Comparator.comparingDouble(LoadStep::atSeconds));
         actuator = Objects.requireNonNull(b.actuator, "actuator");
         sensor = Objects.requireNonNull(b.sensor, "sensor");
-        durationSeconds = Validation.positive("duration", b.durationSeconds);
+        durationSeconds = SettingChecks.positive("durationSeconds", b.durationSeconds);
         if (sensor.jitterSeconds() >= samplePeriodSeconds) {
-            throw new IllegalArgumentException("jitter must be < the sample period (" + samplePeriodSeconds
-                    + "): jitter=" + sensor.jitterSeconds());
+            throw new InvalidSettingException("jitterSeconds", sensor.jitterSeconds(),
+                    "must be < the sample period (" + samplePeriodSeconds + ")");
         }
         if (sampleCount() > MAX_SAMPLES) {
-            throw new IllegalArgumentException("duration must give at most " + MAX_SAMPLES
-                    + " samples at the sample period " + samplePeriodSeconds + ": duration=" + durationSeconds);
+            throw new InvalidSettingException("durationSeconds", durationSeconds, "must give at most "
+                    + MAX_SAMPLES + " samples at the sample period " + samplePeriodSeconds);
         }
         seed = b.seed;
     }

@@ -1,34 +1,27 @@
 package org.loopwright.sim.scenario;
 
-import static java.util.Map.entry;
-
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Iterator;
+import java.util.ArrayList;
 import java.util.List;
-import java.util.function.Supplier;
-
-import com.fasterxml.jackson.databind.JsonNode;
 
 import org.loopwright.pid.Action;
+import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.onoff.OnOffSettings;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.FileKey;
+import org.loopwright.sim.config.FileMapping;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.config.NumberRule;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.nonideal.ActuatorModel;
 import org.loopwright.sim.nonideal.SensorModel;
-import org.loopwright.sim.plant.DcMotorModel;
-import org.loopwright.sim.plant.MotorOutput;
-import org.loopwright.sim.plant.PlantModel;
-import org.loopwright.sim.plant.TankModel;
-import org.loopwright.sim.plant.ThermalZoneModel;
-import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.plant.PlantType;
 
 /**
  * The scenario file: a YAML mapping read into a {@link Scenario}, with every error located at a
@@ -71,26 +64,76 @@ import org.loopwright.sim.plant.TransferFunction;
  */
 public final class ScenarioFile {
 
-    /** The words of {@code plant.type}. */
-    public static final Keywords<String> PLANT_TYPES = Keywords.of(entry("first-order", "first-order"),
-            entry("fopdt", "fopdt"), entry("sopdt", "sopdt"), entry("integrating", "integrating"),
-            entry("transfer-function", "transfer-function"), entry("dc-motor", "dc-motor"),
-            entry("thermal-zone", "thermal-zone"), entry("tank", "tank"));
-    /** The words of {@code plant.output} for a dc-motor. */
-    public static final Keywords<MotorOutput> MOTOR_OUTPUTS = Keywords.of(entry("speed", MotorOutput.SPEED),
-            entry("position", MotorOutput.POSITION));
     /** The words of {@code on-off.action}. */
     public static final Keywords<Action> ACTIONS = ControllerFile.ACTIONS;
 
-    /** Every top-level key, in the order messages list them. */
-    public static final List<String> KEYS = List.of("controller", "on-off", "plant", "setpoint", "disturbances",
-            "actuator", "sensor", "duration", "seed");
+    /** {@code controller}: a controller file's path or its keys inline. */
+    public static final FileKey<String> CONTROLLER = FileKey.section("controller", "controller",
+            "a controller mapping or a controller file's path").optional();
+    /** {@code on-off}: an on-off controller instead of a PID one. */
+    public static final FileKey<String> ON_OFF = FileKey.section("on-off", "onOffController",
+            "an on-off controller mapping").optional();
+    /** {@code plant}: the plant mapping, read by {@link PlantType}. */
+    public static final FileKey<String> PLANT = FileKey.section("plant", "plant",
+            "a plant mapping with a type: " + PlantType.WORDS.describe());
+    /** {@code setpoint}: a list of setpoint changes. */
+    public static final FileKey<String> SETPOINT = FileKey.section("setpoint", "setpoint", "a list").optional();
+    /** {@code disturbances}: a list of load steps. */
+    public static final FileKey<String> DISTURBANCES = FileKey.section("disturbances", "disturbances", "a list")
+            .optional();
+    /** {@code actuator}: the actuator mapping. */
+    public static final FileKey<String> ACTUATOR = FileKey.section("actuator", "actuator", "a mapping").optional();
+    /** {@code sensor}: the sensor mapping. */
+    public static final FileKey<String> SENSOR = FileKey.section("sensor", "sensor", "a mapping").optional();
+    /** {@code duration}: seconds simulated. */
+    public static final FileKey<Double> DURATION = FileKey.number("duration", "durationSeconds", NumberRule.POSITIVE);
+    /** {@code seed}: of every random stream. */
+    public static final FileKey<Long> SEED = FileKey.whole("seed", "seed", Long.MIN_VALUE, Long.MAX_VALUE)
+            .orElse(1L);
 
-    private static final List<String> ON_OFF_KEYS = List.of("off-output", "on-output", "hysteresis", "minimum-on",
-            "minimum-off", "action", "sample-period");
-    private static final List<String> ACTUATOR_KEYS = List.of("min", "max", "slew-per-second", "dead-zone");
-    private static final List<String> SENSOR_KEYS = List.of("noise-std-dev", "quantisation-step", "delay-samples",
-            "jitter", "dropout-probability");
+    /** Every top-level key, in the order messages list them. */
+    public static final List<FileKey<?>> KEYS = List.of(CONTROLLER, ON_OFF, PLANT, SETPOINT, DISTURBANCES, ACTUATOR,
+            SENSOR, DURATION, SEED);
+
+    private static final FileKey<Double> AT = FileKey.number("at", "atSeconds", NumberRule.NON_NEGATIVE);
+    private static final FileKey<Double> VALUE = FileKey.number("value", "value", NumberRule.FINITE);
+    private static final FileKey<Double> RAMP = FileKey.number("ramp-seconds", "rampSeconds", NumberRule.NON_NEGATIVE)
+            .orElse(0.0);
+
+    private static final FileKey<Double> OFF_OUTPUT = FileKey.number("off-output", "offOutput", NumberRule.FINITE);
+    private static final FileKey<Double> ON_OUTPUT = FileKey.number("on-output", "onOutput", NumberRule.FINITE);
+    private static final FileKey<Double> HYSTERESIS = FileKey.number("hysteresis", "hysteresis",
+            NumberRule.NON_NEGATIVE);
+    private static final FileKey<Double> MINIMUM_ON = FileKey.number("minimum-on", "minimumOnSeconds",
+            NumberRule.NON_NEGATIVE).orElse(0.0);
+    private static final FileKey<Double> MINIMUM_OFF = FileKey.number("minimum-off", "minimumOffSeconds",
+            NumberRule.NON_NEGATIVE).orElse(0.0);
+    private static final FileKey<Action> ON_OFF_ACTION = FileKey.choice("action", "action", ACTIONS)
+            .orElse(Action.REVERSE);
+    private static final FileKey<Double> ON_OFF_PERIOD = FileKey.number("sample-period", "samplePeriodSeconds",
+            NumberRule.POSITIVE);
+    private static final List<FileKey<?>> ON_OFF_KEYS = List.of(OFF_OUTPUT, ON_OUTPUT, HYSTERESIS, MINIMUM_ON,
+            MINIMUM_OFF, ON_OFF_ACTION, ON_OFF_PERIOD);
+
+    private static final FileKey<Double> MIN = FileKey.number("min", "min", NumberRule.ANY)
+            .orElse(Double.NEGATIVE_INFINITY);
+    private static final FileKey<Double> MAX = FileKey.number("max", "max", NumberRule.ANY)
+            .orElse(Double.POSITIVE_INFINITY);
+    private static final FileKey<Double> SLEW = FileKey.number("slew-per-second", "slewPerSecond", NumberRule.ANY)
+            .orElse(Double.POSITIVE_INFINITY);
+    private static final FileKey<Double> DEAD_ZONE = FileKey.number("dead-zone", "deadZone", NumberRule.NON_NEGATIVE)
+            .orElse(0.0);
+
+    private static final FileKey<Double> NOISE = FileKey.number("noise-std-dev", "noiseStdDev",
+            NumberRule.NON_NEGATIVE).orElse(0.0);
+    private static final FileKey<Double> QUANTISATION = FileKey.number("quantisation-step", "quantisationStep",
+            NumberRule.NON_NEGATIVE).orElse(0.0);
+    private static final FileKey<Long> DELAY = FileKey.whole("delay-samples", "delaySamples", 0, Integer.MAX_VALUE)
+            .orElse(0L);
+    private static final FileKey<Double> JITTER = FileKey.number("jitter", "jitterSeconds", NumberRule.NON_NEGATIVE)
+            .orElse(0.0);
+    private static final FileKey<Double> DROPOUT = FileKey.number("dropout-probability", "dropoutProbability",
+            NumberRule.FRACTION).orElse(0.0);
 
     private static final String WATER_BATH = "water-bath.yaml";
 
@@ -145,249 +188,75 @@ public final class ScenarioFile {
         }
 
         Scenario scenario() {
-            doc.requireKeys("", KEYS);
+            FileMapping top = new FileMapping(doc, "", KEYS, "");
             Scenario.Builder b = Scenario.builder();
-            controller(b);
-            b.plant(plant("/plant"));
-            if (doc.has("/setpoint")) {
-                for (String item : doc.items("/setpoint")) {
-                    doc.requireKeys(item, List.of("at", "value", "ramp-seconds"));
-                    b.setpoint(new SetpointChange(doc.requiredNumber(item + "/at", NumberRule.NON_NEGATIVE),
-                            doc.requiredNumber(item + "/value", NumberRule.FINITE),
-                            doc.optionalNumber(item + "/ramp-seconds", NumberRule.NON_NEGATIVE, 0.0)));
+            List<FileMapping> parts = new ArrayList<>(List.of(top));
+            controller(top, b, parts);
+            b.plant(PlantType.read(doc, top.get(PLANT)));
+            top.find(SETPOINT).ifPresent(list -> {
+                for (String item : doc.items(list)) {
+                    FileMapping change = new FileMapping(doc, item, List.of(AT, VALUE, RAMP), "");
+                    b.setpoint(change.build(() -> new SetpointChange(change.get(AT), change.get(VALUE),
+                            change.get(RAMP))));
                 }
-            }
-            if (doc.has("/disturbances")) {
-                for (String item : doc.items("/disturbances")) {
-                    doc.requireKeys(item, List.of("at", "value"));
-                    b.disturbance(new LoadStep(doc.requiredNumber(item + "/at", NumberRule.NON_NEGATIVE),
-                            doc.requiredNumber(item + "/value", NumberRule.FINITE)));
+            });
+            top.find(DISTURBANCES).ifPresent(list -> {
+                for (String item : doc.items(list)) {
+                    FileMapping load = new FileMapping(doc, item, List.of(AT, VALUE), "");
+                    b.disturbance(load.build(() -> new LoadStep(load.get(AT), load.get(VALUE))));
                 }
-            }
-            if (doc.has("/actuator")) {
-                b.actuator(actuator("/actuator"));
-            }
-            if (doc.has("/sensor")) {
-                b.sensor(sensor("/sensor"));
-            }
-            b.durationSeconds(doc.requiredNumber("/duration", NumberRule.POSITIVE));
-            if (doc.has("/seed")) {
-                b.seed(whole("/seed", false));
-            }
+            });
+            top.find(ACTUATOR).ifPresent(p -> {
+                FileMapping actuator = new FileMapping(doc, p, List.of(MIN, MAX, SLEW, DEAD_ZONE), "");
+                b.actuator(actuator.build(() -> new ActuatorModel(actuator.get(MIN), actuator.get(MAX),
+                        actuator.get(SLEW), actuator.get(DEAD_ZONE))));
+            });
+            top.find(SENSOR).ifPresent(p -> {
+                FileMapping sensor = new FileMapping(doc, p, List.of(NOISE, QUANTISATION, DELAY, JITTER, DROPOUT), "");
+                parts.add(sensor);
+                b.sensor(sensor.build(() -> new SensorModel(sensor.get(NOISE), sensor.get(QUANTISATION),
+                        sensor.get(DELAY).intValue(), sensor.get(JITTER), sensor.get(DROPOUT))));
+            });
+            b.durationSeconds(top.get(DURATION));
+            b.seed(top.get(SEED));
             try {
                 return b.build();
-            } catch (IllegalArgumentException e) {
-                // checks across parts: duration against the sample period, jitter against it
-                String key = e.getMessage().substring(0, e.getMessage().indexOf(' '));
-                String at = doc.has("/sensor/" + key) ? "/sensor/" + key : doc.has("/" + key) ? "/" + key : "";
-                throw doc.error(at, e.getMessage());
+            } catch (InvalidSettingException e) {
+                // checks across parts (duration and jitter against the sample period): at the key of the part
+                FileMapping part = parts.stream().filter(m -> m.declares(e.field())).findFirst().orElse(top);
+                throw part.located(e);
             }
         }
 
-        private void controller(Scenario.Builder b) {
-            boolean pid = doc.has("/controller");
-            boolean onOff = doc.has("/on-off");
+        private void controller(FileMapping top, Scenario.Builder b, List<FileMapping> parts) {
+            boolean pid = top.has(CONTROLLER);
+            boolean onOff = top.has(ON_OFF);
             if (pid && onOff) {
-                throw doc.error("/on-off", "controller and on-off exclude each other; give one controller");
+                throw top.error(ON_OFF, "controller and on-off exclude each other; give one controller");
             }
             if (!pid && !onOff) {
-                throw doc.error("", "missing key 'controller' (a controller mapping or a controller file's path)"
-                        + " or 'on-off' (an on-off controller mapping)");
+                throw doc.error("", "missing key 'controller' (" + CONTROLLER.allowed() + ") or 'on-off' ("
+                        + ON_OFF.allowed() + ")");
             }
             if (onOff) {
-                onOff(b);
+                FileMapping settings = new FileMapping(doc, top.get(ON_OFF), ON_OFF_KEYS, "");
+                parts.add(settings);
+                b.onOffController(settings.build(() -> new OnOffSettings(settings.get(OFF_OUTPUT),
+                        settings.get(ON_OUTPUT), settings.get(HYSTERESIS), settings.get(MINIMUM_ON),
+                        settings.get(MINIMUM_OFF), settings.get(ON_OFF_ACTION))), settings.get(ON_OFF_PERIOD));
                 return;
             }
-            if (doc.node("/controller").isTextual()) {
-                String written = doc.requiredText("/controller");
+            String pointer = top.get(CONTROLLER);
+            if (doc.node(pointer).isTextual()) {
+                String written = doc.requiredText(pointer);
                 Path file = directory.resolve(written);
                 if (!Files.isRegularFile(file)) {
-                    throw doc.error("/controller", "controller file not found: controller=" + written
+                    throw doc.error(pointer, "controller file not found: controller=" + written
                             + " (looked for " + file + ")");
                 }
                 b.controller(ControllerFile.read(file));
             } else {
-                b.controller(ControllerFile.read(doc, "/controller"));
-            }
-        }
-
-        private void onOff(Scenario.Builder b) {
-            String p = "/on-off";
-            doc.requireKeys(p, ON_OFF_KEYS);
-            OnOffSettings settings = located(p, () -> new OnOffSettings(
-                    doc.requiredNumber(p + "/off-output", NumberRule.FINITE),
-                    doc.requiredNumber(p + "/on-output", NumberRule.FINITE),
-                    doc.requiredNumber(p + "/hysteresis", NumberRule.NON_NEGATIVE),
-                    doc.optionalNumber(p + "/minimum-on", NumberRule.NON_NEGATIVE, 0.0),
-                    doc.optionalNumber(p + "/minimum-off", NumberRule.NON_NEGATIVE, 0.0),
-                    doc.optionalChoice(p + "/action", ACTIONS, Action.REVERSE)));
-            b.onOffController(settings, doc.requiredNumber(p + "/sample-period", NumberRule.POSITIVE));
-        }
-
-        private PlantModel plant(String p) {
-            if (!doc.has(p)) {
-                throw doc.missing(p, "a plant mapping with a type: " + PLANT_TYPES.describe());
-            }
-            doc.requireKeys(p, List.of("type", "gain", "time-constant", "time-constants", "natural-frequency",
-                    "damping", "dead-time", "numerator", "denominator", "resistance", "inductance", "torque-constant",
-                    "back-emf-constant", "inertia", "viscous-friction", "load-torque", "coulomb-friction",
-                    "static-friction", "output", "integration-step", "heat-capacity", "loss-coefficient", "ambient",
-                    "max-power", "area", "outlet-coefficient", "initial-level"));
-            String type = doc.requiredChoice(p + "/type", PLANT_TYPES);
-            return switch (type) {
-                case "first-order" -> {
-                    allow(p, type, "type", "gain", "time-constant");
-                    yield located(p, () -> TransferFunction.firstOrder(number(p, "gain", NumberRule.FINITE),
-                            number(p, "time-constant", NumberRule.POSITIVE)));
-                }
-                case "fopdt" -> {
-                    allow(p, type, "type", "gain", "time-constant", "dead-time");
-                    yield located(p, () -> TransferFunction.fopdt(number(p, "gain", NumberRule.FINITE),
-                            number(p, "time-constant", NumberRule.POSITIVE), deadTime(p)));
-                }
-                case "sopdt" -> sopdt(p);
-                case "integrating" -> {
-                    allow(p, type, "type", "gain", "dead-time");
-                    yield located(p, () -> TransferFunction.integrating(number(p, "gain", NumberRule.FINITE),
-                            deadTime(p)));
-                }
-                case "transfer-function" -> {
-                    allow(p, type, "type", "numerator", "denominator", "dead-time");
-                    yield located(p, () -> new TransferFunction(doc.numberList(p + "/numerator", NumberRule.FINITE),
-                            doc.numberList(p + "/denominator", NumberRule.FINITE), deadTime(p)));
-                }
-                case "dc-motor" -> motor(p);
-                case "thermal-zone" -> {
-                    allow(p, type, "type", "heat-capacity", "loss-coefficient", "ambient", "max-power",
-                            "integration-step");
-                    yield located(p, () -> new ThermalZoneModel(number(p, "heat-capacity", NumberRule.POSITIVE),
-                            number(p, "loss-coefficient", NumberRule.NON_NEGATIVE),
-                            doc.optionalNumber(p + "/ambient", NumberRule.FINITE, 20.0),
-                            doc.optionalNumber(p + "/max-power", NumberRule.ANY, Double.POSITIVE_INFINITY),
-                            doc.optionalNumber(p + "/integration-step", NumberRule.POSITIVE, 1.0)));
-                }
-                default -> {
-                    allow(p, type, "type", "area", "outlet-coefficient", "initial-level", "integration-step");
-                    yield located(p, () -> new TankModel(number(p, "area", NumberRule.POSITIVE),
-                            number(p, "outlet-coefficient", NumberRule.POSITIVE),
-                            doc.optionalNumber(p + "/initial-level", NumberRule.NON_NEGATIVE, 0.0),
-                            doc.optionalNumber(p + "/integration-step", NumberRule.POSITIVE, 0.1)));
-                }
-            };
-        }
-
-        private PlantModel sopdt(String p) {
-            allow(p, "sopdt", "type", "gain", "time-constants", "natural-frequency", "damping", "dead-time");
-            double gain = number(p, "gain", NumberRule.FINITE);
-            if (doc.has(p + "/time-constants")) {
-                for (String other : List.of("natural-frequency", "damping")) {
-                    if (doc.has(p + "/" + other)) {
-                        throw doc.error(p + "/" + other, other + " excludes time-constants; give time-constants"
-                                + " [T1, T2] or natural-frequency and damping");
-                    }
-                }
-                double[] t = doc.numberList(p + "/time-constants", NumberRule.POSITIVE);
-                if (t.length != 2) {
-                    throw doc.error(p + "/time-constants", doc.keyName(p + "/time-constants")
-                            + " must list two time constants [T1, T2]: " + doc.keyName(p + "/time-constants")
-                            + " has " + t.length);
-                }
-                return located(p, () -> TransferFunction.sopdt(gain, t[0], t[1], deadTime(p)));
-            }
-            if (!doc.has(p + "/natural-frequency") && !doc.has(p + "/damping")) {
-                throw doc.missing(p + "/time-constants", "[T1, T2] in seconds, or natural-frequency and damping");
-            }
-            return located(p, () -> TransferFunction.sopdtOscillatory(gain,
-                    number(p, "natural-frequency", NumberRule.POSITIVE), number(p, "damping", NumberRule.POSITIVE),
-                    deadTime(p)));
-        }
-
-        private PlantModel motor(String p) {
-            allow(p, "dc-motor", "type", "resistance", "inductance", "torque-constant", "back-emf-constant", "inertia",
-                    "viscous-friction", "load-torque", "coulomb-friction", "static-friction", "output",
-                    "integration-step");
-            double resistance = number(p, "resistance", NumberRule.POSITIVE);
-            double inductance = number(p, "inductance", NumberRule.POSITIVE);
-            double coulomb = doc.optionalNumber(p + "/coulomb-friction", NumberRule.NON_NEGATIVE, 0.0);
-            return located(p, () -> new DcMotorModel(resistance, inductance,
-                    number(p, "torque-constant", NumberRule.POSITIVE),
-                    number(p, "back-emf-constant", NumberRule.NON_NEGATIVE),
-                    number(p, "inertia", NumberRule.POSITIVE),
-                    doc.optionalNumber(p + "/viscous-friction", NumberRule.NON_NEGATIVE, 0.0),
-                    doc.optionalNumber(p + "/load-torque", NumberRule.FINITE, 0.0),
-                    coulomb,
-                    doc.optionalNumber(p + "/static-friction", NumberRule.NON_NEGATIVE, coulomb),
-                    doc.optionalChoice(p + "/output", MOTOR_OUTPUTS, MotorOutput.POSITION),
-                    doc.optionalNumber(p + "/integration-step", NumberRule.POSITIVE, 0.1 * inductance / resistance)));
-        }
-
-        private ActuatorModel actuator(String p) {
-            doc.requireKeys(p, ACTUATOR_KEYS);
-            return located(p, () -> new ActuatorModel(
-                    doc.optionalNumber(p + "/min", NumberRule.ANY, Double.NEGATIVE_INFINITY),
-                    doc.optionalNumber(p + "/max", NumberRule.ANY, Double.POSITIVE_INFINITY),
-                    doc.optionalNumber(p + "/slew-per-second", NumberRule.ANY, Double.POSITIVE_INFINITY),
-                    doc.optionalNumber(p + "/dead-zone", NumberRule.NON_NEGATIVE, 0.0)));
-        }
-
-        private SensorModel sensor(String p) {
-            doc.requireKeys(p, SENSOR_KEYS);
-            return located(p, () -> new SensorModel(
-                    doc.optionalNumber(p + "/noise-std-dev", NumberRule.NON_NEGATIVE, 0.0),
-                    doc.optionalNumber(p + "/quantisation-step", NumberRule.NON_NEGATIVE, 0.0),
-                    doc.has(p + "/delay-samples") ? (int) whole(p + "/delay-samples", true) : 0,
-                    doc.optionalNumber(p + "/jitter", NumberRule.NON_NEGATIVE, 0.0),
-                    doc.optionalNumber(p + "/dropout-probability", NumberRule.FRACTION, 0.0)));
-        }
-
-        private double number(String mapping, String key, NumberRule rule) {
-            return doc.requiredNumber(mapping + "/" + key, rule);
-        }
-
-        private double deadTime(String p) {
-            return doc.optionalNumber(p + "/dead-time", NumberRule.NON_NEGATIVE, 0.0);
-        }
-
-        /** A whole number (a seed, a count of samples). */
-        private long whole(String pointer, boolean nonNegative) {
-            JsonNode node = doc.node(pointer);
-            String key = doc.keyName(pointer);
-            boolean ok = node.isIntegralNumber() && node.canConvertToLong() && (!nonNegative || node.longValue() >= 0)
-                    && (!nonNegative || node.longValue() <= Integer.MAX_VALUE);
-            if (!ok) {
-                throw doc.error(pointer, key + " must be a whole number" + (nonNegative ? " >= 0" : "") + ": " + key
-                        + "=" + doc.sourceText(pointer));
-            }
-            return node.longValue();
-        }
-
-        /** Keys of other plant types are errors, so no key is silently ignored. */
-        private void allow(String p, String type, String... keys) {
-            List<String> allowed = List.of(keys);
-            Iterator<String> names = doc.node(p).fieldNames();
-            while (names.hasNext()) {
-                String key = names.next();
-                if (!allowed.contains(key)) {
-                    throw doc.error(p + "/" + key, "unknown key '" + key + "' for plant type " + type + "; allowed: "
-                            + String.join(", ", allowed));
-                }
-            }
-        }
-
-        /**
-         * Runs a constructor whose checks name file keys ("static-friction must be ...: static-friction=...")
-         * and locates its complaint at that key when the mapping has it, else at the mapping.
-         */
-        private <T> T located(String mapping, Supplier<T> make) {
-            try {
-                return make.get();
-            } catch (InputFileException e) {
-                throw e;
-            } catch (IllegalArgumentException e) {
-                String message = e.getMessage();
-                String key = message.contains(" ") ? message.substring(0, message.indexOf(' ')) : "";
-                String at = doc.has(mapping + "/" + key) ? mapping + "/" + key : mapping;
-                throw doc.error(at, message);
+                b.controller(ControllerFile.read(doc, pointer));
             }
         }
     }

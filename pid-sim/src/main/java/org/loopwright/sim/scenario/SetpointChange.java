@@ -1,5 +1,7 @@
 package org.loopwright.sim.scenario;
 
+import org.loopwright.pid.SettingChecks;
+
 /**
  * One entry of a setpoint profile: from {@code atSeconds} the setpoint moves to {@code value}, at
  * once (a step, {@code rampSeconds = 0}) or linearly over {@code rampSeconds} from wherever it was.
@@ -12,9 +14,9 @@ public record SetpointChange(double atSeconds, double value, double rampSeconds)
 
     /** Validates every value; errors name the scenario file's keys. */
     public SetpointChange {
-        Validation.nonNegative("at", atSeconds);
-        Validation.finite("value", value);
-        Validation.nonNegative("ramp-seconds", rampSeconds);
+        SettingChecks.nonNegative("atSeconds", atSeconds);
+        SettingChecks.finite("value", value);
+        SettingChecks.nonNegative("rampSeconds", rampSeconds);
     }
 
     /** A step to {@code value} at {@code atSeconds}. */

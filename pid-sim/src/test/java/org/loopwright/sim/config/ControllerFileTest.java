@@ -6,6 +6,9 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.HashSet;
+import java.util.Map;
+import java.util.Set;
 import java.util.stream.Stream;
 
 import org.junit.jupiter.api.Test;
@@ -293,5 +296,36 @@ class ControllerFileTest {
         assertThatThrownBy(() -> ControllerFile.read(missing))
                 .isInstanceOf(InputFileException.class)
                 .hasMessage(missing + ": cannot be read (no such file or directory)");
+    }
+
+    @Test
+    void eachKeyIsDeclaredOnceWithItsOwnField() {
+        Set<String> words = new HashSet<>();
+        Set<String> fields = new HashSet<>();
+        for (FileKey<?> key : ControllerFile.KEYS) {
+            assertThat(words.add(key.word())).as(key.word()).isTrue();
+            assertThat(fields.add(key.field())).as(key.field()).isTrue();
+        }
+    }
+
+    /** The README's controller-file example lists every key the reader allows, with the declared defaults. */
+    @Test
+    void readmeListsEveryKey() throws IOException {
+        String readme = Files.readString(Path.of("..", "README.md"));
+        String section = readme.substring(readme.indexOf("### Controller file"), readme.indexOf("### Trace file"));
+        for (FileKey<?> key : ControllerFile.KEYS) {
+            assertThat(section).as(key.word()).containsPattern("[\\s:]" + key.word() + ":? [(A-Za-z0-9#]");
+        }
+        assertThat(ControllerFile.INTEGRAL_METHOD.defaultText()).isEqualTo("tustin");
+        assertThat(readme).contains("# N = Td/Tf (default " + Math.round(ControllerFile.FILTER_RATIO.defaultValue()
+                .orElseThrow()) + ")");
+    }
+
+    @Test
+    void resolvedSettingsListEveryKeyThatAppliesWithDefaultsAndDerivedValues() {
+        Map<String, String> resolved = ControllerFile.resolved(parse(IDEAL_PI));
+        assertThat(resolved).containsEntry("form", "ideal").containsEntry("integral-method", "tustin")
+                .containsEntry("tracking-time", "30.0").containsEntry("output-max", ".inf")
+                .doesNotContainKeys("proportional-gain", "safe-output", "derivative-filter-time");
     }
 }

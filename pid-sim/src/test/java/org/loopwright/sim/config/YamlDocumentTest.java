@@ -83,7 +83,7 @@ class YamlDocumentTest {
                 Arguments.of((Consumer<YamlDocument>) d -> d.requireKeys("/setpoints/1", List.of("time")),
                         "scenario.yaml:8:5: unknown key 'value' in setpoints[1]; allowed: time"),
                 Arguments.of((Consumer<YamlDocument>) d -> d.requireKeys("/noise", List.of("time")),
-                        "scenario.yaml:9:1: noise must be a mapping of keys to values: noise=[0.1,0.2,0.05]"),
+                        "scenario.yaml:9:1: noise must be a mapping of keys to values: noise=[0.1, 0.2, 0.05]"),
                 Arguments.of((Consumer<YamlDocument>) d -> d.requiredText("/plant"),
                         "scenario.yaml:3:1: plant must be a non-empty text:"
                                 + " plant={\"kind\":\"first-order\",\"gain\":0.5,\"time-constant\":600}"));

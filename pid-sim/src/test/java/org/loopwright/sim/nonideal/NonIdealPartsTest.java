@@ -99,13 +99,13 @@ class NonIdealPartsTest {
         return Stream.of(
                 Arguments.of((Runnable) () -> new ActuatorModel(1, 0, 1, 0), "min must be <= max (max=0.0): min=1.0"),
                 Arguments.of((Runnable) () -> new ActuatorModel(0, 1, 0, 0),
-                        "slew-per-second must be > 0 (infinity for no limit): slew-per-second=0.0"),
-                Arguments.of((Runnable) () -> new ActuatorModel(0, 1, 1, -1), "dead-zone must be finite and >= 0: dead-zone=-1.0"),
+                        "slewPerSecond must be > 0 (infinity for no limit): slewPerSecond=0.0"),
+                Arguments.of((Runnable) () -> new ActuatorModel(0, 1, 1, -1), "deadZone must be finite and >= 0: deadZone=-1.0"),
                 Arguments.of((Runnable) () -> new SensorModel(-1, 0, 0, 0, 0),
-                        "noise-std-dev must be finite and >= 0: noise-std-dev=-1.0"),
-                Arguments.of((Runnable) () -> new SensorModel(0, 0, -2, 0, 0), "delay-samples must be >= 0: delay-samples=-2"),
+                        "noiseStdDev must be finite and >= 0: noiseStdDev=-1.0"),
+                Arguments.of((Runnable) () -> new SensorModel(0, 0, -2, 0, 0), "delaySamples must be >= 0: delaySamples=-2"),
                 Arguments.of((Runnable) () -> new SensorModel(0, 0, 0, 0, 1.0),
-                        "dropout-probability must be >= 0 and < 1: dropout-probability=1.0"));
+                        "dropoutProbability must be >= 0 and < 1: dropoutProbability=1.0"));
     }
 
     @ParameterizedTest

@@ -16,23 +16,23 @@ class PlantModelValidationTest {
         return Stream.of(
                 Arguments.of((Runnable) () -> TransferFunction.fopdt(Double.NaN, 1, 0), "gain must be finite: gain=NaN"),
                 Arguments.of((Runnable) () -> TransferFunction.firstOrder(1, -3),
-                        "time-constant must be finite and > 0: time-constant=-3.0"),
-                Arguments.of((Runnable) () -> TransferFunction.fopdt(1, 3, -1), "dead-time must be finite and >= 0: dead-time=-1.0"),
+                        "timeConstantSeconds must be finite and > 0: timeConstantSeconds=-3.0"),
+                Arguments.of((Runnable) () -> TransferFunction.fopdt(1, 3, -1), "deadTimeSeconds must be finite and >= 0: deadTimeSeconds=-1.0"),
                 Arguments.of((Runnable) () -> TransferFunction.sopdt(1, 3, 0, 0),
-                        "time-constants must be finite and > 0: time-constants=0.0"),
+                        "timeConstantsSeconds must be finite and > 0: timeConstantsSeconds=0.0"),
                 Arguments.of((Runnable) () -> TransferFunction.sopdtOscillatory(1, 1, 0, 0), "damping must be finite and > 0: damping=0.0"),
                 Arguments.of((Runnable) () -> new TransferFunction(new double[] {1}, new double[] {0, 1}, 0),
-                        "denominator leading coefficient must be non-zero: denominator=[0.0, 1.0]"),
+                        "denominator must have a non-zero leading coefficient: denominator=[0.0, 1.0]"),
                 Arguments.of((Runnable) () -> new ThermalZoneModel(0, 1, 20, 100, 1),
-                        "heat-capacity must be finite and > 0: heat-capacity=0.0"),
+                        "heatCapacityJoulesPerKelvin must be finite and > 0: heatCapacityJoulesPerKelvin=0.0"),
                 Arguments.of((Runnable) () -> new ThermalZoneModel(1, 1, 20, 0, 1),
-                        "max-power must be > 0 (infinity for no limit): max-power=0.0"),
+                        "maxPowerWatts must be > 0 (infinity for no limit): maxPowerWatts=0.0"),
                 Arguments.of((Runnable) () -> new TankModel(1, 0, 0, 1),
-                        "outlet-coefficient must be finite and > 0: outlet-coefficient=0.0"),
+                        "outletCoefficient must be finite and > 0: outletCoefficient=0.0"),
                 Arguments.of((Runnable) () -> new DcMotorModel(1, 1, 1, 1, 1, 0, 0, 0.2, 0.1, MotorOutput.SPEED, 1),
-                        "static-friction must be >= coulomb-friction (coulomb-friction=0.2): static-friction=0.1"),
+                        "staticFriction must be >= coulombFriction (coulombFriction=0.2): staticFriction=0.1"),
                 Arguments.of((Runnable) () -> new DcMotorModel(1, 1, 1, 1, 1, 0, 0, 0, 0, MotorOutput.SPEED, 0),
-                        "integration-step must be finite and > 0: integration-step=0.0"));
+                        "integrationStepSeconds must be finite and > 0: integrationStepSeconds=0.0"));
     }
 
     @ParameterizedTest

@@ -142,19 +142,19 @@ class ScenarioFileTest {
                                 + " plant.time-constants has 1"),
                 Arguments.of(CONTROLLER + "plant: {type: transfer-function, numerator: [1, 2, 3], denominator: [1, 1]}\n"
                         + "duration: 10\n",
-                        "s.yaml:2:34: numerator degree must not exceed the denominator's: numerator=[1.0, 2.0, 3.0],"
-                                + " denominator=[1.0, 1.0]"),
+                        "s.yaml:2:34: plant.numerator must not have more coefficients than denominator"
+                                + " (denominator=[1.0, 1.0]): plant.numerator=[1, 2, 3]"),
                 Arguments.of(CONTROLLER + "plant: {type: dc-motor, resistance: 2, inductance: 0.01, torque-constant: 0.1,"
                         + " back-emf-constant: 0.1, inertia: 0.01, coulomb-friction: 0.05, static-friction: 0.01}\n"
                         + "duration: 10\n",
-                        "s.yaml:2:143: static-friction must be >= coulomb-friction (coulomb-friction=0.05):"
-                                + " static-friction=0.01"),
+                        "s.yaml:2:143: plant.static-friction must be >= coulomb-friction (coulomb-friction=0.05):"
+                                + " plant.static-friction=0.01"),
                 Arguments.of(CONTROLLER + plant + "actuator: {min: 5, max: 1}\nduration: 10\n",
-                        "s.yaml:3:12: min must be <= max (max=1.0): min=5.0"),
+                        "s.yaml:3:12: actuator.min must be <= max (max=1.0): actuator.min=5"),
                 Arguments.of(CONTROLLER + plant + "sensor: {delay-samples: 1.5}\nduration: 10\n",
-                        "s.yaml:3:10: sensor.delay-samples must be a whole number >= 0: sensor.delay-samples=1.5"),
+                        "s.yaml:3:10: sensor.delay-samples must be a whole number >= 0 and <= 2147483647: sensor.delay-samples=1.5"),
                 Arguments.of(CONTROLLER + plant + "sensor: {jitter: 0.5}\nduration: 10\n",
-                        "s.yaml:3:10: jitter must be < the sample period (0.5): jitter=0.5"),
+                        "s.yaml:3:10: sensor.jitter must be < the sample period (0.5): sensor.jitter=0.5"),
                 Arguments.of(CONTROLLER + plant + "setpoint: [{at: -1, value: 3}]\nduration: 10\n",
                         "s.yaml:3:13: setpoint[0].at must be finite and >= 0: setpoint[0].at=-1"),
                 Arguments.of(CONTROLLER + plant + "disturbances: [{at: 1, size: 3}]\nduration: 10\n",

@@ -67,12 +67,12 @@ class ScenarioTest {
     void jitterMustStayBelowTheSamplePeriod() {
         assertThatThrownBy(() -> Scenario.setpointStep(TransferFunction.firstOrder(1, 1), PI, 1, 1).toBuilder()
                 .sensor(new SensorModel(0, 0, 0, 0.1, 0)).build())
-                .hasMessage("jitter must be < the sample period (0.1): jitter=0.1");
+                .hasMessage("jitterSeconds must be < the sample period (0.1): jitterSeconds=0.1");
     }
 
     @Test
     void tooManySamplesAreRefused() {
         assertThatThrownBy(() -> Scenario.setpointStep(TransferFunction.firstOrder(1, 1), PI, 1, 1e6))
-                .hasMessage("duration must give at most 5000000 samples at the sample period 0.1: duration=1000000.0");
+                .hasMessage("durationSeconds must give at most 5000000 samples at the sample period 0.1: durationSeconds=1000000.0");
     }
 }
