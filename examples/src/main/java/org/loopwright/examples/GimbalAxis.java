@@ -100,8 +100,7 @@ public final class GimbalAxis {
         }
         SafetyNotice.print(out);
         RunnerSettings runnerSettings = RunnerSettings.builder()
-                .periodNanos(PERIOD_NANOS)
-                .waitStrategy(WaitStrategy.HYBRID)
+                .waitStrategy(WaitStrategy.PARK_THEN_SPIN)
                 .overrunPolicy(OverrunPolicy.SKIP_MISSED)
                 .periodMode(PeriodMode.MEASURED)
                 .threadName("gimbal-axis-loop")

@@ -70,6 +70,7 @@ public final class PidController {
     private double derivativeTerm;
     private double feedforwardTerm;
     private double emitted;
+    private boolean outputLimited;
     private Fault fault = Fault.NONE;
     private long faultCount;
 
@@ -213,6 +214,7 @@ public final class PidController {
             // outside automatic the integral is not the law's own: the next automatic sample rebalances it
             rebalancePending = !automatic;
         }
+        outputLimited = automatic && output != unlimited;
         integral = integralNow;
         derivativeState = lawFinite ? derivative : 0.0;
         previousError = lawFinite ? error : 0.0;
@@ -462,6 +464,7 @@ public final class PidController {
         derivativeTerm = 0.0;
         feedforwardTerm = 0.0;
         emitted = 0.0;
+        outputLimited = false;
         fault = Fault.NONE;
         faultCount = 0;
     }
@@ -474,6 +477,14 @@ public final class PidController {
     /** The actuator position the last update asked for (equal to {@link #output()} for position output). */
     public double position() {
         return previousOutput;
+    }
+
+    /**
+     * Whether the range or the slew limit cut the output of the last good automatic sample (false
+     * outside automatic). A cascade reads it to stop the outer loop pushing a saturated inner loop.
+     */
+    public boolean outputLimited() {
+        return outputLimited;
     }
 
     /** The proportional contribution of the last good sample. */
@@ -513,6 +524,16 @@ public final class PidController {
                 s.wrapSpan(), mode, started, integral, derivativeState, previousError, previousSetpoint,
                 previousMeasurement, previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied,
                 manualValue, faultCount));
+    }
+
+    /**
+     * Copies the whole dynamic state into a holder without allocating (for a snapshot taken on the
+     * loop thread; the holder makes the {@link StateSnapshot} on the reader's thread).
+     */
+    public void captureState(StateCapture into) {
+        into.write(active, mode, started, integral, derivativeState, previousError, previousSetpoint,
+                previousMeasurement, previousUnlimited, previousOutput, previousFeedforward, feedforwardApplied,
+                manualValue, faultCount);
     }
 
     /**

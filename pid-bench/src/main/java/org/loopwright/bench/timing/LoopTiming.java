@@ -71,7 +71,7 @@ public final class LoopTiming {
             return recorder.result(loop, 0, skipped[0]);
         }
         long margin = spinMarginFor(periodNanos);
-        RunnerSettings settings = RunnerSettings.builder().periodNanos(periodNanos).waitStrategy(loop.waitStrategy())
+        RunnerSettings settings = RunnerSettings.builder().waitStrategy(loop.waitStrategy())
                 .spinMarginNanos(margin).threadName("loopwright-timing").daemon(true).build();
         LoopRunner runner = new LoopRunner(settings, controller, this::setpoint, this::measurement, this::write,
                 recorder);
@@ -84,7 +84,7 @@ public final class LoopTiming {
             throw new IllegalStateException("the timed runner stopped early: " + runner.stopReason(),
                     runner.lastFailureCause());
         }
-        return recorder.result(loop, loop == TimedLoop.RUNNER_HYBRID ? margin : 0, runner.skippedTickCount());
+        return recorder.result(loop, loop == TimedLoop.RUNNER_PARK_THEN_SPIN ? margin : 0, runner.skippedTickCount());
     }
 
     /** The baseline: the same tick, with nothing but a spin on the clock between ticks. */

@@ -9,7 +9,7 @@ public enum TimedLoop {
     /** The runner, spinning until each deadline. */
     RUNNER_SPIN(WaitStrategy.SPIN),
     /** The runner, parking until a margin before each deadline, then spinning. */
-    RUNNER_HYBRID(WaitStrategy.HYBRID),
+    RUNNER_PARK_THEN_SPIN(WaitStrategy.PARK_THEN_SPIN),
     /** A bare loop spinning on {@link System#nanoTime()} to absolute deadlines: the baseline. */
     BUSY_WAIT_BASELINE(null);
 

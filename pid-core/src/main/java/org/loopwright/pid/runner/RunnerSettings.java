@@ -3,10 +3,12 @@ package org.loopwright.pid.runner;
 import org.loopwright.pid.InvalidSettingException;
 
 /**
- * Immutable, validated settings of a {@link LoopRunner}. Example: a 1 kHz loop that parks until
- * 50 µs before each deadline and then spins:
+ * Immutable, validated settings of a {@link LoopRunner}. The period is not here: the runner ticks at
+ * its controller's {@link org.loopwright.pid.ControllerSettings#samplePeriodSeconds()}, the one place
+ * the sample period is given. Example: a loop that parks until 50 µs before each deadline and then
+ * spins:
  * <pre>
- *   RunnerSettings.builder().periodNanos(1_000_000).waitStrategy(WaitStrategy.HYBRID)
+ *   RunnerSettings.builder().waitStrategy(WaitStrategy.PARK_THEN_SPIN)
  *       .spinMarginNanos(50_000).threadName("bath-heater-loop").build();
  * </pre>
  *
@@ -14,41 +16,47 @@ import org.loopwright.pid.InvalidSettingException;
  */
 public final class RunnerSettings {
 
-    /** Default spin margin of the hybrid wait: 100 µs, above typical timer slack on Linux (common practice). */
+    /**
+     * Default spin margin of the park-then-spin wait: 100 µs (or the whole period when it is shorter),
+     * above typical timer slack on Linux (common practice).
+     */
     public static final long DEFAULT_SPIN_MARGIN_NANOS = 100_000L;
     /** Default number of failed ticks in a row after which the runner stops. */
     public static final int DEFAULT_MAX_CONSECUTIVE_FAILURES = 10;
+    /** Default number of operator commands that may wait for the next tick. */
+    public static final int DEFAULT_COMMAND_CAPACITY = 64;
+    /** Largest number of operator commands that may wait for the next tick. */
+    public static final int MAX_COMMAND_CAPACITY = 1 << 20;
     /** Default name of the loop thread. */
     public static final String DEFAULT_THREAD_NAME = "loopwright-loop";
 
-    private final long periodNanos;
     private final WaitStrategy waitStrategy;
     private final long spinMarginNanos;
     private final OverrunPolicy overrunPolicy;
     private final PeriodMode periodMode;
     private final int maxConsecutiveFailures;
+    private final int commandCapacity;
     private final String threadName;
     private final boolean daemon;
     private final LoopClock clock;
 
     private RunnerSettings(Builder b) {
-        if (b.periodNanos <= 0) {
-            throw new InvalidSettingException("periodNanos", b.periodNanos, "must be > 0");
-        }
-        periodNanos = b.periodNanos;
         waitStrategy = required("waitStrategy", b.waitStrategy);
-        long margin = b.spinMarginGiven ? b.spinMarginNanos : Math.min(DEFAULT_SPIN_MARGIN_NANOS, periodNanos);
-        if (margin < 0 || margin > periodNanos) {
-            throw new InvalidSettingException("spinMarginNanos", margin,
-                    "must be between 0 and periodNanos (" + periodNanos + ")");
+        if (b.spinMarginNanos < 0) {
+            throw new InvalidSettingException("spinMarginNanos", b.spinMarginNanos, "must be >= 0");
         }
-        spinMarginNanos = margin;
+        spinMarginNanos = b.spinMarginNanos;
         overrunPolicy = required("overrunPolicy", b.overrunPolicy);
         periodMode = required("periodMode", b.periodMode);
         if (b.maxConsecutiveFailures < 1) {
             throw new InvalidSettingException("maxConsecutiveFailures", b.maxConsecutiveFailures, "must be >= 1");
         }
         maxConsecutiveFailures = b.maxConsecutiveFailures;
+        if (b.commandCapacity < 1 || b.commandCapacity > MAX_COMMAND_CAPACITY) {
+            throw new InvalidSettingException("commandCapacity", b.commandCapacity,
+                    "must be between 1 and " + MAX_COMMAND_CAPACITY);
+        }
+        commandCapacity = b.commandCapacity;
         if (b.threadName == null || b.threadName.isBlank()) {
             throw new InvalidSettingException("threadName", b.threadName == null ? null : "\"" + b.threadName + "\"",
                     "must not be blank");
@@ -65,8 +73,8 @@ public final class RunnerSettings {
         return value;
     }
 
-    /** A builder with the defaults: hybrid wait with a 100 µs margin, skip missed ticks, fixed period,
-     * stop after 10 failed ticks in a row, a non-daemon thread named "loopwright-loop", the system clock. */
+    /** A builder with the defaults: park-then-spin wait with a 100 µs margin, skip missed ticks, fixed period,
+     * stop after 10 failed ticks in a row, room for 64 waiting operator commands, a non-daemon thread named "loopwright-loop", the system clock. */
     public static Builder builder() {
         return new Builder();
     }
@@ -74,27 +82,16 @@ public final class RunnerSettings {
     /** A builder that starts from these settings. */
     public Builder toBuilder() {
         Builder b = new Builder();
-        b.periodNanos = periodNanos;
         b.waitStrategy = waitStrategy;
         b.spinMarginNanos = spinMarginNanos;
-        b.spinMarginGiven = true;
         b.overrunPolicy = overrunPolicy;
         b.periodMode = periodMode;
         b.maxConsecutiveFailures = maxConsecutiveFailures;
+        b.commandCapacity = commandCapacity;
         b.threadName = threadName;
         b.daemon = daemon;
         b.clock = clock;
         return b;
-    }
-
-    /** The period h in nanoseconds: tick k is due at start + k·h. */
-    public long periodNanos() {
-        return periodNanos;
-    }
-
-    /** The period h in seconds. */
-    public double periodSeconds() {
-        return periodNanos * 1e-9;
     }
 
     /** How the loop thread waits for a deadline. */
@@ -102,7 +99,10 @@ public final class RunnerSettings {
         return waitStrategy;
     }
 
-    /** For {@link WaitStrategy#HYBRID}: how long before the deadline parking ends and spinning begins. */
+    /**
+     * For {@link WaitStrategy#PARK_THEN_SPIN}: how long before the deadline parking ends and spinning
+     * begins. A margin of a whole period or more spins the whole period.
+     */
     public long spinMarginNanos() {
         return spinMarginNanos;
     }
@@ -122,6 +122,11 @@ public final class RunnerSettings {
         return maxConsecutiveFailures;
     }
 
+    /** How many operator commands may wait for the next tick before requests are refused. */
+    public int commandCapacity() {
+        return commandCapacity;
+    }
+
     /** The loop thread's name. */
     public String threadName() {
         return threadName;
@@ -139,24 +144,17 @@ public final class RunnerSettings {
 
     /** Mutable builder; {@link #build()} validates every value. Not thread-safe. */
     public static final class Builder {
-        private long periodNanos;
-        private WaitStrategy waitStrategy = WaitStrategy.HYBRID;
-        private long spinMarginNanos;
-        private boolean spinMarginGiven;
+        private WaitStrategy waitStrategy = WaitStrategy.PARK_THEN_SPIN;
+        private long spinMarginNanos = DEFAULT_SPIN_MARGIN_NANOS;
         private OverrunPolicy overrunPolicy = OverrunPolicy.SKIP_MISSED;
         private PeriodMode periodMode = PeriodMode.FIXED;
         private int maxConsecutiveFailures = DEFAULT_MAX_CONSECUTIVE_FAILURES;
+        private int commandCapacity = DEFAULT_COMMAND_CAPACITY;
         private String threadName = DEFAULT_THREAD_NAME;
         private boolean daemon;
         private LoopClock clock = LoopClock.SYSTEM;
 
         private Builder() {
-        }
-
-        /** The period in nanoseconds (required, &gt; 0); 1 kHz is 1,000,000. */
-        public Builder periodNanos(long value) {
-            periodNanos = value;
-            return this;
         }
 
         /** How to wait for each deadline. */
@@ -165,10 +163,9 @@ public final class RunnerSettings {
             return this;
         }
 
-        /** The hybrid wait's spin margin, 0 to periodNanos (default 100 µs, or the period if shorter). */
+        /** The park-then-spin wait's spin margin, &ge; 0 (default 100 µs). */
         public Builder spinMarginNanos(long value) {
             spinMarginNanos = value;
-            spinMarginGiven = true;
             return this;
         }
 
@@ -187,6 +184,12 @@ public final class RunnerSettings {
         /** Failed ticks in a row after which the runner stops (&ge; 1). */
         public Builder maxConsecutiveFailures(int value) {
             maxConsecutiveFailures = value;
+            return this;
+        }
+
+        /** Operator commands that may wait for the next tick, 1 to {@value RunnerSettings#MAX_COMMAND_CAPACITY} (default 64). */
+        public Builder commandCapacity(int value) {
+            commandCapacity = value;
             return this;
         }
 

@@ -1,5 +1,7 @@
 package org.loopwright.pid.runner;
 
+import java.util.Locale;
+
 /** How the loop thread waits for the next deadline. */
 public enum WaitStrategy {
     /** Parks the thread until the deadline: least CPU, lateness set by the OS timer (tens of µs typically). */
@@ -8,7 +10,26 @@ public enum WaitStrategy {
     SPIN,
     /**
      * Parks until {@link RunnerSettings#spinMarginNanos()} before the deadline, then spins: lateness
-     * close to spinning at a fraction of its CPU time.
+     * close to spinning at a fraction of its CPU time. Users see it as {@code park-then-spin}.
      */
-    HYBRID
+    PARK_THEN_SPIN;
+
+    /** The word users see and type: {@code park}, {@code spin} or {@code park-then-spin}. */
+    public String word() {
+        return name().toLowerCase(Locale.ROOT).replace('_', '-');
+    }
+
+    /**
+     * The strategy a word names.
+     *
+     * @throws IllegalArgumentException naming the word and the allowed ones
+     */
+    public static WaitStrategy fromWord(String word) {
+        for (WaitStrategy w : values()) {
+            if (w.word().equals(word)) {
+                return w;
+            }
+        }
+        throw new IllegalArgumentException("wait strategy must be park, spin or park-then-spin: wait=" + word);
+    }
 }

@@ -5,6 +5,9 @@
  * an overrun and how many failed callbacks it tolerates are set in
  * {@link org.loopwright.pid.runner.RunnerSettings}. Per-tick timing reaches a
  * {@link org.loopwright.pid.runner.TimingListener} as primitives, so a histogram can be attached
- * without allocation.
+ * without allocation. Other threads command the running loop through its
+ * {@link org.loopwright.pid.runner.OperatorChannel} and read it through the published
+ * {@link org.loopwright.pid.runner.LoopStatus}, optionally over JMX
+ * ({@link org.loopwright.pid.runner.LoopStatusRegistration}).
  */
 package org.loopwright.pid.runner;

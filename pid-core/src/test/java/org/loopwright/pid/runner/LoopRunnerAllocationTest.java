@@ -4,11 +4,14 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.lang.management.ManagementFactory;
 import java.time.Duration;
+import java.util.Arrays;
 
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.FaultPolicy;
+import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
+import org.loopwright.pid.StateCapture;
 import org.loopwright.pid.WindupProtection;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.form.IdealGains;
@@ -77,8 +80,8 @@ class LoopRunnerAllocationTest {
             return k % 101 == 0 ? Double.NaN : 55.0 + 0.01 * (k % 50);
         };
         AllocationProbe listener = new AllocationProbe(50_000, 200_000);
-        LoopRunner runner = new LoopRunner(RunnerSettings.builder().periodNanos(PERIOD).clock(clock)
-                .waitStrategy(WaitStrategy.HYBRID).spinMarginNanos(20_000).periodMode(PeriodMode.MEASURED)
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder().clock(clock)
+                .waitStrategy(WaitStrategy.PARK_THEN_SPIN).spinMarginNanos(20_000).periodMode(PeriodMode.MEASURED)
                 .overrunPolicy(OverrunPolicy.SKIP_MISSED).daemon(true).build(),
                 bathHeater(), () -> 60.0, probe, u -> heater[0] = u, listener);
         listener.runner = runner;
@@ -97,13 +100,96 @@ class LoopRunnerAllocationTest {
         // 50 kHz, parking until 10 µs before each deadline: 0.6 s of real time (more when parks overrun)
         long period = 20_000L;
         AllocationProbe listener = new AllocationProbe(10_000, 20_000);
-        LoopRunner runner = new LoopRunner(RunnerSettings.builder().periodNanos(period)
-                .waitStrategy(WaitStrategy.HYBRID).spinMarginNanos(10_000).periodMode(PeriodMode.MEASURED)
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder()
+                .waitStrategy(WaitStrategy.PARK_THEN_SPIN).spinMarginNanos(10_000).periodMode(PeriodMode.MEASURED)
                 .daemon(true).build(),
                 bathHeater(), () -> 60.0, () -> 58.5, u -> { }, listener);
         listener.runner = runner;
         runner.start();
         assertThat(runner.awaitStop(Duration.ofSeconds(240))).isTrue();
         assertThat(listener.bytesAtEnd - listener.bytesAtWarm).isZero();
+    }
+
+    /** Reads the allocation counter at the ends of three windows after a warm-up, then stops the runner. */
+    private static final class WindowProbe implements TimingListener {
+        private final com.sun.management.ThreadMXBean threads =
+                (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
+        private final long warmUpTicks;
+        private final long windowTicks;
+        final long[] bytes = new long[4];
+        long ticks;
+        LoopRunner runner;
+
+        WindowProbe(long warmUpTicks, long windowTicks) {
+            this.warmUpTicks = warmUpTicks;
+            this.windowTicks = windowTicks;
+        }
+
+        @Override
+        public void onTick(long scheduledNanos, long startNanos, long endNanos, boolean overrun) {
+            ticks++;
+            long sinceWarm = ticks - warmUpTicks;
+            if (sinceWarm >= 0 && sinceWarm % windowTicks == 0) {
+                int mark = (int) (sinceWarm / windowTicks);
+                bytes[mark] = threads.getCurrentThreadAllocatedBytes();
+                if (mark == 3) {
+                    runner.stop();
+                }
+            }
+        }
+
+        long[] perWindow() {
+            return new long[] {bytes[1] - bytes[0], bytes[2] - bytes[1], bytes[3] - bytes[2]};
+        }
+    }
+
+    /**
+     * Every tick takes one or two operator commands (sent from the loop thread itself, so the sending
+     * is measured too): mode switches, manual outputs, setpoints, retunes between two settings, captures
+     * and the status read. The JVM now and then charges a few dozen bytes to a thread on its own (see
+     * the closed-loop allocation test in pid-sim), so one window of three must be exactly zero and all
+     * under 256 B; a tick that allocated one 16-byte object would charge 800 kB to every window.
+     */
+    @Test
+    void aTickWithCommandsFlowingAllocatesNothing() throws InterruptedException {
+        VirtualClock clock = new VirtualClock(500);
+        PidController controller = bathHeater();
+        ControllerSettings gentle = controller.settings();
+        ControllerSettings brisk = gentle.toBuilder().gains(new IdealGains(6.0, 90.0, 10.0)).build();
+        StateCapture capture = new StateCapture();
+        LoopStatus status = new LoopStatus();
+        WindowProbe probe = new WindowProbe(50_000, 50_000);
+        long[] reads = {0};
+        LoopRunner[] self = new LoopRunner[1];
+        MeasurementSource sensorThatSendsCommands = () -> {
+            long k = reads[0]++;
+            OperatorChannel operator = self[0].operator();
+            switch ((int) (k % 8)) {
+                case 0 -> operator.requestMode(Mode.MANUAL);
+                case 1 -> operator.requestManualOutput(20.0 + k % 13);
+                case 2 -> operator.requestMode(Mode.AUTOMATIC);
+                case 3 -> operator.requestSetpoint(55.0 + k % 7);
+                case 4 -> operator.requestRetune(k % 16 < 8 ? brisk : gentle);
+                case 5 -> operator.requestCapture(capture);
+                case 6 -> self[0].readStatus(status);
+                default -> {
+                    operator.requestSetpoint(58.0);
+                    operator.requestManualOutput(30.0);
+                }
+            }
+            return 55.0 + 0.01 * (k % 50);
+        };
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder().clock(clock).waitStrategy(WaitStrategy.PARK)
+                .daemon(true).build(), controller, 60.0, sensorThatSendsCommands, u -> { }, probe);
+        self[0] = runner;
+        probe.runner = runner;
+        runner.start();
+        assertThat(runner.awaitStop(Duration.ofSeconds(120))).isTrue();
+
+        assertThat(runner.stopReason()).isEqualTo(StopReason.STOP_REQUESTED);
+        assertThat(runner.status().appliedCommandCount()).isGreaterThanOrEqualTo(200_000);
+        long[] perWindow = probe.perWindow();
+        assertThat(perWindow).as("bytes per window of 50,000 ticks").contains(0L);
+        assertThat(Arrays.stream(perWindow).sum()).as("bytes in three windows").isLessThan(256L);
     }
 }

@@ -42,7 +42,7 @@ class LoopRunnerTest {
 
     /** Parking on a virtual clock lands exactly on the deadline; spinning needs a read cost to progress. */
     private static RunnerSettings.Builder virtual(VirtualClock clock) {
-        return RunnerSettings.builder().periodNanos(PERIOD).clock(clock).waitStrategy(WaitStrategy.PARK).daemon(true);
+        return RunnerSettings.builder().clock(clock).waitStrategy(WaitStrategy.PARK).daemon(true);
     }
 
     private static void runToEnd(LoopRunner runner) throws InterruptedException {
@@ -279,7 +279,7 @@ class LoopRunnerTest {
         AtomicReference<Thread> loopThread = new AtomicReference<>();
         long[] listened = {0};
         long[] written = {0};
-        RunnerSettings settings = RunnerSettings.builder().periodNanos(PERIOD).waitStrategy(WaitStrategy.PARK)
+        RunnerSettings settings = RunnerSettings.builder().waitStrategy(WaitStrategy.PARK)
                 .threadName("water-bath-loop").daemon(true).build();
         LoopRunner runner = new LoopRunner(settings, periodSummingController(FaultPolicy.HOLD, 0.0), () -> 60.0,
                 () -> {
@@ -291,7 +291,7 @@ class LoopRunnerTest {
         runner.start();
         assertThat(runner.state()).isEqualTo(RunnerState.RUNNING);
         assertThatThrownBy(runner::start).isInstanceOf(IllegalStateException.class)
-                .hasMessage("a runner starts once; this one is RUNNING");
+                .hasMessage("the runner is running already; stop() it before starting it again");
         long deadline = System.nanoTime() + PATIENCE.toNanos();
         while (runner.tickCount() < 20 && System.nanoTime() < deadline) {
             Thread.sleep(5);
@@ -312,7 +312,7 @@ class LoopRunnerTest {
 
     @Test
     void stopWakesALoopParkedForALongPeriod() throws InterruptedException {
-        RunnerSettings settings = RunnerSettings.builder().periodNanos(60_000_000_000L)
+        RunnerSettings settings = RunnerSettings.builder()
                 .waitStrategy(WaitStrategy.PARK).daemon(true).build();
         PidController controller = new PidController(ControllerSettings.builder()
                 .gains(new ParallelGains(1.0, 0.0, 0.0)).samplePeriodSeconds(60.0).build());
@@ -330,26 +330,34 @@ class LoopRunnerTest {
     }
 
     @Test
-    void aRunnerStoppedBeforeStartingNeverStarts() {
+    void aRunnerStoppedBeforeStartingCanStillStart() throws InterruptedException {
+        TickRecorder ticks = new TickRecorder(5);
         LoopRunner runner = new LoopRunner(virtual(new VirtualClock(0)).build(),
-                periodSummingController(FaultPolicy.HOLD, 0.0), () -> 2.0, () -> 1.0, u -> { }, TimingListener.NONE);
+                periodSummingController(FaultPolicy.HOLD, 0.0), () -> 2.0, () -> 1.0, u -> { }, ticks);
+        ticks.runner = runner;
         assertThat(runner.stop()).isEqualTo(StopReason.STOP_REQUESTED);
         assertThat(runner.state()).isEqualTo(RunnerState.STOPPED);
-        assertThatThrownBy(runner::start).isInstanceOf(IllegalStateException.class)
-                .hasMessage("a runner starts once; this one is STOPPED");
+        runToEnd(runner);
+        assertThat(runner.tickCount()).isEqualTo(5);
     }
 
     @Test
-    void fixedPeriodModeRequiresTheControllersPeriod() {
-        RunnerSettings tenMillis = RunnerSettings.builder().periodNanos(10_000_000L).build();
-        PidController oneMilli = periodSummingController(FaultPolicy.HOLD, 0.0);
-        assertThatThrownBy(() -> new LoopRunner(tenMillis, oneMilli, () -> 2.0, () -> 1.0, u -> { },
-                TimingListener.NONE))
+    void theRunnerTicksAtTheControllersSamplePeriod() {
+        PidController tenMillis = new PidController(ControllerSettings.builder()
+                .gains(new ParallelGains(1.0, 0.0, 0.0)).samplePeriodSeconds(0.01).build());
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder().build(), tenMillis, () -> 2.0, () -> 1.0,
+                u -> { }, TimingListener.NONE);
+        assertThat(runner.periodNanos()).isEqualTo(10_000_000L);
+    }
+
+    @Test
+    void aPeriodShorterThanOneNanosecondIsRefused() {
+        PidController tooFast = new PidController(ControllerSettings.builder()
+                .gains(new ParallelGains(1.0, 0.0, 0.0)).samplePeriodSeconds(1e-10).build());
+        assertThatThrownBy(() -> new LoopRunner(RunnerSettings.builder().build(), tooFast, () -> 2.0, () -> 1.0,
+                u -> { }, TimingListener.NONE))
                 .isInstanceOf(InvalidSettingException.class)
-                .hasMessage("periodNanos must equal the controller's samplePeriodSeconds (0.001) in FIXED period mode:"
-                        + " periodNanos=10000000");
-        // measured-period mode gives the controller the real period, so any runner period goes
-        new LoopRunner(tenMillis.toBuilder().periodMode(PeriodMode.MEASURED).build(), oneMilli, () -> 2.0,
-                () -> 1.0, u -> { }, TimingListener.NONE);
+                .hasMessage("samplePeriodSeconds must be at least 1e-9 (one nanosecond) for the loop runner:"
+                        + " samplePeriodSeconds=1.0E-10");
     }
 }

@@ -66,7 +66,7 @@ class MonitoredRunnerTest {
                 .timeScaleSeconds(0.5).acceptableAmplitude(0.1).outputRange(0.0, 100.0).frozenSamples(100).build());
         Probe probe = new Probe();
         // a probe stuck at 20 while the setpoint is 60: the integral drives the output to its upper limit
-        LoopRunner runner = LoopRunner.monitored(RunnerSettings.builder().periodNanos(PERIOD)
+        LoopRunner runner = LoopRunner.monitored(RunnerSettings.builder()
                 .clock(new VirtualClock(3)).waitStrategy(WaitStrategy.PARK).daemon(true).build(),
                 controller, () -> 60.0, () -> 20.0, u -> { }, probe, monitor);
         probe.runner = runner;

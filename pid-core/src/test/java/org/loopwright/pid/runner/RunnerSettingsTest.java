@@ -15,21 +15,19 @@ import org.junit.jupiter.params.provider.MethodSource;
 class RunnerSettingsTest {
 
     private static RunnerSettings.Builder valid() {
-        return RunnerSettings.builder().periodNanos(1_000_000L);
+        return RunnerSettings.builder();
     }
 
     static Stream<Arguments> invalidSettings() {
         return Stream.of(
-                Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.periodNanos(0),
-                        "periodNanos must be > 0: periodNanos=0"),
-                Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.periodNanos(-5),
-                        "periodNanos must be > 0: periodNanos=-5"),
                 Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.waitStrategy(null),
                         "waitStrategy must be given: waitStrategy=null"),
                 Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.spinMarginNanos(-1),
-                        "spinMarginNanos must be between 0 and periodNanos (1000000): spinMarginNanos=-1"),
-                Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.spinMarginNanos(1_000_001),
-                        "spinMarginNanos must be between 0 and periodNanos (1000000): spinMarginNanos=1000001"),
+                        "spinMarginNanos must be >= 0: spinMarginNanos=-1"),
+                Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.commandCapacity(0),
+                        "commandCapacity must be between 1 and 1048576: commandCapacity=0"),
+                Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.commandCapacity(1_048_577),
+                        "commandCapacity must be between 1 and 1048576: commandCapacity=1048577"),
                 Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.overrunPolicy(null),
                         "overrunPolicy must be given: overrunPolicy=null"),
                 Arguments.of((UnaryOperator<RunnerSettings.Builder>) b -> b.periodMode(null),
@@ -55,7 +53,7 @@ class RunnerSettingsTest {
     @Test
     void defaultsAreDocumented() {
         RunnerSettings s = valid().build();
-        assertThat(s.waitStrategy()).isEqualTo(WaitStrategy.HYBRID);
+        assertThat(s.waitStrategy()).isEqualTo(WaitStrategy.PARK_THEN_SPIN);
         assertThat(s.spinMarginNanos()).isEqualTo(RunnerSettings.DEFAULT_SPIN_MARGIN_NANOS);
         assertThat(s.overrunPolicy()).isEqualTo(OverrunPolicy.SKIP_MISSED);
         assertThat(s.periodMode()).isEqualTo(PeriodMode.FIXED);
@@ -63,18 +61,13 @@ class RunnerSettingsTest {
         assertThat(s.threadName()).isEqualTo(RunnerSettings.DEFAULT_THREAD_NAME);
         assertThat(s.daemon()).isFalse();
         assertThat(s.clock()).isSameAs(LoopClock.SYSTEM);
-        assertThat(s.periodSeconds()).isEqualTo(1e-3);
-    }
-
-    @Test
-    void defaultSpinMarginNeverExceedsAShortPeriod() {
-        assertThat(RunnerSettings.builder().periodNanos(50_000).build().spinMarginNanos()).isEqualTo(50_000);
+        assertThat(s.commandCapacity()).isEqualTo(RunnerSettings.DEFAULT_COMMAND_CAPACITY);
     }
 
     @Test
     void toBuilderKeepsEverySetting() {
         VirtualClock clock = new VirtualClock(0);
-        RunnerSettings s = valid().waitStrategy(WaitStrategy.SPIN).spinMarginNanos(7).overrunPolicy(OverrunPolicy.RUN_LATE)
+        RunnerSettings s = valid().waitStrategy(WaitStrategy.SPIN).spinMarginNanos(7).commandCapacity(5).overrunPolicy(OverrunPolicy.RUN_LATE)
                 .periodMode(PeriodMode.MEASURED).maxConsecutiveFailures(3).threadName("pump").daemon(true)
                 .clock(clock).build();
         RunnerSettings copy = s.toBuilder().build();

@@ -29,9 +29,10 @@ public final class LoopwrightCommand implements Runnable {
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;
 
+    /** No command is a usage error: the usage goes to standard error and the exit code is 2. */
     @Override
     public void run() {
-        spec.commandLine().usage(spec.commandLine().getOut());
+        throw new CommandLine.ParameterException(spec.commandLine(), "a command is required");
     }
 
     /** A command line with this project's exit codes and error handling. */

@@ -28,18 +28,33 @@ public final class InputText {
             .setIgnoreEmptyLines(true)
             .get();
 
+    /** The largest input file read whole, in bytes (64 MiB): a bound on the memory a small command line can ask for. */
+    public static final long MAX_FILE_BYTES = 64L << 20;
+    /** The most characters in one CSV cell: a number needs fewer than 30, a word fewer than 20. */
+    public static final int MAX_CELL_CHARS = 1_000;
+    /** The most cells in one CSV row. */
+    public static final int MAX_CELLS_PER_ROW = 100;
+
     private InputText() {
     }
 
     /**
      * The whole file as UTF-8 text.
      *
-     * @throws InputFileException naming the file when it cannot be read
+     * @throws InputFileException naming the file when it cannot be read or is larger than {@link #MAX_FILE_BYTES}
      */
     public static String read(Path file) {
         try {
+            long size = Files.size(file);
+            if (size > MAX_FILE_BYTES) {
+                throw InputFileException.whole(file.toString(), "is " + size + " bytes; the limit for an input file is "
+                        + MAX_FILE_BYTES + " bytes");
+            }
             return Files.readString(file, StandardCharsets.UTF_8);
         } catch (IOException | RuntimeException e) {
+            if (e instanceof InputFileException known) {
+                throw known;
+            }
             throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
         }
     }
@@ -49,15 +64,19 @@ public final class InputText {
      *
      * @param fileName        how messages name the source
      * @param requiredColumns named in the message when there is no header row
-     * @throws InputFileException when the text is not valid CSV or has no header row
+     * @throws InputFileException when the text is not valid CSV, has no header row, or has a row of
+     *                            more than {@link #MAX_CELLS_PER_ROW} cells or a cell of more than
+     *                            {@link #MAX_CELL_CHARS} characters
      */
     public static List<List<String>> csvRows(String fileName, String text, List<String> requiredColumns) {
         List<List<String>> rows = new ArrayList<>();
         try (Reader reader = new StringReader(text);
              CSVParser parser = CSVParser.builder().setReader(reader).setFormat(CSV).get()) {
             for (CSVRecord record : parser) {
-                rows.add(record.toList());
+                rows.add(withinLimits(fileName, rows.size() + 1, record.toList()));
             }
+        } catch (InputFileException e) {
+            throw e;
         } catch (IOException | RuntimeException e) {
             throw InputFileException.whole(fileName, "not valid CSV (" + e.getMessage() + ")", e);
         }
@@ -66,5 +85,19 @@ public final class InputText {
                     + String.join(", ", requiredColumns));
         }
         return rows;
+    }
+
+    private static List<String> withinLimits(String fileName, long row, List<String> cells) {
+        if (cells.size() > MAX_CELLS_PER_ROW) {
+            throw InputFileException.whole(fileName, "row " + row + " has " + cells.size()
+                    + " cells; the limit is " + MAX_CELLS_PER_ROW);
+        }
+        for (int i = 0; i < cells.size(); i++) {
+            if (cells.get(i).length() > MAX_CELL_CHARS) {
+                throw InputFileException.whole(fileName, "row " + row + ", cell " + (i + 1) + " has "
+                        + cells.get(i).length() + " characters; the limit for a cell is " + MAX_CELL_CHARS);
+            }
+        }
+        return cells;
     }
 }

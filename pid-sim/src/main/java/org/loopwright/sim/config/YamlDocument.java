@@ -22,6 +22,7 @@ import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.MissingNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
+import com.fasterxml.jackson.dataformat.yaml.YAMLParser;
 
 /**
  * A YAML file read into a Jackson {@link JsonNode} tree, with the line and column of every node
@@ -40,6 +41,9 @@ import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
  * <p>Thread-safe: immutable after parsing.
  */
 public final class YamlDocument {
+
+    /** The most characters in a controller or scenario file (1 MiB): a few hundred lines are plenty. */
+    public static final int MAX_CHARS = 1 << 20;
 
     private static final YAMLFactory YAML = YAMLFactory.builder().build();
     private static final JsonNodeFactory NODES = JsonNodeFactory.instance;
@@ -71,10 +75,15 @@ public final class YamlDocument {
      *
      * @param fileName how messages name the source
      * @param text     the YAML text; an empty text is an empty mapping
-     * @throws InputFileException when the text is not valid YAML, holds more than one document or
-     *                            repeats a key in one mapping
+     * @throws InputFileException when the text is not valid YAML, holds more than one document,
+     *                            repeats a key in one mapping, uses an anchor or alias, or is longer
+     *                            than {@link #MAX_CHARS}
      */
     public static YamlDocument parse(String fileName, String text) {
+        if (text.length() > MAX_CHARS) {
+            throw InputFileException.whole(fileName, "has " + text.length()
+                    + " characters; the limit for a controller or scenario file is " + MAX_CHARS);
+        }
         Map<String, TextPosition> positions = new HashMap<>();
         Map<String, String> sourceText = new HashMap<>();
         try (JsonParser parser = YAML.createParser(new StringReader(text))) {
@@ -127,6 +136,11 @@ public final class YamlDocument {
                 case START_ARRAY:
                     return list(pointer);
                 default:
+                    if (parser instanceof YAMLParser yaml && yaml.isCurrentAlias()) {
+                        TextPosition at = positionOf(parser.currentTokenLocation());
+                        throw InputFileException.at(fileName, at.line(), at.column(), "YAML anchors and aliases are"
+                                + " not supported; write the value itself: *" + parser.getText());
+                    }
                     sourceText.put(pointer, parser.getText());
                     return scalar(token);
             }

@@ -18,12 +18,18 @@ import org.loopwright.pid.SettingChecks;
  *
  * @param noiseStdDev          the noise's standard deviation, &ge; 0, process units
  * @param quantisationStep     the resolution, &ge; 0 (0 for none), process units
- * @param delaySamples         the measurement delay in whole samples, &ge; 0
+ * @param delaySamples         the measurement delay in whole samples, 0 to {@link #MAX_DELAY_SAMPLES}
  * @param jitterSeconds        the largest delay of a sample instant, &ge; 0 and below the sample period
  * @param dropoutProbability   the chance that a sample is NaN, in [0, 1)
  */
 public record SensorModel(double noiseStdDev, double quantisationStep, int delaySamples, double jitterSeconds,
         double dropoutProbability) {
+
+    /**
+     * The longest measurement delay, in samples: the sampled-loop analysis carries one state per
+     * sample of delay, and a longer transport delay belongs in the plant's dead time, which is exact.
+     */
+    public static final int MAX_DELAY_SAMPLES = 100;
 
     /** The number of steps in the jitter grid. */
     public static final int JITTER_LEVELS = 16;
@@ -36,6 +42,10 @@ public record SensorModel(double noiseStdDev, double quantisationStep, int delay
         SettingChecks.nonNegative("noiseStdDev", noiseStdDev);
         SettingChecks.nonNegative("quantisationStep", quantisationStep);
         SettingChecks.atLeast("delaySamples", delaySamples, 0);
+        if (delaySamples > MAX_DELAY_SAMPLES) {
+            throw new InvalidSettingException("delaySamples", delaySamples, "must be <= " + MAX_DELAY_SAMPLES
+                    + " (a longer delay belongs in the plant's dead-time)");
+        }
         SettingChecks.nonNegative("jitterSeconds", jitterSeconds);
         if (!(dropoutProbability >= 0.0 && dropoutProbability < 1.0)) {
             throw new InvalidSettingException("dropoutProbability", dropoutProbability, "must be >= 0 and < 1");

@@ -14,6 +14,14 @@ public sealed interface PlantModel permits TransferFunction, DcMotorModel, Therm
     /** The model as a transfer function with dead time, when it is linear; empty for nonlinear plants. */
     Optional<TransferFunction> linear();
 
+    /**
+     * The longest integrator sub-step of a nonlinear plant, in seconds; infinite for a linear plant,
+     * which is stepped exactly in one piece.
+     */
+    default double integrationStepSeconds() {
+        return Double.POSITIVE_INFINITY;
+    }
+
     /** @return the kind of model, as a scenario file names it (any transfer function is {@link PlantType#TRANSFER_FUNCTION}) */
     PlantType type();
 }

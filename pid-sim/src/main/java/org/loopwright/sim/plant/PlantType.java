@@ -126,6 +126,19 @@ public enum PlantType {
      * @throws InputFileException naming the key, the value and what is allowed, at its line and column
      */
     public static PlantModel read(YamlDocument doc, String pointer) {
+        return read(mapping(doc, pointer));
+    }
+
+    /**
+     * The plant mapping at a pointer with the keys of its type, for reading it and for placing a
+     * check made later (the integration step against the sample period) at its key.
+     *
+     * @param doc     the document
+     * @param pointer the mapping's pointer
+     * @return the mapping
+     * @throws InputFileException when the plant or its type is missing or wrong, or a key does not belong to the type
+     */
+    public static FileMapping mapping(YamlDocument doc, String pointer) {
         if (!doc.has(pointer)) {
             throw doc.missing(pointer, "a plant mapping with a type: " + WORDS.describe());
         }
@@ -136,7 +149,18 @@ public enum PlantType {
         List<FileKey<?>> allowed = new ArrayList<>();
         allowed.add(TYPE);
         allowed.addAll(type.keys);
-        FileMapping plant = new FileMapping(doc, pointer, allowed, "for plant type " + type.word);
+        return new FileMapping(doc, pointer, allowed, "for plant type " + type.word);
+    }
+
+    /**
+     * Reads a plant mapping made by {@link #mapping}.
+     *
+     * @param plant the mapping
+     * @return the model
+     * @throws InputFileException naming the key, the value and what is allowed, at its line and column
+     */
+    public static PlantModel read(FileMapping plant) {
+        PlantType type = plant.get(TYPE);
         return plant.build(() -> type.make.apply(plant));
     }
 

@@ -8,7 +8,8 @@ import org.loopwright.pid.SettingChecks;
 
 /**
  * A rational transfer function with a dead time, G(s) = N(s)/D(s)·e^(−sL), coefficients in
- * descending powers of s. Proper (deg N &le; deg D), with a non-zero leading denominator coefficient.
+ * descending powers of s. Proper (deg N &le; deg D), with a non-zero leading denominator coefficient,
+ * and of order at most {@link #MAX_ORDER}.
  *
  * <p>Example: 1/(s+1)³ is {@code new TransferFunction(new double[] {1}, new double[] {1, 3, 3, 1}, 0)};
  * the factories build the common process models, for example {@code TransferFunction.fopdt(2.0, 30.0, 5.0)}
@@ -22,10 +23,20 @@ import org.loopwright.pid.SettingChecks;
 public record TransferFunction(double[] numerator, double[] denominator, double deadTimeSeconds)
         implements PlantModel {
 
+    /**
+     * The highest denominator order: the work of the exact discretisation and of the pole and margin
+     * analysis grows with the cube of the order, and process models of practice stay far below it.
+     */
+    public static final int MAX_ORDER = 20;
+
     /** Validates and copies the coefficients. */
     public TransferFunction {
         numerator = finiteCopy("numerator", numerator);
         denominator = finiteCopy("denominator", denominator);
+        if (denominator.length > MAX_ORDER + 1) {
+            throw new InvalidSettingException("denominator", "order " + (denominator.length - 1),
+                    "must be of order <= " + MAX_ORDER);
+        }
         if (denominator[0] == 0.0) {
             throw new InvalidSettingException("denominator", Arrays.toString(denominator),
                     "must have a non-zero leading coefficient");

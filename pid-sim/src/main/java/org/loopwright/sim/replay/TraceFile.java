@@ -44,7 +44,8 @@ public final class TraceFile {
     public static final Keywords<Mode> MODES = Keywords.of(entry("auto", Mode.AUTOMATIC), entry("manual", Mode.MANUAL),
             entry("track", Mode.TRACKING));
 
-    private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+    // possessive quantifiers: a long run of digits followed by a letter fails in linear time, with no backtracking
+    private static final Pattern DECIMAL = Pattern.compile("[+-]?+(\\d++\\.?+\\d*+|\\.\\d++)([eE][+-]?+\\d++)?+");
 
     /** What a numeric column allows besides finite numbers. */
     private enum CellRule {

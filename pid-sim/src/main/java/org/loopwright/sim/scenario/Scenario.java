@@ -36,6 +36,8 @@ public final class Scenario {
 
     /** The most samples a scenario may ask for (about 300 MB of trajectory). */
     public static final long MAX_SAMPLES = 5_000_000L;
+    /** The most integrator sub-steps a nonlinear plant may take per sample period. */
+    public static final long MAX_SUB_STEPS_PER_SAMPLE = 10_000L;
 
     private final ControllerSettings controller;
     private final OnOffSettings onOffController;
@@ -65,6 +67,11 @@ public final class Scenario {
         if (sensor.jitterSeconds() >= samplePeriodSeconds) {
             throw new InvalidSettingException("jitterSeconds", sensor.jitterSeconds(),
                     "must be < the sample period (" + samplePeriodSeconds + ")");
+        }
+        if (samplePeriodSeconds / plant.integrationStepSeconds() > MAX_SUB_STEPS_PER_SAMPLE) {
+            throw new InvalidSettingException("integrationStepSeconds", plant.integrationStepSeconds(),
+                    "must give at most " + MAX_SUB_STEPS_PER_SAMPLE + " sub-steps per sample at the sample period "
+                    + samplePeriodSeconds + " (>= " + samplePeriodSeconds / MAX_SUB_STEPS_PER_SAMPLE + ")");
         }
         if (sampleCount() > MAX_SAMPLES) {
             throw new InvalidSettingException("durationSeconds", durationSeconds, "must give at most "

@@ -192,7 +192,9 @@ public final class ScenarioFile {
             Scenario.Builder b = Scenario.builder();
             List<FileMapping> parts = new ArrayList<>(List.of(top));
             controller(top, b, parts);
-            b.plant(PlantType.read(doc, top.get(PLANT)));
+            FileMapping plant = PlantType.mapping(doc, top.get(PLANT));
+            parts.add(plant);
+            b.plant(PlantType.read(plant));
             top.find(SETPOINT).ifPresent(list -> {
                 for (String item : doc.items(list)) {
                     FileMapping change = new FileMapping(doc, item, List.of(AT, VALUE, RAMP), "");
@@ -222,7 +224,8 @@ public final class ScenarioFile {
             try {
                 return b.build();
             } catch (InvalidSettingException e) {
-                // checks across parts (duration and jitter against the sample period): at the key of the part
+                // checks across parts (duration, jitter and the integration step against the sample period):
+                // at the key of the part
                 FileMapping part = parts.stream().filter(m -> m.declares(e.field())).findFirst().orElse(top);
                 throw part.located(e);
             }

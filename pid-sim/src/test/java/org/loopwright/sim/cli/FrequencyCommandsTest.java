@@ -181,4 +181,12 @@ class FrequencyCommandsTest {
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
         assertThat(run.err().strip()).isEqualTo(message);
     }
+
+    @Test
+    void noCommandIsAUsageError() {
+        Run run = run();
+        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(run.err()).startsWith("a command is required").contains("Usage: loopwright");
+        assertThat(run.out()).isEmpty();
+    }
 }

@@ -99,7 +99,13 @@ class YamlDocumentTest {
         return Stream.of(
                 Arguments.of("a: 1\n---\nb: 2\n", "x.yaml:3:1: a second YAML document starts here; one document is allowed"),
                 Arguments.of("a: [1, 2\n", "x.yaml:1:9: not valid YAML: while parsing a flow sequence"),
-                Arguments.of("outer:\n  a: 1\n  a: 2\n", "x.yaml:3:3: duplicate key 'a' (first at line 2); each key may appear once"));
+                Arguments.of("outer:\n  a: 1\n  a: 2\n", "x.yaml:3:3: duplicate key 'a' (first at line 2); each key may appear once"),
+                Arguments.of("gain: &g 2.0\nintegral-time: *g\n",
+                        "x.yaml:2:16: YAML anchors and aliases are not supported; write the value itself: *g"),
+                Arguments.of("base: &b {gain: 2}\nplant: *b\n",
+                        "x.yaml:2:8: YAML anchors and aliases are not supported; write the value itself: *b"),
+                Arguments.of("# " + "x".repeat(YamlDocument.MAX_CHARS) + "\n",
+                        "x.yaml: has 1048579 characters; the limit for a controller or scenario file is 1048576"));
     }
 
     @ParameterizedTest

@@ -104,6 +104,8 @@ class NonIdealPartsTest {
                 Arguments.of((Runnable) () -> new SensorModel(-1, 0, 0, 0, 0),
                         "noiseStdDev must be finite and >= 0: noiseStdDev=-1.0"),
                 Arguments.of((Runnable) () -> new SensorModel(0, 0, -2, 0, 0), "delaySamples must be >= 0: delaySamples=-2"),
+                Arguments.of((Runnable) () -> new SensorModel(0, 0, 101, 0, 0),
+                        "delaySamples must be <= 100 (a longer delay belongs in the plant's dead-time): delaySamples=101"),
                 Arguments.of((Runnable) () -> new SensorModel(0, 0, 0, 0, 1.0),
                         "dropoutProbability must be >= 0 and < 1: dropoutProbability=1.0"));
     }

@@ -2,7 +2,9 @@ package org.loopwright.sim.replay;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.junit.jupiter.api.Assertions.assertTimeoutPreemptively;
 
+import java.time.Duration;
 import java.util.List;
 import java.util.stream.Stream;
 
@@ -98,6 +100,9 @@ class TraceFileTest {
                 Arguments.of("time,setpoint,measurement,manual_output\n0,1,2,inf\n",
                         "log.csv: row 2, column 'manual_output': must be a finite number, or blank or nan to keep the"
                                 + " last one: manual_output=inf"),
+                Arguments.of(header + "0,1," + "2".repeat(1001) + "\n",
+                        "log.csv: row 2, cell 3 has 1001 characters; the limit for a cell is 1000"),
+                Arguments.of(header + "0,1,2" + ",".repeat(100) + "\n", "log.csv: row 2 has 103 cells; the limit is 100"),
                 Arguments.of("time,setpoint,measurement,track_value\n0,1,2,high\n",
                         "log.csv: row 2, column 'track_value': must be a finite number, or blank or nan to keep the"
                                 + " last one: track_value=high"));
@@ -109,6 +114,20 @@ class TraceFileTest {
         assertThatThrownBy(() -> TraceFile.parse("log.csv", csv))
                 .isInstanceOf(InputFileException.class)
                 .hasMessage(message);
+    }
+
+    @Test
+    void aLongRunOfDigitsIsReadInLinearTime() {
+        // the number pattern once backtracked quadratically: 10^5 digits then a letter took 45 s (issue 11);
+        // with possessive quantifiers 10^6 digits take milliseconds, far inside this generous bound
+        String digits = "1".repeat(1_000_000);
+        assertTimeoutPreemptively(Duration.ofSeconds(5), () -> {
+            assertThat(TraceFile.parseNumber(digits + "x")).isNaN();
+            assertThat(TraceFile.parseNumber(digits + ".5e")).isNaN();
+            assertThat(TraceFile.parseNumber("12.5e-1")).isEqualTo(1.25);
+            assertThat(TraceFile.parseNumber(".5")).isEqualTo(0.5);
+            assertThat(TraceFile.parseNumber("-7.")).isEqualTo(-7.0);
+        });
     }
 
     @Test

@@ -153,6 +153,18 @@ class ScenarioFileTest {
                         "s.yaml:3:12: actuator.min must be <= max (max=1.0): actuator.min=5"),
                 Arguments.of(CONTROLLER + plant + "sensor: {delay-samples: 1.5}\nduration: 10\n",
                         "s.yaml:3:10: sensor.delay-samples must be a whole number >= 0 and <= 2147483647: sensor.delay-samples=1.5"),
+                // the limits of issue 11: bounded work and memory from a small file
+                Arguments.of(CONTROLLER + plant + "sensor: {delay-samples: 2147483647}\nduration: 10\n",
+                        "s.yaml:3:10: sensor.delay-samples must be <= 100 (a longer delay belongs in the plant's"
+                                + " dead-time): sensor.delay-samples=2147483647"),
+                Arguments.of(CONTROLLER + "plant: {type: thermal-zone, heat-capacity: 100, loss-coefficient: 1,"
+                        + " integration-step: 1e-12}\nduration: 10\n",
+                        "s.yaml:2:70: plant.integration-step must give at most 10000 sub-steps per sample at the sample"
+                                + " period 0.5 (>= 5.0E-5): plant.integration-step=1e-12"),
+                Arguments.of(CONTROLLER + "plant: {type: transfer-function, numerator: [1], denominator: ["
+                        + "1, ".repeat(21) + "1]}\nduration: 10\n",
+                        "s.yaml:2:50: plant.denominator must be of order <= 20: plant.denominator=["
+                                + "1, ".repeat(21) + "1]"),
                 Arguments.of(CONTROLLER + plant + "sensor: {jitter: 0.5}\nduration: 10\n",
                         "s.yaml:3:10: sensor.jitter must be < the sample period (0.5): sensor.jitter=0.5"),
                 Arguments.of(CONTROLLER + plant + "setpoint: [{at: -1, value: 3}]\nduration: 10\n",

@@ -1,0 +1,131 @@
+package org.loopwright.pid.runner;
+
+import org.loopwright.pid.Fault;
+import org.loopwright.pid.Mode;
+
+/**
+ * One consistent view of a running loop, as published after a tick: every figure in it belongs to
+ * the same tick. Filled by {@link LoopRunner#readStatus(LoopStatus)}, so a monitoring thread can keep
+ * one holder and refill it without allocating. Before the first tick every count is 0, the mode is
+ * the controller's, the fault {@link Fault#NONE} and the signals NaN.
+ *
+ * <p>Not thread-safe: one holder per reading thread.
+ */
+public final class LoopStatus {
+
+    long tickCount;
+    double setpoint = Double.NaN;
+    double measurement = Double.NaN;
+    double output = Double.NaN;
+    Mode mode = Mode.AUTOMATIC;
+    Fault fault = Fault.NONE;
+    long faultCount;
+    long overrunCount;
+    long skippedTickCount;
+    long failedTickCount;
+    int consecutiveFailures;
+    long lastPeriodErrorNanos;
+    long appliedCommandCount;
+    long rejectedCommandCount;
+
+    /** An empty holder, to be filled by {@link LoopRunner#readStatus(LoopStatus)}. */
+    public LoopStatus() {
+    }
+
+    void copyFrom(LoopStatus s) {
+        tickCount = s.tickCount;
+        setpoint = s.setpoint;
+        measurement = s.measurement;
+        output = s.output;
+        mode = s.mode;
+        fault = s.fault;
+        faultCount = s.faultCount;
+        overrunCount = s.overrunCount;
+        skippedTickCount = s.skippedTickCount;
+        failedTickCount = s.failedTickCount;
+        consecutiveFailures = s.consecutiveFailures;
+        lastPeriodErrorNanos = s.lastPeriodErrorNanos;
+        appliedCommandCount = s.appliedCommandCount;
+        rejectedCommandCount = s.rejectedCommandCount;
+    }
+
+    /** Ticks run since the runner was built (counting across restarts). */
+    public long tickCount() {
+        return tickCount;
+    }
+
+    /** The setpoint the last tick used (NaN when its source failed). */
+    public double setpoint() {
+        return setpoint;
+    }
+
+    /** The measurement the last tick read (NaN when the read failed). */
+    public double measurement() {
+        return measurement;
+    }
+
+    /** The output the last tick wrote. */
+    public double output() {
+        return output;
+    }
+
+    /** The controller's mode after the last tick. */
+    public Mode mode() {
+        return mode;
+    }
+
+    /** The controller's fault at the last tick ({@link Fault#NONE} for a good sample). */
+    public Fault fault() {
+        return fault;
+    }
+
+    /** Faulty samples the controller has counted. */
+    public long faultCount() {
+        return faultCount;
+    }
+
+    /** Ticks that ended after the next deadline. */
+    public long overrunCount() {
+        return overrunCount;
+    }
+
+    /** Deadlines dropped by {@link OverrunPolicy#SKIP_MISSED}. */
+    public long skippedTickCount() {
+        return skippedTickCount;
+    }
+
+    /** Ticks in which at least one callback failed. */
+    public long failedTickCount() {
+        return failedTickCount;
+    }
+
+    /** Failed ticks in a row up to the last tick (0 after a good tick). */
+    public int consecutiveFailures() {
+        return consecutiveFailures;
+    }
+
+    /**
+     * The last tick's start minus the previous tick's start, minus the period, in nanoseconds:
+     * positive when the tick came late relative to the one before; 0 at the first tick of a run.
+     */
+    public long lastPeriodErrorNanos() {
+        return lastPeriodErrorNanos;
+    }
+
+    /** Operator commands applied so far (the number of the last one applied). */
+    public long appliedCommandCount() {
+        return appliedCommandCount;
+    }
+
+    /** Operator commands that were taken but could not be applied (a restore that did not fit). */
+    public long rejectedCommandCount() {
+        return rejectedCommandCount;
+    }
+
+    @Override
+    public String toString() {
+        return "tick " + tickCount + ", output " + output + ", mode " + mode + ", fault " + fault + " (" + faultCount
+                + "), overruns " + overrunCount + ", skipped " + skippedTickCount + ", failed " + failedTickCount
+                + ", last period error " + lastPeriodErrorNanos + " ns, commands applied " + appliedCommandCount;
+    }
+}
