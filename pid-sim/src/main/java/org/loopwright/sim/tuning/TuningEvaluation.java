@@ -7,6 +7,8 @@ import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.tuning.FopdtModel;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
+import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.Scenario;
@@ -15,7 +17,7 @@ import org.loopwright.sim.simulate.Trajectory;
 
 /**
  * Turns a rule's gains into controller settings and checks them: margins and Ms of the continuous
- * loop (pid-sim's frequency analysis), and a unit setpoint step and a unit load step simulated in
+ * loop and of the sampled loop with its closed-loop poles (pid-sim's frequency analysis), and a unit setpoint step and a unit load step simulated in
  * closed loop on the model (or the scenario's own profile on its plant).
  *
  * <p>Choices of ours for a model K·e^(−sL)/(Ts + 1): sample period h = min(T, L)/20 (T/20 without
@@ -63,6 +65,7 @@ public final class TuningEvaluation {
         Trajectory setpointRun = Simulation.run(setpointStep);
         Trajectory loadRun = Simulation.run(Scenario.loadStep(plant, settings, 1.0, duration));
         return new TuningCandidate(tuning, settings, Optional.of(LoopAnalysis.continuous(plant, settings)),
+                sampledMargins(Optional.of(SampledLoop.of(plant, settings))),
                 Optional.of(ResponseMetrics.of(setpointStep, setpointRun)),
                 Optional.of(new TuningCandidate.LoadResponse(ResponseMetrics.loadIae(loadRun, 0.0),
                         ResponseMetrics.peakDeviation(loadRun, 0.0))));
@@ -83,12 +86,22 @@ public final class TuningEvaluation {
                         ResponseMetrics.peakDeviation(trajectory, loadAt)));
         return new TuningCandidate(tuning, settings,
                 run.linearPlant().map(plant -> LoopAnalysis.continuous(plant, settings)),
+                sampledMargins(run.sampledLoop()),
                 Optional.of(ResponseMetrics.of(run, trajectory)), load);
     }
 
     /** A rule's gains with no model to check them on (tuned from an ultimate point alone). */
     public static TuningCandidate withoutModel(TunedGains tuning, double samplePeriodSeconds) {
         return new TuningCandidate(tuning, settings(tuning, samplePeriodSeconds, Action.REVERSE), Optional.empty(),
-                Optional.empty(), Optional.empty());
+                Optional.empty(), Optional.empty(), Optional.empty());
+    }
+
+    /** The sampled loop's margins and poles; empty when there is no loop or it is beyond the analysis' limits. */
+    private static Optional<SampledMargins> sampledMargins(Optional<SampledLoop> loop) {
+        try {
+            return loop.map(LoopAnalysis::sampled);
+        } catch (IllegalArgumentException beyondLimits) {
+            return Optional.empty();
+        }
     }
 }
