@@ -1,5 +1,6 @@
 package org.loopwright.sim.tuning;
 
+import java.util.Locale;
 import java.util.Optional;
 
 import org.loopwright.pid.Action;
@@ -32,6 +33,12 @@ public final class TuningEvaluation {
     public static final double SAMPLES_PER_LAG = 20.0;
     /** Simulated time, in multiples of T + L. */
     public static final double RUN_LENGTH = 20.0;
+    /**
+     * The most samples a check by simulation may take: RUN_LENGTH·(T + L)/h = 400·(T + L)/min(T, L), so
+     * T and L may differ by a factor of about 2,500 at most; beyond, the work (and the memory of the
+     * trajectory) would grow without bound.
+     */
+    public static final long MAX_SAMPLES = 1_000_000L;
 
     private TuningEvaluation() {
     }
@@ -55,8 +62,22 @@ public final class TuningEvaluation {
                 .action(action).build();
     }
 
-    /** Checks a rule's gains on the model it was tuned for. */
+    /** The samples a check of settings on this model simulates, per run. */
+    public static double samplesFor(FopdtModel model) {
+        return RUN_LENGTH * (model.timeConstantSeconds() + model.deadTimeSeconds()) / samplePeriodSeconds(model);
+    }
+
+    /**
+     * Checks a rule's gains on the model it was tuned for.
+     *
+     * @throws IllegalArgumentException if the check would take more than {@link #MAX_SAMPLES} samples
+     */
     public static TuningCandidate onModel(TunedGains tuning, FopdtModel model) {
+        if (samplesFor(model) > MAX_SAMPLES) {
+            throw new IllegalArgumentException("the model's time constant and dead time are too far apart to check"
+                    + " by simulation (" + String.format(Locale.ROOT, "%.3g", samplesFor(model))
+                    + " samples; the limit is " + MAX_SAMPLES + ")");
+        }
         Action action = model.processGain() < 0.0 ? Action.DIRECT : Action.REVERSE;
         ControllerSettings settings = settings(tuning, samplePeriodSeconds(model), action);
         TransferFunction plant = transferFunction(model);
