@@ -85,6 +85,11 @@ public final class AutotuneCommand implements Callable<Integer> {
             throw new InputException("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
                     + relay.message(), null);
         }
+        if (relay.periodSetBySampling()) {
+            throw new InputException("relay experiment: ultimate gain Ku " + TuningReport.num(relay.ultimateGain())
+                    + ", ultimate period Pu " + TuningReport.num(relay.ultimatePeriodSeconds()) + " s; "
+                    + relay.warnings().get(0), null);
+        }
         UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
         ControllerSettings base = scenario.controller().orElseThrow();
         List<TuningCandidate> suggestions = new ArrayList<>();

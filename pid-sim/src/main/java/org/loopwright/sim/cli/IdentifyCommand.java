@@ -31,7 +31,9 @@ import picocli.CommandLine.Spec;
  * the file, row and column; data without a step says so).
  */
 @Command(name = "identify", mixinStandardHelpOptions = true,
-        description = "Fit a first- or second-order-plus-dead-time model to a step test (CSV: time,input,output).")
+        description = {"Fit a first- or second-order-plus-dead-time model to a step test (CSV: time,input,output).",
+                "The file is read a row at a time; a record longer than " + 2 * StepTestFile.FIT_ROWS + " rows is"
+                        + " thinned to every k-th row (k a power of two) and the output says so."})
 public final class IdentifyCommand implements Callable<Integer> {
 
     @Spec
@@ -66,8 +68,14 @@ public final class IdentifyCommand implements Callable<Integer> {
         IdentifiedModel fit = StepIdentification.identify(test, kind);
         Path plot = writePlot(test, fit, kind);
         if (json) {
-            out.println(Json.pretty(json(fit)));
+            ObjectNode node = json(fit);
+            node.put("rows_in_file", test.rowsInFile());
+            node.put("kept_every", test.keptEvery());
+            out.println(Json.pretty(node));
         } else {
+            if (test.keptEvery() > 1) {
+                out.println(thinningNote(test));
+            }
             printText(out, fit, plot);
         }
         out.flush();
@@ -81,6 +89,12 @@ public final class IdentifyCommand implements Callable<Integer> {
             stage.commit();
         }
         return outDirectory.resolve(name);
+    }
+
+    private static String thinningNote(StepTest test) {
+        return "Note: " + test.rowsInFile() + " rows are more than the fit takes (" + 2 * StepTestFile.FIT_ROWS
+                + "): fitted on every " + test.keptEvery() + "th row (" + test.length() + " rows), so times are"
+                + " resolved to " + test.keptEvery() + " sample periods";
     }
 
     private static ObjectNode json(IdentifiedModel fit) {

@@ -4,13 +4,16 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.frequency.GainCrossing;
+import org.loopwright.sim.frequency.GainRange;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.PhaseCrossing;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 
@@ -36,6 +39,9 @@ import picocli.CommandLine.Spec;
                 "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller."})
 public final class MarginsCommand implements Callable<Integer> {
 
+    /** What the robustness figures of an unstable loop are. */
+    private static final String NOT_MEANINGFUL = "not meaningful: the closed loop is unstable";
+
     /** The table lists this many phase crossovers at most (JSON lists them all). */
     private static final int LISTED_CROSSINGS = 6;
 
@@ -54,12 +60,30 @@ public final class MarginsCommand implements Callable<Integer> {
         LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "margins");
         ControllerSettings settings = loop.settings();
         StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
-        SampledMargins sampled = LoopAnalysis.sampled(loop.scenario().sampledLoop().orElseThrow());
+        SampledLoop sampledLoop = loop.scenario().sampledLoop().orElseThrow();
+        SampledMargins sampled = LoopAnalysis.sampled(sampledLoop);
+        Optional<GainRange> range = LoopAnalysis.stableGainRange(sampledLoop);
         if (json) {
             ObjectNode root = Json.object();
             root.set("continuous", margins(continuous));
             ObjectNode sampledNode = margins(sampled.margins());
             sampledNode.put("stable", sampled.stable());
+            sampledNode.put("sensor_delay_samples", sampledLoop.sensorDelaySamples());
+            if (!sampled.stable()) {
+                for (String key : List.of("ms", "ms_frequency", "mt", "mt_frequency", "delay_margin")) {
+                    sampledNode.putNull(key);
+                }
+                sampledNode.put("note", NOT_MEANINGFUL);
+            }
+            if (range.isPresent()) {
+                ObjectNode r = sampledNode.putObject("stable_gain_range");
+                Json.number(r, "low", range.get().low());
+                Json.number(r, "high", range.get().high());
+            } else {
+                sampledNode.putNull("stable_gain_range");
+            }
+            Json.number(sampledNode, "lower_gain_margin", sampled.stable() && range.isPresent()
+                    && range.get().low() > 0.0 ? range.get().low() : Double.NaN);
             Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
             sampledNode.put("sample_period", settings.samplePeriodSeconds());
             sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
@@ -69,7 +93,7 @@ public final class MarginsCommand implements Callable<Integer> {
             root.set("sampled", sampledNode);
             out.println(Json.pretty(root));
         } else {
-            table(out, settings, continuous, sampled);
+            table(out, sampledLoop, continuous, sampled, range);
         }
         out.flush();
         return 0;
@@ -106,13 +130,17 @@ public final class MarginsCommand implements Callable<Integer> {
         return node;
     }
 
-    private void table(PrintWriter out, ControllerSettings settings, StabilityMargins continuous,
-            SampledMargins sampled) {
+    private void table(PrintWriter out, SampledLoop loop, StabilityMargins continuous, SampledMargins sampled,
+            Optional<GainRange> range) {
+        ControllerSettings settings = loop.controller();
         StabilityMargins s = sampled.margins();
         out.println("Margins of " + scenarioFile + " (frequencies in rad/s)");
-        out.printf(Locale.ROOT, "sampled: h = %s s, integral %s, derivative %s%n", settings.samplePeriodSeconds(),
-                ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()),
-                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()));
+        out.printf(Locale.ROOT, "sampled: h = %s s, integral %s, derivative %s, sensor delay %d samples%n",
+                settings.samplePeriodSeconds(), ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()),
+                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()), loop.sensorDelaySamples());
+        if (loop.sensorDelaySamples() > 0) {
+            out.println("continuous: the design, without the sensor's delay (it exists only in the sampled loop)");
+        }
         row(out, "", "continuous", "sampled");
         row(out, "gain margin", gainMargin(continuous), gainMargin(s));
         row(out, "phase crossover", frequency(continuous.phaseCrossover().map(PhaseCrossing::frequencyRadPerSecond)
@@ -122,15 +150,28 @@ public final class MarginsCommand implements Callable<Integer> {
         row(out, "gain crossover", frequency(continuous.gainCrossover().map(GainCrossing::frequencyRadPerSecond)
                 .orElse(Double.NaN)), frequency(s.gainCrossover().map(GainCrossing::frequencyRadPerSecond)
                 .orElse(Double.NaN)));
+        boolean stable = sampled.stable();
         row(out, "Ms", peak(continuous.sensitivityPeak().value(), continuous.sensitivityPeak().frequencyRadPerSecond()),
-                peak(s.sensitivityPeak().value(), s.sensitivityPeak().frequencyRadPerSecond()));
+                stable ? peak(s.sensitivityPeak().value(), s.sensitivityPeak().frequencyRadPerSecond())
+                        : NOT_MEANINGFUL);
         row(out, "Mt", peak(continuous.complementaryPeak().value(),
                 continuous.complementaryPeak().frequencyRadPerSecond()),
-                peak(s.complementaryPeak().value(), s.complementaryPeak().frequencyRadPerSecond()));
+                stable ? peak(s.complementaryPeak().value(), s.complementaryPeak().frequencyRadPerSecond())
+                        : NOT_MEANINGFUL);
         row(out, "delay margin", seconds(continuous.delayMarginSeconds().orElse(Double.NaN)),
-                seconds(s.delayMarginSeconds().orElse(Double.NaN)));
+                stable ? seconds(s.delayMarginSeconds().orElse(Double.NaN)) : NOT_MEANINGFUL);
         row(out, "closed-loop poles", "-", String.format(Locale.ROOT, "%s (largest |z| = %.6f)",
-                sampled.stable() ? "stable" : "UNSTABLE", sampled.largestPoleMagnitude()));
+                stable ? "stable" : "UNSTABLE", sampled.largestPoleMagnitude()));
+        row(out, "stable gain range", "-", range.map(r -> String.format(Locale.ROOT, "%s < k < %s times the loop gain%s",
+                r.low() == 0.0 ? "0" : String.format(Locale.ROOT, "%.4g", r.low()),
+                Double.isInfinite(r.high()) ? "inf" : String.format(Locale.ROOT, "%.4g", r.high()),
+                stable && r.low() > 0.0 ? " (lower gain margin " + String.format(Locale.ROOT, "%.4g", r.low()) + ")"
+                        : "")).orElse("none found for 1e-4 < k < 1e4 (or the loop's order is above "
+                                + LoopAnalysis.MAX_GAIN_RANGE_ORDER + ")"));
+        if (!stable) {
+            out.println("UNSTABLE: the sampled closed loop has a pole outside the unit circle; its margins, Ms, Mt"
+                    + " and delay margin say nothing about robustness.");
+        }
         crossings(out, "continuous", continuous);
         crossings(out, "sampled", s);
     }

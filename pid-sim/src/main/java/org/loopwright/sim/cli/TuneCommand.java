@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
@@ -122,6 +123,13 @@ public final class TuneCommand implements Callable<Integer> {
             point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
         } catch (InvalidSettingException e) {
             throw bad(inOptionTerms(e));
+        }
+        if (fromModel && TuningEvaluation.samplesFor(model) > TuningEvaluation.MAX_SAMPLES) {
+            throw bad(String.format(Locale.ROOT, "--time-constant and --dead-time must be within a factor of about"
+                    + " 2500 of each other: checking the settings would simulate %.3g samples a run, the limit is %d"
+                    + " (period min(T, L)/20 over %s·(T + L)): --time-constant=%s, --dead-time=%s",
+                    TuningEvaluation.samplesFor(model), TuningEvaluation.MAX_SAMPLES,
+                    (long) TuningEvaluation.RUN_LENGTH, timeConstant, deadTime));
         }
         for (TuningRule r : rules) {
             TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);

@@ -60,6 +60,33 @@ public final class InputText {
     }
 
     /**
+     * A reader of the file's UTF-8 text, for reading a large file a row at a time.
+     *
+     * @throws InputFileException naming the file when it cannot be opened
+     */
+    public static Reader open(Path file) {
+        try {
+            return Files.newBufferedReader(file, StandardCharsets.UTF_8);
+        } catch (IOException | RuntimeException e) {
+            throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
+        }
+    }
+
+    /**
+     * A parser of CSV text in the harness's one dialect, reading rows as they are asked for.
+     *
+     * @param fileName how messages name the source
+     * @throws InputFileException when the text cannot be read
+     */
+    public static CSVParser csvParser(String fileName, Reader reader) {
+        try {
+            return CSVParser.builder().setReader(reader).setFormat(CSV).get();
+        } catch (IOException | RuntimeException e) {
+            throw InputFileException.whole(fileName, "cannot be read (" + IoWords.of(e) + ")", e);
+        }
+    }
+
+    /**
      * The rows of a CSV text, the header first.
      *
      * @param fileName        how messages name the source

@@ -3,6 +3,7 @@ package org.loopwright.sim.frequency;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 
 import org.hipparchus.complex.Complex;
 import org.loopwright.pid.ControllerSettings;
@@ -43,6 +44,8 @@ public final class LoopAnalysis {
     /** The band ends where |L| has fallen below this (a phase crossover there has a gain margin above 60 dB). */
     private static final double NEGLIGIBLE_LOOP_GAIN = 1e-3;
     private static final int POINTS_PER_DECADE = 200;
+    /** The largest closed-loop order whose stabilising gain range is searched (about 160 pole computations). */
+    public static final int MAX_GAIN_RANGE_ORDER = 200;
 
     private LoopAnalysis() {
     }
@@ -62,6 +65,77 @@ public final class LoopAnalysis {
         PulseTransferFunction pulse = sampledLoop(loop);
         StabilityMargins margins = MarginSearch.search(pulse, sampledBand(loop, pulse));
         return new SampledMargins(margins, closedLoopPoles(pulse));
+    }
+
+    /**
+     * The range of loop-gain factors k over which the sampled closed loop is stable, from the
+     * closed-loop poles of A(z)·z^d + k·B(z): the interval around k = 1 when the loop is stable, else the
+     * stabilising interval nearest to it; empty when no factor in [10⁻⁴, 10⁴] stabilises the loop, or the
+     * loop's order exceeds {@value #MAX_GAIN_RANGE_ORDER} (each trial costs a pole computation). The ends
+     * are found on a grid of ten factors a decade and refined by bisection to 10⁻⁹ relative.
+     */
+    public static Optional<GainRange> stableGainRange(SampledLoop loop) {
+        PulseTransferFunction pulse = sampledLoop(loop);
+        if (pulse.closedLoopCharacteristic().degree() > MAX_GAIN_RANGE_ORDER) {
+            return Optional.empty();
+        }
+        int decades = 4;
+        int perDecade = 10;
+        int n = 2 * decades * perDecade + 1;
+        double[] factor = new double[n];
+        boolean[] stable = new boolean[n];
+        int nominal = decades * perDecade;
+        for (int i = 0; i < n; i++) {
+            factor[i] = Math.pow(10.0, (double) (i - nominal) / perDecade);
+            stable[i] = stableAt(pulse, factor[i]);
+        }
+        int centre = -1;
+        for (int distance = 0; distance <= nominal && centre < 0; distance++) {
+            if (stable[nominal - distance]) {
+                centre = nominal - distance;
+            } else if (stable[nominal + distance]) {
+                centre = nominal + distance;
+            }
+        }
+        if (centre < 0) {
+            return Optional.empty();
+        }
+        int first = centre;
+        while (first > 0 && stable[first - 1]) {
+            first--;
+        }
+        int last = centre;
+        while (last + 1 < n && stable[last + 1]) {
+            last++;
+        }
+        double low = first == 0 ? 0.0 : boundary(pulse, factor[first - 1], factor[first]);
+        double high = last == n - 1 ? Double.POSITIVE_INFINITY : boundary(pulse, factor[last], factor[last + 1]);
+        return Optional.of(new GainRange(low, high));
+    }
+
+    /** The stability boundary between two factors of which exactly one is stable, by bisection. */
+    private static double boundary(PulseTransferFunction pulse, double a, double b) {
+        boolean stableAtA = stableAt(pulse, a);
+        double lo = a;
+        double hi = b;
+        while (hi - lo > 1e-9 * hi) {
+            double mid = Math.sqrt(lo * hi);
+            if (stableAt(pulse, mid) == stableAtA) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return 0.5 * (lo + hi);
+    }
+
+    private static boolean stableAt(PulseTransferFunction pulse, double factor) {
+        for (Complex pole : closedLoopPoles(pulse.times(factor))) {
+            if (pole.norm() >= 1.0) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /** The continuous loop σ·C(jω)·P(jω). */

@@ -9,6 +9,7 @@ import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.form.ParallelGains;
 import org.loopwright.pid.form.SeriesGains;
 import org.loopwright.pid.tuning.TunedGains;
+import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 
@@ -20,19 +21,36 @@ import org.loopwright.sim.metrics.ResponseMetrics;
  * @param tuning            the rule's result
  * @param settings          controller settings carrying the gains (ideal form)
  * @param margins           margins and Ms of the continuous loop on the model
+ * @param sampled           margins and closed-loop poles of the sampled loop (the period, methods and sensor
+ *                          delay the settings will run with), when a linear plant and a period are known
  * @param setpointResponse  figures of a unit setpoint step
  * @param loadResponse      figures of a unit load step at the plant input (IAE, peak deviation)
  */
 public record TuningCandidate(TunedGains tuning, ControllerSettings settings, Optional<StabilityMargins> margins,
-                              Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
+                              Optional<SampledMargins> sampled, Optional<ResponseMetrics> setpointResponse,
+                              Optional<LoadResponse> loadResponse) {
 
     /** Checks that nothing is null. */
     public TuningCandidate {
         Objects.requireNonNull(tuning, "tuning");
         Objects.requireNonNull(settings, "settings");
         Objects.requireNonNull(margins, "margins");
+        Objects.requireNonNull(sampled, "sampled");
         Objects.requireNonNull(setpointResponse, "setpointResponse");
         Objects.requireNonNull(loadResponse, "loadResponse");
+    }
+
+    /**
+     * Whether the sampled closed loop is stable (every pole inside the unit circle); empty when there
+     * is no sampled loop to judge. An unstable candidate must never be offered as a choice.
+     */
+    public Optional<Boolean> stable() {
+        return sampled.map(SampledMargins::stable);
+    }
+
+    /** The margins to show: the sampled loop's when known, else the continuous loop's. */
+    public Optional<StabilityMargins> shownMargins() {
+        return sampled.map(SampledMargins::margins).or(() -> margins);
     }
 
     /** The gains in ideal form. */

@@ -92,4 +92,14 @@ class InputErrorsTest {
         String csv = Files.readString(dir.resolve("out/trajectory.csv"));
         assertThat(csv).doesNotContain("Infinity", "NaN", "E307");
     }
+
+    @Test
+    void aModelWhoseCheckWouldNotFitTheWorkLimitIsRefusedAtOnce() {
+        // T = 1e-300 s beside L = 1 s: the check at h = T/20 over 20·(T + L) would be 4e302 samples a run
+        CommandRun run = CommandRun.of("tune", "--process-gain", "1e300", "--time-constant", "1e-300",
+                "--dead-time", "1");
+        assertThat(run.exitCode()).isEqualTo(2);
+        assertThat(run.err()).startsWith("--time-constant and --dead-time must be within a factor of about 2500")
+                .contains("the limit is 1000000").doesNotContain("Exception");
+    }
 }

@@ -77,7 +77,7 @@ class ReplayCommandTest {
             assertThat(row[8]).isEqualTo("normal");
         }
         assertThat(out.toString()).isEqualTo("Replayed " + trace + " through " + controller + " (fixed period 0.5 s)\n"
-                + "Rows: 4, 2.000 s\n"
+                + "Rows: 4, spanning 1.500 s (first to last time)\n"
                 + "Faults: none\n"
                 + "Output: min 2.000, max 2.300, mean 2.150\n"
                 + "Time in saturation: none possible (no output limits)\n"

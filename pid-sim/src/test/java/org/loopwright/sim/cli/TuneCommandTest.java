@@ -42,9 +42,15 @@ class TuneCommandTest {
         assertThat(node.get("parallel").get("integral_gain").asDouble()).isCloseTo(0.25, within(1e-12));
         assertThat(node.get("parallel").get("derivative_gain").asDouble()).isZero();
         assertThat(node.get("series").get("gain").asDouble()).isCloseTo(1.25, within(1e-12));
-        assertThat(node.get("gain_margin").asDouble()).isCloseTo(Math.PI, within(1e-3));
-        assertThat(node.get("phase_margin_deg").asDouble()).isCloseTo(90.0 - Math.toDegrees(0.5), within(1e-2));
-        assertThat(node.get("ms").asDouble()).isCloseTo(1.59, within(0.01));
+        JsonNode continuous = node.get("continuous");
+        assertThat(continuous.get("gain_margin").asDouble()).isCloseTo(Math.PI, within(1e-3));
+        assertThat(continuous.get("phase_margin_deg").asDouble()).isCloseTo(90.0 - Math.toDegrees(0.5), within(1e-2));
+        assertThat(continuous.get("ms").asDouble()).isCloseTo(1.59, within(0.01));
+        // the top-level margins are the sampled loop's (h = min(T, L)/20 = 0.05 s): the hold acts about as a
+        // delay of h/2 (Åström & Wittenmark, ch. 7), so the gain margin is about π·L/(L + h/2) = 3.06
+        assertThat(node.get("margins_of").asText()).isEqualTo("sampled");
+        assertThat(node.get("stable").asBoolean()).isTrue();
+        assertThat(node.get("gain_margin").asDouble()).isCloseTo(Math.PI / 1.025, within(0.01));
         assertThat(node.get("citation").asText()).contains("Skogestad").contains("2003");
         assertThat(node.get("setpoint_step").get("overshoot_percent").isNumber()).isTrue();
         assertThat(node.get("load_step").get("iae").asDouble()).isPositive();
