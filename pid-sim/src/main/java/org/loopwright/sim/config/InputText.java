@@ -114,7 +114,14 @@ public final class InputText {
         return rows;
     }
 
-    private static List<String> withinLimits(String fileName, long row, List<String> cells) {
+    /**
+     * The cells of a CSV row, checked against {@link #MAX_CELLS_PER_ROW} and {@link #MAX_CELL_CHARS}
+     * (for readers that take a file a row at a time).
+     *
+     * @param row the row's number, the header being row 1
+     * @throws InputFileException naming the row when a limit is passed
+     */
+    public static List<String> withinLimits(String fileName, long row, List<String> cells) {
         if (cells.size() > MAX_CELLS_PER_ROW) {
             throw InputFileException.whole(fileName, "row " + row + " has " + cells.size()
                     + " cells; the limit is " + MAX_CELLS_PER_ROW);

@@ -31,7 +31,7 @@ public final class StepTestFile {
      * A record is fitted on at most twice this many rows: a longer one is thinned as it is read (the
      * fit's work and memory stay bounded; the timing resolution becomes the stride times the period).
      */
-    public static final int FIT_ROWS = 100_000;
+    public static final int FIT_ROWS = 10_000;
     /** Fewest data rows that can show a step and a response. */
     public static final int MIN_ROWS = 10;
 
@@ -70,7 +70,7 @@ public final class StepTestFile {
                 throw InputFileException.whole(fileName, "has no header row; required columns: "
                         + String.join(", ", COLUMNS));
             }
-            List<String> header = records.next().toList();
+            List<String> header = InputText.withinLimits(fileName, 1, records.next().toList());
             int[] index = new int[COLUMNS.size()];
             for (int c = 0; c < index.length; c++) {
                 index[c] = header.indexOf(COLUMNS.get(c));
@@ -87,6 +87,7 @@ public final class StepTestFile {
             while (records.hasNext()) {
                 CSVRecord row = records.next();
                 long number = row.getRecordNumber();
+                InputText.withinLimits(fileName, number, row.toList());
                 for (int c = 0; c < index.length; c++) {
                     String name = COLUMNS.get(c);
                     if (index[c] >= row.size()) {

@@ -44,7 +44,7 @@ public final class TraceReader implements Closeable {
             throw InputFileException.whole(fileName, "has no header row; required columns: "
                     + String.join(", ", TraceFile.REQUIRED_COLUMNS));
         }
-        this.header = List.copyOf(records.next().toList());
+        this.header = List.copyOf(InputText.withinLimits(fileName, 1, records.next().toList()));
         checkHeader();
         time = header.indexOf("time");
         setpoint = header.indexOf("setpoint");
@@ -112,6 +112,7 @@ public final class TraceReader implements Closeable {
         }
         CSVRecord record = nextRecord();
         long number = record.getRecordNumber();
+        InputText.withinLimits(fileName, number, record.toList());
         if (record.size() != header.size()) {
             String column = record.size() < header.size() ? header.get(record.size()) : "#" + (header.size() + 1);
             throw InputFileException.inRow(fileName, number, column, "the row has " + record.size()
