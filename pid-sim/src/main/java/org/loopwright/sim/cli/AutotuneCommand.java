@@ -1,5 +1,6 @@
 package org.loopwright.sim.cli;
 
+import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -18,6 +19,7 @@ import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.pid.tuning.UltimatePoint;
+import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
@@ -66,12 +68,28 @@ public final class AutotuneCommand implements Callable<Integer> {
             description = "Abort when the process variable leaves setpoint +/- BAND (default: 25 %% of the setpoint, or 1 at setpoint 0).")
     private Double excursionLimit;
 
+    @Option(names = "--write-controller", paramLabel = "FILE.yaml",
+            description = "Write one suggestion as a controller file: the scenario's controller with its gains"
+                    + " (choose it with --rule and --type).")
+    private Path controllerOut;
+
+    @Option(names = "--rule", paramLabel = "R", defaultValue = "tyreus-luyben",
+            description = "The suggestion --write-controller writes: tyreus-luyben or ziegler-nichols"
+                    + " (default: ${DEFAULT-VALUE}, the better damped of the two).")
+    private String rule;
+
+    @Option(names = "--type", paramLabel = "pi|pid", defaultValue = "pi",
+            description = "PI or PID for --write-controller (default: ${DEFAULT-VALUE}).")
+    private String type;
+
     @Option(names = "--json", description = "Print JSON instead of text.")
     private boolean json;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
+        TuningRule written = TuneCommand.parseRule(rule, false);
+        ControllerType writtenType = TuneCommand.parseType(type);
         Scenario scenario = ScenarioFile.read(scenarioFile);
         RelaySimulation.Outcome relay;
         try {
@@ -93,13 +111,22 @@ public final class AutotuneCommand implements Callable<Integer> {
         UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
         ControllerSettings base = scenario.controller().orElseThrow();
         List<TuningCandidate> suggestions = new ArrayList<>();
-        for (ControllerType type : ControllerType.values()) {
-            for (TuningRule rule : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
-                TuningResult result = rule.tune(point, type);
+        for (ControllerType t : ControllerType.values()) {
+            for (TuningRule r : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
+                TuningResult result = r.tune(point, t);
                 if (result instanceof TunedGains tuned) {
                     suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
                 }
             }
+        }
+        TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
+                && c.tuning().type() == writtenType).findFirst().orElseThrow();
+        if (controllerOut != null) {
+            if (chosen.stable().orElse(true) == Boolean.FALSE) {
+                throw new InputException("--write-controller: " + written.label() + " (" + writtenType.name()
+                        .toLowerCase(Locale.ROOT) + ") makes the sampled loop UNSTABLE; no file written", null);
+            }
+            TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
         }
         if (json) {
             ObjectNode node = Json.object();
@@ -117,6 +144,10 @@ public final class AutotuneCommand implements Callable<Integer> {
         } else {
             RelaySimulationText.print(out, relay);
             TuningReport.printTable(out, suggestions, List.of());
+            if (controllerOut != null) {
+                out.println("Wrote " + controllerOut + " (" + written.label() + ", "
+                        + writtenType.name().toLowerCase(Locale.ROOT) + ")");
+            }
         }
         out.flush();
         return 0;

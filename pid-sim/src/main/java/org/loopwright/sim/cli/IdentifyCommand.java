@@ -2,6 +2,7 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
@@ -17,6 +18,7 @@ import org.loopwright.sim.identify.ModelKind;
 import org.loopwright.sim.identify.StepIdentification;
 import org.loopwright.sim.identify.StepTest;
 import org.loopwright.sim.identify.StepTestFile;
+import org.loopwright.sim.scenario.PlantBlock;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -50,6 +52,10 @@ public final class IdentifyCommand implements Callable<Integer> {
             description = "Where to write the plot identify-<model>.png (default: the current directory).")
     private Path outDirectory;
 
+    @Option(names = "--write-plant", paramLabel = "FILE.yaml",
+            description = "Write the fitted model as a plant: block of the scenario format (design --plant reads it).")
+    private Path plantOut;
+
     @Option(names = "--json", description = "Print JSON instead of text.")
     private boolean json;
 
@@ -67,6 +73,9 @@ public final class IdentifyCommand implements Callable<Integer> {
         StepTest test = StepTestFile.read(file);
         IdentifiedModel fit = StepIdentification.identify(test, kind);
         Path plot = writePlot(test, fit, kind);
+        if (plantOut != null) {
+            writePlant(fit);
+        }
         if (json) {
             ObjectNode node = json(fit);
             node.put("rows_in_file", test.rowsInFile());
@@ -77,6 +86,9 @@ public final class IdentifyCommand implements Callable<Integer> {
                 out.println(thinningNote(test));
             }
             printText(out, fit, plot);
+            if (plantOut != null) {
+                out.println("Wrote " + plantOut);
+            }
         }
         out.flush();
         return 0;
@@ -95,6 +107,17 @@ public final class IdentifyCommand implements Callable<Integer> {
         return "Note: " + test.rowsInFile() + " rows are more than the fit takes (" + 2 * StepTestFile.FIT_ROWS
                 + "): fitted on every " + test.keptEvery() + "th row (" + test.length() + " rows), so times are"
                 + " resolved to " + test.keptEvery() + " sample periods";
+    }
+
+    private void writePlant(IdentifiedModel fit) throws IOException {
+        String text = String.format(Locale.ROOT, "# %s fitted by identify to %s: RMSE %.4g, R² %.5f%n", fit.kind().label(),
+                file.getFileName(), fit.rmse(), fit.rSquared()) + PlantBlock.yaml(fit.processModel());
+        Path absolute = plantOut.toAbsolutePath();
+        try (OutputStage stage = OutputStage.in(absolute.getParent(), "--write-plant")) {
+            Files.writeString(stage.directory().resolve(absolute.getFileName().toString()), text,
+                    StandardCharsets.UTF_8);
+            stage.commit();
+        }
     }
 
     private static ObjectNode json(IdentifiedModel fit) {

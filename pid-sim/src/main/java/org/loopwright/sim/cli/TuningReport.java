@@ -47,13 +47,11 @@ final class TuningReport {
         } else {
             StabilityMargins m = c.margins().get();
             out.println("  margins:  phase margin " + num(phaseMargin(m)) + " deg, gain margin " + num(gainMargin(m))
-                    + ", Ms " + num(m.sensitivityPeak().value()) + " (continuous loop on the model)");
+                    + ", Ms " + num(m.sensitivityPeak().value()) + " (" + loopKind(c) + " on the model)");
         }
         c.sampled().ifPresent(sm -> out.println(sm.stable()
-                ? "  sampled:  phase margin " + num(phaseMargin(sm.margins())) + " deg, gain margin "
-                        + num(gainMargin(sm.margins())) + ", Ms " + num(sm.margins().sensitivityPeak().value())
-                        + " (sampled loop at h = " + num(c.settings().samplePeriodSeconds()) + " s, stable)"
-                : "  sampled:  UNSTABLE at h = " + num(c.settings().samplePeriodSeconds()) + " s (a closed-loop pole"
+                ? "  sampled loop: stable (closed-loop poles at h = " + num(c.settings().samplePeriodSeconds()) + " s)"
+                : "  sampled loop: UNSTABLE at h = " + num(c.settings().samplePeriodSeconds()) + " s (a closed-loop pole"
                         + " at |z| = " + num(sm.largestPoleMagnitude()) + "): do not use these settings"));
         c.setpointResponse().ifPresent(r -> out.println("  setpoint step: rise time " + num(r.riseTimeSeconds())
                 + " s, settling time " + num(r.settlingTimeSeconds()) + " s, overshoot " + num(r.overshootPercent())
@@ -64,16 +62,13 @@ final class TuningReport {
 
     /** Every candidate in one table, then the rules that do not apply and why. */
     static void printTable(PrintWriter out, List<TuningCandidate> candidates, List<RuleNotApplicable> skipped) {
-        boolean sampled = candidates.stream().anyMatch(c -> c.sampled().isPresent());
-        out.println(sampled ? "Margins of the sampled loop (the settings' period and methods, zero-order hold, sensor"
-                + " delay included); stable: from its closed-loop poles."
-                : "Margins of the continuous loop (no sample period to judge the sampled loop with).");
-        String format = "%-16s %-4s %10s %10s %10s %8s %8s %6s %-8s %10s %10s %10s%n";
-        out.printf(Locale.ROOT, format, "rule", "type", "gain", "Ti [s]", "Td [s]", "PM [deg]", "GM", "Ms", "stable",
-                "overshoot%", "settle [s]", "load IAE");
+        String format = "%-16s %-4s %10s %10s %10s %12s %9s %9s %-8s %10s %10s %10s%n";
+        String loop = candidates.stream().anyMatch(TuningCandidate::sampledMargins) ? "sampled " : "cont. ";
+        out.printf(Locale.ROOT, format, "rule", "type", "gain", "Ti [s]", "Td [s]", loop + "PM", loop + "GM",
+                loop + "Ms", "stable", "overshoot%", "settle [s]", "load IAE");
         for (TuningCandidate c : candidates) {
             IdealGains i = c.ideal();
-            Optional<StabilityMargins> m = c.shownMargins();
+            Optional<StabilityMargins> m = c.margins();
             Optional<ResponseMetrics> r = c.setpointResponse();
             out.printf(Locale.ROOT, format, c.tuning().rule().label(),
                     c.tuning().type().name().toLowerCase(Locale.ROOT), num(i.gain()), num(i.integralTime()),
@@ -97,6 +92,14 @@ final class TuningReport {
                     + (c.tuning().note().isEmpty() ? "" : "; " + c.tuning().note()));
         }
         cited.forEach(out::println);
+        candidates.stream().findFirst().ifPresent(c -> out.println("margins (PM in degrees): of the " + loopKind(c)
+                + (c.sampledMargins() ? "" : "; give --sample-period for the sampled loop")));
+    }
+
+    /** Which loop a candidate's margins belong to, in words. */
+    static String loopKind(TuningCandidate c) {
+        return c.sampledMargins() ? "loop sampled at h = " + num(c.settings().samplePeriodSeconds()) + " s"
+                : "continuous design";
     }
 
     /** The JSON object of one candidate. */
@@ -125,8 +128,8 @@ final class TuningReport {
         } else {
             node.putNull("series");
         }
-        Optional<StabilityMargins> m = c.shownMargins();
-        node.put("margins_of", c.sampled().isPresent() ? "sampled" : c.margins().isPresent() ? "continuous" : null);
+        Optional<StabilityMargins> m = c.margins();
+        node.put("margins_of", m.isEmpty() ? null : c.sampledMargins() ? "sampled" : "continuous");
         Json.number(node, "phase_margin_deg", m.map(TuningReport::phaseMargin).orElse(Double.NaN));
         Json.number(node, "gain_margin", m.map(TuningReport::gainMargin).orElse(Double.NaN));
         Json.number(node, "ms", m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));
@@ -135,11 +138,6 @@ final class TuningReport {
         } else {
             node.putNull("stable");
         }
-        Optional<StabilityMargins> continuous = c.margins();
-        ObjectNode cont = node.putObject("continuous");
-        Json.number(cont, "phase_margin_deg", continuous.map(TuningReport::phaseMargin).orElse(Double.NaN));
-        Json.number(cont, "gain_margin", continuous.map(TuningReport::gainMargin).orElse(Double.NaN));
-        Json.number(cont, "ms", continuous.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));
         if (c.setpointResponse().isPresent()) {
             ResponseMetrics r = c.setpointResponse().get();
             ObjectNode s = node.putObject("setpoint_step");

@@ -14,21 +14,22 @@ import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 
 /**
- * One rule's settings and what they do: the margins of the continuous loop on the model and the
+ * One rule's settings and what they do: the margins of the loop on the model and the
  * figures of a setpoint step and a load step in simulation. Margins and figures are empty when
  * there was no model to check them on.
  *
  * @param tuning            the rule's result
  * @param settings          controller settings carrying the gains (ideal form)
- * @param margins           margins and Ms of the continuous loop on the model
- * @param sampled           margins and closed-loop poles of the sampled loop (the period, methods and sensor
- *                          delay the settings will run with), when a linear plant and a period are known
+ * @param margins           margins and Ms of the loop on the model
+ * @param sampledMargins    whether those are of the sampled loop (true) or of the continuous design (false)
+ * @param sampled           margins and closed-loop poles of the sampled loop the settings will run in (period,
+ *                          methods, sensor delay), whenever there is a linear plant: the stability verdict
  * @param setpointResponse  figures of a unit setpoint step
  * @param loadResponse      figures of a unit load step at the plant input (IAE, peak deviation)
  */
 public record TuningCandidate(TunedGains tuning, ControllerSettings settings, Optional<StabilityMargins> margins,
-                              Optional<SampledMargins> sampled, Optional<ResponseMetrics> setpointResponse,
-                              Optional<LoadResponse> loadResponse) {
+                              boolean sampledMargins, Optional<SampledMargins> sampled,
+                              Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
 
     /** Checks that nothing is null. */
     public TuningCandidate {
@@ -42,15 +43,10 @@ public record TuningCandidate(TunedGains tuning, ControllerSettings settings, Op
 
     /**
      * Whether the sampled closed loop is stable (every pole inside the unit circle); empty when there
-     * is no sampled loop to judge. An unstable candidate must never be offered as a choice.
+     * is no plant to judge it on. An unstable candidate must never be offered as a choice.
      */
     public Optional<Boolean> stable() {
         return sampled.map(SampledMargins::stable);
-    }
-
-    /** The margins to show: the sampled loop's when known, else the continuous loop's. */
-    public Optional<StabilityMargins> shownMargins() {
-        return sampled.map(SampledMargins::margins).or(() -> margins);
     }
 
     /** The gains in ideal form. */

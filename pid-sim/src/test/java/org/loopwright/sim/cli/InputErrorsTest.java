@@ -99,7 +99,7 @@ class InputErrorsTest {
         CommandRun run = CommandRun.of("tune", "--process-gain", "1e300", "--time-constant", "1e-300",
                 "--dead-time", "1");
         assertThat(run.exitCode()).isEqualTo(2);
-        assertThat(run.err()).startsWith("--time-constant and --dead-time must be within a factor of about 2500")
-                .contains("the limit is 1000000").doesNotContain("Exception");
+        assertThat(run.err()).startsWith("the model's time constants, --dead-time and --sample-period must keep the"
+                + " check by simulation within 1000000 samples a run").doesNotContain("Exception");
     }
 }

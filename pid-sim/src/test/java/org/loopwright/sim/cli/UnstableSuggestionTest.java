@@ -42,7 +42,7 @@ class UnstableSuggestionTest {
 
         StringWriter text = new StringWriter();
         TuningReport.printTable(new PrintWriter(text, true), List.of(stable, unstable), List.of());
-        assertThat(text.toString()).contains("Margins of the sampled loop", " yes ", " UNSTABLE ",
+        assertThat(text.toString()).contains("sampled PM", " yes ", " UNSTABLE ",
                 "WARNING: 1 of these settings make the sampled loop UNSTABLE");
 
         JsonNode json = TuningReport.json(unstable);
