@@ -9,6 +9,7 @@ import java.util.concurrent.Callable;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.GainCrossing;
 import org.loopwright.sim.frequency.GainRange;
 import org.loopwright.sim.frequency.LoopAnalysis;
@@ -16,6 +17,8 @@ import org.loopwright.sim.frequency.PhaseCrossing;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.InnerLoop;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -32,11 +35,15 @@ import picocli.CommandLine.Spec;
  * (see {@link LoopAnalysis}). Frequencies in rad/s, delay margins in seconds; a margin that does not
  * exist (no crossover) is null in JSON and "none" in the table. Exit code 2 for a bad file, a
  * nonlinear plant or an on-off controller.
+ *
+ * <p>For a cascade it reports the inner loop alone and the outer loop with the inner loop closed
+ * ({@link CascadeAnalysis}), as {@code {"inner": {"continuous", "sampled"}, "outer": {...}}}.
  */
 @Command(name = "margins", mixinStandardHelpOptions = true,
         description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop, continuous and sampled.",
                 "The sampled loop has the controller at z = e^(jωh) and the plant by its zero-order-hold equivalent;",
-                "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller."})
+                "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller.",
+                "A cascade (inner key) gives the inner loop alone and the outer loop with the inner loop closed."})
 public final class MarginsCommand implements Callable<Integer> {
 
     /** What the robustness figures of an unstable loop are. */
@@ -51,52 +58,84 @@ public final class MarginsCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario file.")
     private Path scenarioFile;
 
-    @Option(names = "--json", description = "Print one JSON object with keys continuous and sampled.")
+    @Option(names = "--json", description = "Print one JSON object with keys continuous and sampled"
+            + " (for a cascade: inner and outer, each with both).")
     private boolean json;
 
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "margins");
+        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "margins", true);
         ControllerSettings settings = loop.settings();
+        if (loop.scenario().inner().isPresent()) {
+            InnerLoop inner = loop.scenario().inner().get();
+            TransferFunction innerPlant = inner.plant().linear().orElseThrow();
+            ControllerSettings innerSettings = inner.controller();
+            StabilityMargins innerContinuous = LoopAnalysis.continuous(innerPlant, innerSettings);
+            SampledMargins innerSampled = LoopAnalysis.sampled(SampledLoop.of(innerPlant, innerSettings));
+            StabilityMargins outerContinuous = CascadeAnalysis.outerContinuous(loop.plant(), settings, innerPlant,
+                    innerSettings);
+            SampledMargins outerSampled = CascadeAnalysis.outerSampled(loop.plant(), settings, innerPlant,
+                    innerSettings);
+            if (json) {
+                ObjectNode root = Json.object();
+                root.set("inner", loopNode(innerSettings, 0, innerContinuous, innerSampled, Optional.empty()));
+                root.set("outer", loopNode(settings, 0, outerContinuous, outerSampled, Optional.empty()));
+                out.println(Json.pretty(root));
+            } else {
+                out.println("Inner loop (inner.controller on inner.plant):");
+                table(out, innerSettings, 0, innerContinuous, innerSampled, Optional.empty());
+                out.println();
+                out.println("Outer loop (controller on plant, with the inner loop closed):");
+                table(out, settings, 0, outerContinuous, outerSampled, Optional.empty());
+            }
+            out.flush();
+            return 0;
+        }
         StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
         SampledLoop sampledLoop = loop.scenario().sampledLoop().orElseThrow();
         SampledMargins sampled = LoopAnalysis.sampled(sampledLoop);
         Optional<GainRange> range = LoopAnalysis.stableGainRange(sampledLoop);
         if (json) {
-            ObjectNode root = Json.object();
-            root.set("continuous", margins(continuous));
-            ObjectNode sampledNode = margins(sampled.margins());
-            sampledNode.put("stable", sampled.stable());
-            sampledNode.put("sensor_delay_samples", sampledLoop.sensorDelaySamples());
-            if (!sampled.stable()) {
-                for (String key : List.of("ms", "ms_frequency", "mt", "mt_frequency", "delay_margin")) {
-                    sampledNode.putNull(key);
-                }
-                sampledNode.put("note", NOT_MEANINGFUL);
-            }
-            if (range.isPresent()) {
-                ObjectNode r = sampledNode.putObject("stable_gain_range");
-                Json.number(r, "low", range.get().low());
-                Json.number(r, "high", range.get().high());
-            } else {
-                sampledNode.putNull("stable_gain_range");
-            }
-            Json.number(sampledNode, "lower_gain_margin", sampled.stable() && range.isPresent()
-                    && range.get().low() > 0.0 ? range.get().low() : Double.NaN);
-            Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
-            sampledNode.put("sample_period", settings.samplePeriodSeconds());
-            sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
-                    ? ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) : null);
-            sampledNode.put("derivative_method", settings.parallelGains().derivativeGain() > 0.0
-                    ? ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()) : null);
-            root.set("sampled", sampledNode);
-            out.println(Json.pretty(root));
+            out.println(Json.pretty(loopNode(settings, sampledLoop.sensorDelaySamples(), continuous, sampled, range)));
         } else {
-            table(out, sampledLoop, continuous, sampled, range);
+            table(out, settings, sampledLoop.sensorDelaySamples(), continuous, sampled, range);
         }
         out.flush();
         return 0;
+    }
+
+    /** {"continuous": {...}, "sampled": {...}} of one loop. */
+    private static ObjectNode loopNode(ControllerSettings settings, int sensorDelaySamples,
+            StabilityMargins continuous, SampledMargins sampled, Optional<GainRange> range) {
+        ObjectNode root = Json.object();
+        root.set("continuous", margins(continuous));
+        ObjectNode sampledNode = margins(sampled.margins());
+        sampledNode.put("stable", sampled.stable());
+        sampledNode.put("sensor_delay_samples", sensorDelaySamples);
+        if (!sampled.stable()) {
+            for (String key : List.of("ms", "ms_frequency", "mt", "mt_frequency", "delay_margin")) {
+                sampledNode.putNull(key);
+            }
+            sampledNode.put("note", NOT_MEANINGFUL);
+        }
+        if (range.isPresent()) {
+            ObjectNode r = sampledNode.putObject("stable_gain_range");
+            Json.number(r, "low", range.get().low());
+            Json.number(r, "high", range.get().high());
+        } else {
+            sampledNode.putNull("stable_gain_range");
+        }
+        Json.number(sampledNode, "lower_gain_margin", sampled.stable() && range.isPresent()
+                && range.get().low() > 0.0 ? range.get().low() : Double.NaN);
+        Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
+        sampledNode.put("sample_period", settings.samplePeriodSeconds());
+        sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
+                ? ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) : null);
+        sampledNode.put("derivative_method", settings.parallelGains().derivativeGain() > 0.0
+                ? ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()) : null);
+        root.set("sampled", sampledNode);
+        return root;
     }
 
     private static ObjectNode margins(StabilityMargins m) {
@@ -130,15 +169,14 @@ public final class MarginsCommand implements Callable<Integer> {
         return node;
     }
 
-    private void table(PrintWriter out, SampledLoop loop, StabilityMargins continuous, SampledMargins sampled,
-            Optional<GainRange> range) {
-        ControllerSettings settings = loop.controller();
+    private void table(PrintWriter out, ControllerSettings settings, int sensorDelaySamples,
+            StabilityMargins continuous, SampledMargins sampled, Optional<GainRange> range) {
         StabilityMargins s = sampled.margins();
         out.println("Margins of " + scenarioFile + " (frequencies in rad/s)");
         out.printf(Locale.ROOT, "sampled: h = %s s, integral %s, derivative %s, sensor delay %d samples%n",
                 settings.samplePeriodSeconds(), ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()),
-                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()), loop.sensorDelaySamples());
-        if (loop.sensorDelaySamples() > 0) {
+                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()), sensorDelaySamples);
+        if (sensorDelaySamples > 0) {
             out.println("continuous: the design, without the sensor's delay (it exists only in the sampled loop)");
         }
         row(out, "", "continuous", "sampled");

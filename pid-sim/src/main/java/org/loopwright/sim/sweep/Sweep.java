@@ -11,10 +11,12 @@ import java.util.concurrent.Future;
 import java.util.function.IntConsumer;
 
 import org.hipparchus.complex.Complex;
+import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
@@ -146,8 +148,9 @@ public final class Sweep {
     }
 
     /**
-     * The largest closed-loop pole magnitude of the sampled linear loop (sensor delay included); NaN for
-     * an on-off controller, too long a delay, or a controller the analysis rejects.
+     * The largest closed-loop pole magnitude of the sampled linear loop (sensor delay included; for a
+     * cascade, of the outer loop with the inner loop closed, the inner plant as given); NaN for an on-off
+     * controller, too long a delay, or a controller the analysis rejects.
      */
     private static double largestPoleMagnitude(Scenario drawn) {
         SampledLoop loop = drawn.sampledLoop().orElse(null);
@@ -155,6 +158,13 @@ public final class Sweep {
             return Double.NaN;
         }
         try {
+            if (drawn.inner().isPresent()) {
+                // a cascade: the outer loop with the inner loop closed, whose poles include the inner loop's
+                InnerLoop inner = drawn.inner().get();
+                return CascadeAnalysis.outerSampled(loop.plant().withDeadTime(loop.totalDelaySeconds()),
+                        loop.controller(), inner.plant().linear().orElseThrow(), inner.controller())
+                        .largestPoleMagnitude();
+            }
             double largest = 0.0;
             for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(loop))) {
                 largest = Math.max(largest, pole.norm());
