@@ -105,8 +105,8 @@ public final class IdentifyCommand implements Callable<Integer> {
 
     private static String thinningNote(StepTest test) {
         return "Note: " + test.rowsInFile() + " rows are more than the fit takes (" + 2 * StepTestFile.FIT_ROWS
-                + "): fitted on every " + test.keptEvery() + "th row (" + test.length() + " rows), so times are"
-                + " resolved to " + test.keptEvery() + " sample periods";
+                + "): fitted on every " + test.keptEvery() + "th row (" + test.length() + " rows, the rows at each"
+                + " change of the input kept), so times are resolved to " + test.keptEvery() + " sample periods";
     }
 
     private void writePlant(IdentifiedModel fit) throws IOException {

@@ -123,41 +123,75 @@ public final class StepTestFile {
 
     /**
      * The rows kept of a record read a row at a time: all of them up to 2·{@link #FIT_ROWS}; beyond,
-     * every other kept row is dropped and the stride doubles, so at most 2·FIT_ROWS are held.
+     * every other kept row is dropped and the stride doubles, so at most 2·FIT_ROWS are held. A row at
+     * which the input changes, and the row before it, are pinned and never dropped (up to FIT_ROWS/2 of
+     * them), so the step's time stays exact.
      */
     private static final class Thinned {
         double[] time = new double[1024];
         double[] input = new double[1024];
         double[] output = new double[1024];
+        boolean[] pinned = new boolean[1024];
         int size;
+        int pinnedCount;
         int stride = 1;
         long rows;
+        double lastTime;
+        double lastInput;
+        double lastOutput;
+        boolean lastKept;
 
         void add(double t, double u, double y) {
-            if (rows++ % stride != 0) {
-                return;
+            long index = rows++;
+            boolean change = index > 0 && u != lastInput && pinnedCount < FIT_ROWS / 2;
+            if (change && !lastKept) {
+                append(lastTime, lastInput, lastOutput, true);
             }
+            boolean keep = change || index % stride == 0;
+            if (keep) {
+                append(t, u, y, change);
+            }
+            lastTime = t;
+            lastInput = u;
+            lastOutput = y;
+            lastKept = keep;
+        }
+
+        private void append(double t, double u, double y, boolean pin) {
             if (size == 2 * FIT_ROWS) {
-                for (int i = 0; i < FIT_ROWS; i++) {
-                    time[i] = time[2 * i];
-                    input[i] = input[2 * i];
-                    output[i] = output[2 * i];
-                }
-                size = FIT_ROWS;
-                stride *= 2;
-                if ((rows - 1) % stride != 0) {
-                    return;
-                }
+                compact();
             }
             if (size == time.length) {
-                time = Arrays.copyOf(time, Math.min(2 * size, 2 * FIT_ROWS));
-                input = Arrays.copyOf(input, time.length);
-                output = Arrays.copyOf(output, time.length);
+                int capacity = Math.min(2 * size, 2 * FIT_ROWS);
+                time = Arrays.copyOf(time, capacity);
+                input = Arrays.copyOf(input, capacity);
+                output = Arrays.copyOf(output, capacity);
+                pinned = Arrays.copyOf(pinned, capacity);
             }
             time[size] = t;
             input[size] = u;
             output[size] = y;
+            pinned[size] = pin;
+            pinnedCount += pin ? 1 : 0;
             size++;
+        }
+
+        /** Drops every other row that is not pinned and doubles the stride. */
+        private void compact() {
+            int kept = 0;
+            boolean drop = false;
+            for (int i = 0; i < size; i++) {
+                if (pinned[i] || !drop) {
+                    time[kept] = time[i];
+                    input[kept] = input[i];
+                    output[kept] = output[i];
+                    pinned[kept] = pinned[i];
+                    kept++;
+                }
+                drop = !pinned[i] && !drop;
+            }
+            size = kept;
+            stride *= 2;
         }
 
         StepTest toStepTest(String fileName) {
