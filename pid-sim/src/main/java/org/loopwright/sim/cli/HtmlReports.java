@@ -30,14 +30,14 @@ final class HtmlReports {
         return lines.length == 0 ? "loopwright" : lines[0];
     }
 
-    /** The page of one simulation: its metrics, its response plot, its scenario. */
+    /** The page of one simulation: its metrics, its response plots (the inner loop's too, for a cascade), its scenario. */
     static Path simulate(CommandSpec spec, Path directory, String title, String summary, ResponseMetrics m,
-            Optional<LimitCycle> cycle, Path responseSvg, String scenarioName, String scenarioText) throws IOException {
+            Optional<LimitCycle> cycle, List<Path> plots, String scenarioName, String scenarioText) throws IOException {
         List<List<String>> rows = MetricsReport.rows(m, cycle);
         HtmlTable table = new HtmlTable("Response metrics (n/a: the figure does not apply). Overshoot: "
                 + ResponseMetrics.OVERSHOOT_DEFINITION + ".", List.of("figure", "value"), rows);
         return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Simulation of " + title, version(spec),
-                List.of(summary), List.of(table), List.of(responseSvg), scenarioName, scenarioText);
+                List.of(summary), List.of(table), plots, scenarioName, scenarioText);
     }
 
     /** The page of a discretisation study: its table, its SVG plots, its scenario. */

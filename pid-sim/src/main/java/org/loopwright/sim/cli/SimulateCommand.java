@@ -4,6 +4,8 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
@@ -28,7 +30,8 @@ import picocli.CommandLine.Model.CommandSpec;
 
 /**
  * {@code simulate [SCENARIO.yaml] [--out DIR] [--json] [--show-demo]}: runs a closed-loop scenario, writes
- * {@code trajectory.csv}, {@code response.png}, {@code response.svg} and {@code report.html} into DIR, and prints the
+ * {@code trajectory.csv}, {@code response.png}, {@code response.svg} (and, for a cascade, {@code inner-loop.png}
+ * and {@code .svg}) and {@code report.html} into DIR, and prints the
  * metrics as a table (or one JSON object with {@code --json}). Without a scenario it runs the
  * built-in water-bath demo and says so (on standard error, so that JSON output stays clean).
  */
@@ -99,7 +102,8 @@ public final class SimulateCommand implements Callable<Integer> {
             out.println("Step figures " + ResponseWindow.of(scenario).describe()
                     + " (the first setpoint change until the next change or load step); integrals to the end:");
             out.print(MetricsReport.table(metrics, cycle));
-            out.println("Wrote trajectory.csv, response.png, response.svg and report.html in " + outDirectory);
+            out.println("Wrote trajectory.csv, response.png, response.svg" + (trajectory.hasInnerLoop()
+                    ? ", inner-loop.png, inner-loop.svg" : "") + " and report.html in " + outDirectory);
         }
         out.flush();
         return 0;
@@ -111,12 +115,17 @@ public final class SimulateCommand implements Callable<Integer> {
         TrajectoryCsv.write(trajectory, directory.resolve("trajectory.csv"));
         System.setProperty("java.awt.headless", "true");
         ResponsePlot.save(ResponsePlot.response(trajectory, title), directory, "response");
+        List<Path> plots = new ArrayList<>(List.of(directory.resolve("response.svg")));
+        if (trajectory.hasInnerLoop()) {
+            ResponsePlot.save(ResponsePlot.innerLoop(trajectory, title), directory, "inner-loop");
+            plots.add(directory.resolve("inner-loop.svg"));
+        }
         String diverged = trajectory.diverged() ? divergedNote(trajectory) : "";
         String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
                 + " (the first setpoint change until the next change or load step); integrals to the end. %s",
                 trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
                 ResponseWindow.of(scenario).describe(), diverged);
-        HtmlReports.simulate(spec, directory, title, summary, metrics, cycle, directory.resolve("response.svg"),
+        HtmlReports.simulate(spec, directory, title, summary, metrics, cycle, plots,
                 scenarioFile == null ? "built-in water-bath demo" : title,
                 scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
     }

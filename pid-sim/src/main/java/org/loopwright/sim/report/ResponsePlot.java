@@ -60,6 +60,30 @@ public final class ResponsePlot {
         return chart;
     }
 
+    /** A cascade's inner loop: its setpoint and measurement against time, the output it drives on the right. */
+    public static XYChart innerLoop(Trajectory trajectory, String title) {
+        XYChart chart = chart(title + ", inner loop", "time (s)", "inner process value");
+        int stride = Math.max(1, (trajectory.length() + MAX_POINTS - 1) / MAX_POINTS);
+        List<Double> time = new ArrayList<>();
+        List<Double> setpoint = new ArrayList<>();
+        List<Double> measurement = new ArrayList<>();
+        List<Double> output = new ArrayList<>();
+        int last = trajectory.length() - 1;
+        for (int k = 0; k <= last; k = k < last && k + stride > last ? last : k + stride) {
+            // every stride-th sample, and the last
+            time.add(trajectory.time(k));
+            setpoint.add(trajectory.innerSetpoint(k));
+            measurement.add(trajectory.innerMeasurement(k));
+            output.add(trajectory.output(k));
+        }
+        line(chart, "inner setpoint (outer controller output)", time, setpoint, 0);
+        line(chart, "inner measurement", time, measurement, 0);
+        line(chart, "controller output", time, output, 1);
+        chart.setYAxisGroupTitle(1, "controller output");
+        chart.getStyler().setYAxisGroupPosition(1, Styler.YAxisPosition.Right);
+        return chart;
+    }
+
     private static void add(Trajectory t, int k, List<Double> time, List<Double> setpoint, List<Double> measuredTime,
             List<Double> measurement, List<Double> output) {
         time.add(t.time(k));
