@@ -17,7 +17,7 @@ import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.RelayStatus;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
-import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
@@ -88,74 +88,81 @@ public final class AutotuneCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        TuningRule written = TuneCommand.parseRule(rule, false);
-        ControllerType writtenType = TuneCommand.parseType(type);
-        Scenario scenario = ScenarioFile.read(scenarioFile);
-        if (scenario.inner().isPresent() || scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
-            throw new InputException(scenarioFile + ": autotune runs a relay on a single loop with fixed gains and one"
-                    + " actuator: " + (scenario.inner().isPresent() ? "inner" : scenario.schedule().isPresent()
-                    ? "controller.schedule" : "split-range") + " is given", null);
-        }
-        RelaySimulation.Outcome relay;
+        PrintWriter err = spec.commandLine().getErr();
         try {
-            relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis), orNaN(excursionLimit));
+            UltimatePointRule written = TuneCommand.ultimatePointRule(rule);
+            ControllerType writtenType = TuneCommand.parseType(type);
+            Scenario scenario = ScenarioFile.read(scenarioFile);
+            if (scenario.inner().isPresent() || scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
+                err.println(scenarioFile + ": autotune runs a relay on a single loop with fixed gains and one actuator: "
+                        + (scenario.inner().isPresent() ? "inner" : scenario.schedule().isPresent()
+                        ? "controller.schedule" : "split-range") + " is given");
+                err.flush();
+                return LoopwrightCommand.BAD_INPUT;
+            }
+            RelaySimulation.Outcome relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis),
+                    orNaN(excursionLimit));
+            if (relay.status() != RelayStatus.SUCCEEDED) {
+                err.println("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
+                        + relay.message());
+                err.flush();
+                return LoopwrightCommand.BAD_INPUT;
+            }
+            if (relay.periodSetBySampling()) {
+                err.println("relay experiment: ultimate gain Ku " + TuningReport.num(relay.ultimateGain())
+                        + ", ultimate period Pu " + TuningReport.num(relay.ultimatePeriodSeconds()) + " s; "
+                        + relay.warnings().get(0));
+                err.flush();
+                return LoopwrightCommand.BAD_INPUT;
+            }
+            UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
+            ControllerSettings base = scenario.controller().orElseThrow();
+            List<TuningCandidate> suggestions = new ArrayList<>();
+            for (ControllerType type : ControllerType.values()) {
+                for (UltimatePointRule rule : UltimatePointRule.values()) {
+                    TuningResult result = rule.tune(point, type);
+                    if (result instanceof TunedGains tuned) {
+                        suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
+                    }
+                }
+            }
+            TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
+                    && c.tuning().type() == writtenType).findFirst().orElseThrow();
+            if (controllerOut != null) {
+                if (chosen.stable().orElse(true) == Boolean.FALSE) {
+                    throw new InputException("--write-controller: " + written.label() + " makes the sampled loop"
+                            + " UNSTABLE; no file written", null);
+                }
+                TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
+            }
+            if (json) {
+                ObjectNode node = Json.object();
+                Json.number(node, "ultimate_gain", relay.ultimateGain());
+                Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
+                Json.number(node, "oscillation_amplitude", relay.amplitude());
+                node.put("cycles", relay.cycles());
+                Json.number(node, "setpoint", relay.settings().setpoint());
+                Json.number(node, "bias", relay.settings().bias());
+                Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
+                Json.number(node, "hysteresis", relay.settings().hysteresis());
+                relay.warnings().forEach(node.putArray("warnings")::add);
+                node.set("suggestions", TuningReport.json(suggestions));
+                out.println(Json.pretty(node));
+            } else {
+                RelaySimulationText.print(out, relay);
+                TuningReport.printTable(out, suggestions, List.of());
+                if (controllerOut != null) {
+                    out.println("Wrote " + controllerOut + " (" + written.label() + ", "
+                            + writtenType.name().toLowerCase(Locale.ROOT) + ")");
+                }
+            }
+            out.flush();
+            return 0;
         } catch (InvalidSettingException e) {
             // the relay settings name their fields; say it with the options the user typed
             String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
             throw InputException.option(option, e.value(), e.rule());
         }
-        if (relay.status() != RelayStatus.SUCCEEDED) {
-            throw new InputException("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
-                    + relay.message(), null);
-        }
-        if (relay.periodSetBySampling()) {
-            throw new InputException("relay experiment: ultimate gain Ku " + TuningReport.num(relay.ultimateGain())
-                    + ", ultimate period Pu " + TuningReport.num(relay.ultimatePeriodSeconds()) + " s; "
-                    + relay.warnings().get(0), null);
-        }
-        UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
-        ControllerSettings base = scenario.controller().orElseThrow();
-        List<TuningCandidate> suggestions = new ArrayList<>();
-        for (ControllerType t : ControllerType.values()) {
-            for (TuningRule r : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
-                TuningResult result = r.tune(point, t);
-                if (result instanceof TunedGains tuned) {
-                    suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
-                }
-            }
-        }
-        TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
-                && c.tuning().type() == writtenType).findFirst().orElseThrow();
-        if (controllerOut != null) {
-            if (chosen.stable().orElse(true) == Boolean.FALSE) {
-                throw new InputException("--write-controller: " + written.label() + " (" + writtenType.name()
-                        .toLowerCase(Locale.ROOT) + ") makes the sampled loop UNSTABLE; no file written", null);
-            }
-            TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
-        }
-        if (json) {
-            ObjectNode node = Json.object();
-            Json.number(node, "ultimate_gain", relay.ultimateGain());
-            Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
-            Json.number(node, "oscillation_amplitude", relay.amplitude());
-            node.put("cycles", relay.cycles());
-            Json.number(node, "setpoint", relay.settings().setpoint());
-            Json.number(node, "bias", relay.settings().bias());
-            Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
-            Json.number(node, "hysteresis", relay.settings().hysteresis());
-            relay.warnings().forEach(node.putArray("warnings")::add);
-            node.set("suggestions", TuningReport.json(suggestions));
-            out.println(Json.pretty(node));
-        } else {
-            RelaySimulationText.print(out, relay);
-            TuningReport.printTable(out, suggestions, List.of());
-            if (controllerOut != null) {
-                out.println("Wrote " + controllerOut + " (" + written.label() + ", "
-                        + writtenType.name().toLowerCase(Locale.ROOT) + ")");
-            }
-        }
-        out.flush();
-        return 0;
     }
 
     private static double orNaN(Double value) {

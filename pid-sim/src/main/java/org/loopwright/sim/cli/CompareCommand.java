@@ -12,21 +12,24 @@ import java.util.stream.Collectors;
 
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
-import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
+import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.study.DiscretisationStudy;
 import org.loopwright.sim.study.SamplingVerdict;
 import org.loopwright.sim.study.StudyPlots;
 import org.loopwright.sim.study.StudyResult;
 import org.loopwright.sim.study.StudyRow;
+import org.loopwright.sim.study.StudyTable;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -42,9 +45,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "compare", mixinStandardHelpOptions = true,
         description = {"Compare every integral x derivative discretisation at each sample period with the continuous design.",
                 "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
-                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller.",
-                "The sampled loop includes the sensor's delay-samples. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
-                        + "; '-' where the response did not settle or diverged."})
+                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller."})
 public final class CompareCommand implements Callable<Integer> {
 
     @Spec
@@ -54,76 +55,54 @@ public final class CompareCommand implements Callable<Integer> {
     private Path scenarioFile;
 
     @Option(names = "--periods", split = ",", paramLabel = "H",
-            description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1,"
-                    + " and the scenario's own sample period).")
+            description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
     private List<Double> periods;
 
-    @Option(names = "--out", paramLabel = "DIR",
-            description = "Write the plots (PNG and SVG) and report.html into this directory.")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print a JSON array of rows instead of the table.")
-    private boolean json;
+    /** Without --out, compare prints its table and writes no plots. */
+    @Mixin
+    private OutputOptions output;
 
     @Override
-    public Integer call() throws IOException {
+    public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
-        if (periods != null) {
-            checkPeriods(loop);
-        }
-        List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
-                DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
-                loop.settings().samplePeriodSeconds());
-        StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
-        List<Path> written = List.of();
-        if (outDirectory != null) {
-            try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-                written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
-                written.add(HtmlReports.compare(spec, stage.directory(), String.valueOf(scenarioFile.getFileName()),
-                        result, written, String.valueOf(scenarioFile.getFileName()), Files.readString(scenarioFile)));
-                stage.commit();
+        try {
+            LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
+            if (periods != null) {
+                checkPeriods(loop);
             }
-        }
-        if (json) {
-            out.println(Json.pretty(rows(result)));
-        } else {
-            table(out, result, periods == null);
-        }
-        if (outDirectory != null) {
-            (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
-            (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
-        }
-        out.flush();
-        err.flush();
-        return 0;
-    }
-
-    /** Each period finite and positive, and the study's work at it within its stated limits. */
-    private void checkPeriods(LinearLoopFile loop) {
-        String given = periods.stream().map(String::valueOf).collect(Collectors.joining(","));
-        if (periods.size() > DiscretisationStudy.MAX_PERIODS) {
-            throw InputException.option("--periods", given, "must list at most " + DiscretisationStudy.MAX_PERIODS
-                    + " periods");
-        }
-        for (double h : periods) {
-            if (!Double.isFinite(h) || h <= 0.0) {
-                throw InputException.option("--periods", given, "must each be finite and > 0");
+            List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
+                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
+                    loop.settings().samplePeriodSeconds());
+            StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+            boolean json = output.json();
+            if (json) {
+                out.println(Json.pretty(rows(result)));
+            } else {
+                table(out, result, periods == null, loop.scenario().units());
             }
-            double samples = loop.scenario().durationSeconds() / h;
-            if (samples > DiscretisationStudy.MAX_SAMPLES_PER_RUN) {
-                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each give at most %d"
-                        + " samples over the scenario's duration of %s s (h = %s s gives %.3g)",
-                        DiscretisationStudy.MAX_SAMPLES_PER_RUN, loop.scenario().durationSeconds(), h, samples));
+            if (output.givenDirectory().isPresent()) {
+                Path outDirectory = output.givenDirectory().get();
+                List<Path> written;
+                try {
+                    written = new ArrayList<>(StudyPlots.write(result, outDirectory));
+                    written.add(HtmlReports.compare(outDirectory, HtmlReports.record(spec, loop.scenario(),
+                            scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
+                            StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
+                } catch (IOException e) {
+                    throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+                }
+                (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
+                (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
             }
-            double delaySamples = loop.plant().deadTimeSeconds() / h + loop.scenario().sensor().delaySamples();
-            if (delaySamples > SampledLoop.MAX_DELAY_SAMPLES) {
-                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each keep the loop's"
-                        + " delay (dead time %s s plus %d sensor samples) within %d samples (h = %s s gives %.3g)",
-                        loop.plant().deadTimeSeconds(), loop.scenario().sensor().delaySamples(),
-                        SampledLoop.MAX_DELAY_SAMPLES, h, delaySamples));
-            }
+            out.flush();
+            err.flush();
+            return 0;
+        } catch (InputFileException e) {
+            out.flush();
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
         }
     }
 
@@ -157,7 +136,34 @@ public final class CompareCommand implements Callable<Integer> {
         return array;
     }
 
-    private void table(PrintWriter out, StudyResult result, boolean defaultPeriods) {
+    /** Each period finite and positive, and the study's work at it within its stated limits. */
+    private void checkPeriods(LinearLoopFile loop) {
+        String given = periods.stream().map(String::valueOf).collect(Collectors.joining(","));
+        if (periods.size() > DiscretisationStudy.MAX_PERIODS) {
+            throw InputException.option("--periods", given, "must list at most " + DiscretisationStudy.MAX_PERIODS
+                    + " periods");
+        }
+        for (double h : periods) {
+            if (!Double.isFinite(h) || h <= 0.0) {
+                throw InputException.option("--periods", given, "must each be finite and > 0");
+            }
+            double samples = loop.scenario().durationSeconds() / h;
+            if (samples > DiscretisationStudy.MAX_SAMPLES_PER_RUN) {
+                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each give at most %d"
+                        + " samples over the scenario's duration of %s s (h = %s s gives %.3g)",
+                        DiscretisationStudy.MAX_SAMPLES_PER_RUN, loop.scenario().durationSeconds(), h, samples));
+            }
+            double delaySamples = loop.plant().deadTimeSeconds() / h + loop.scenario().sensor().delaySamples();
+            if (delaySamples > SampledLoop.MAX_DELAY_SAMPLES) {
+                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each keep the loop's"
+                        + " delay (dead time %s s plus %d sensor samples) within %d samples (h = %s s gives %.3g)",
+                        loop.plant().deadTimeSeconds(), loop.scenario().sensor().delaySamples(),
+                        SampledLoop.MAX_DELAY_SAMPLES, h, delaySamples));
+            }
+        }
+    }
+
+    private void table(PrintWriter out, StudyResult result, boolean defaultPeriods, Units units) {
         out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
         out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
                 result.crossoverRadPerSecond(), result.periodsSeconds(),
@@ -165,28 +171,7 @@ public final class CompareCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
                 result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
                 SamplingVerdict.TYPICAL_HIGH);
-        out.printf(Locale.ROOT, "%-34s %8s %7s %-18s %8s %8s %7s %-6s %10s %10s %10s %9s %9s%n", "integral/derivative",
-                "h (s)", "wc*h", "rule of thumb", "PM(deg)", "GM", "Ms", "stable", "overshoot%", "IAE", "load IAE",
-                "|C| dB", "argC deg");
-        for (StudyRow row : result.rows()) {
-            if (row.kind() == StudyRow.Kind.NOT_APPLICABLE) {
-                out.printf(Locale.ROOT, "%-34s %8s %7.3f not applicable: %s%n", row.label(),
-                        row.samplePeriodSeconds(), row.crossoverTimesPeriod(), row.note());
-                continue;
-            }
-            out.printf(Locale.ROOT, "%-34s %8s %7s %-18s %8s %8s %7s %-6s %10s %10s %10s %9s %9s%n", row.label(),
-                    row.kind() == StudyRow.Kind.CONTINUOUS ? "-" : String.valueOf(row.samplePeriodSeconds()),
-                    number("%.3f", row.crossoverTimesPeriod()),
-                    row.verdict() == null ? "-" : row.verdict().description(), number("%.2f", row.phaseMarginDegrees()),
-                    number("%.3f", row.gainMargin()), number("%.3f", row.ms()),
-                    row.stable() == null ? "-" : row.stable() ? "yes" : "NO", number("%.2f", row.overshootPercent()),
-                    number("%.4g", row.iae()), number("%.4g", row.loadIae()), number("%.3f", row.magnitudeErrorDb()),
-                    number("%.2f", row.phaseErrorDegrees()));
-        }
+        out.print(StudyTable.of(result, units).text());
         out.println("continuous row: " + result.rows().get(0).note());
-    }
-
-    private static String number(String format, double value) {
-        return Double.isFinite(value) ? String.format(Locale.ROOT, format, value) : "-";
     }
 }

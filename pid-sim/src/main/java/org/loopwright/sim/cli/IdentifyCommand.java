@@ -11,7 +11,7 @@ import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import org.loopwright.pid.tuning.FopdtModel;
-import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.identify.IdentificationPlot;
 import org.loopwright.sim.identify.IdentifiedModel;
 import org.loopwright.sim.identify.ModelKind;
@@ -45,8 +45,16 @@ public final class IdentifyCommand implements Callable<Integer> {
     private Path file;
 
     @Option(names = "--model", paramLabel = "fopdt|sopdt", defaultValue = "fopdt",
-            description = "First or second order plus dead time (default: fopdt).")
-    private String model;
+            converter = ModelWords.class,
+            description = "First or second order plus dead time (default: ${DEFAULT-VALUE}).")
+    private ModelKind kind;
+
+    /** {@code --model} by the words fopdt and sopdt. */
+    static final class ModelWords extends KeywordConverter<ModelKind> {
+        ModelWords() {
+            super(Keywords.byWord(ModelKind.values(), ModelKind::label));
+        }
+    }
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
             description = "Where to write the plot identify-<model>.png (default: the current directory).")
@@ -62,14 +70,6 @@ public final class IdentifyCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        ModelKind kind = switch (model) {
-            case "fopdt" -> ModelKind.FOPDT;
-            case "sopdt" -> ModelKind.SOPDT;
-            default -> null;
-        };
-        if (kind == null) {
-            throw InputException.option("--model", model, "must be fopdt or sopdt");
-        }
         StepTest test = StepTestFile.read(file);
         IdentifiedModel fit = StepIdentification.identify(test, kind);
         Path plot = writePlot(test, fit, kind);

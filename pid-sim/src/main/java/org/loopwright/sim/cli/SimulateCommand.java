@@ -10,10 +10,12 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 
+import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.metrics.ResponseWindow;
 import org.loopwright.sim.report.MetricsReport;
+import org.loopwright.sim.report.ResultTable;
 import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.report.TrajectoryCsv;
 import org.loopwright.sim.scenario.Scenario;
@@ -23,6 +25,7 @@ import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -38,22 +41,15 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "simulate", mixinStandardHelpOptions = true,
         description = {"Simulate a controller on a plant model and report the response.",
             "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
-            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention).",
-            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures are given only once the",
-            "output has settled (2 %% band), else 'not settled'.",
-            "Divergence: " + Divergence.RULE + "; such a run is stopped there and reported DIVERGED."})
+            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention)."})
 public final class SimulateCommand implements Callable<Integer> {
 
     @Parameters(index = "0", arity = "0..1", paramLabel = "SCENARIO.yaml",
             description = "The scenario file (YAML; --show-demo prints an example of the format).")
     private Path scenarioFile;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Directory for trajectory.csv and the plots (created if need be; default: ${DEFAULT-VALUE}).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print the metrics as one JSON object instead of a table.")
-    private boolean json;
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--show-demo", description = "Print the built-in demo scenario (an example of the format) and stop.")
     private boolean showDemo;
@@ -72,66 +68,60 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         Scenario scenario;
         String title;
-        if (scenarioFile == null) {
-            err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
-                    + " not a real bath).");
-            scenario = ScenarioFile.waterBathDemo();
-            title = "Water bath (built-in demo)";
-        } else {
-            scenario = ScenarioFile.read(scenarioFile);
-            title = String.valueOf(scenarioFile.getFileName());
+        try {
+            if (scenarioFile == null) {
+                err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
+                        + " not a real bath).");
+                scenario = ScenarioFile.waterBathDemo();
+                title = "Water bath (built-in demo)";
+            } else {
+                scenario = ScenarioFile.read(scenarioFile);
+                title = String.valueOf(scenarioFile.getFileName());
+            }
+        } catch (InputFileException e) {
+            err.println(e.getMessage());
+            return LoopwrightCommand.BAD_INPUT;
         }
         Trajectory trajectory = Simulation.run(scenario);
+        if (trajectory.diverged()) {
+            err.println(String.format(Locale.ROOT, "DIVERGED: the process output passed the divergence bound at t = %s s"
+                    + " and the run was stopped there (%s).", trajectory.divergedAtSeconds(), Divergence.RULE));
+        }
         ResponseMetrics metrics = ResponseMetrics.of(scenario, trajectory);
         Optional<LimitCycle> cycle = scenario.onOffController().isPresent()
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();
 
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-            writeFiles(stage, scenario, trajectory, metrics, cycle, title);
-            stage.commit();
+        Path outDirectory = output.directory("simulate");
+        Files.createDirectories(outDirectory);
+        TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
+        System.setProperty("java.awt.headless", "true");
+        ResponsePlot.save(ResponsePlot.response(trajectory, title, scenario.units()), outDirectory, "response");
+        List<Path> plots = new ArrayList<>(List.of(outDirectory.resolve("response.svg")));
+        if (trajectory.hasInnerLoop()) {
+            ResponsePlot.save(ResponsePlot.innerLoop(trajectory, title), outDirectory, "inner-loop");
+            plots.add(outDirectory.resolve("inner-loop.svg"));
         }
+        String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
+                + " (the first setpoint change until the next change or load step); integrals to the end.",
+                trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
+                ResponseWindow.of(scenario).describe());
+        ResultTable table = MetricsReport.table(metrics, cycle, scenario.units());
+        HtmlReports.simulate(outDirectory, HtmlReports.record(spec, scenario, scenarioFile), title, summary, table,
+                plots, scenarioFile == null ? "built-in water-bath demo" : title,
+                scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
 
-        if (trajectory.diverged()) {
-            err.println(divergedNote(trajectory));
-        }
-        if (json) {
+        if (output.json()) {
             out.println(MetricsReport.jsonText(metrics, cycle));
         } else {
             out.printf("%s: %d samples every %s s over %s s%n", title, trajectory.length(),
                     scenario.samplePeriodSeconds(), scenario.durationSeconds());
             out.println("Step figures " + ResponseWindow.of(scenario).describe()
                     + " (the first setpoint change until the next change or load step); integrals to the end:");
-            out.print(MetricsReport.table(metrics, cycle));
+            out.print(table.text());
             out.println("Wrote trajectory.csv, response.png, response.svg" + (trajectory.hasInnerLoop()
                     ? ", inner-loop.png, inner-loop.svg" : "") + " and report.html in " + outDirectory);
         }
         out.flush();
         return 0;
-    }
-
-    private void writeFiles(OutputStage stage, Scenario scenario, Trajectory trajectory, ResponseMetrics metrics,
-            Optional<LimitCycle> cycle, String title) throws IOException {
-        Path directory = stage.directory();
-        TrajectoryCsv.write(trajectory, directory.resolve("trajectory.csv"));
-        System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(ResponsePlot.response(trajectory, title), directory, "response");
-        List<Path> plots = new ArrayList<>(List.of(directory.resolve("response.svg")));
-        if (trajectory.hasInnerLoop()) {
-            ResponsePlot.save(ResponsePlot.innerLoop(trajectory, title), directory, "inner-loop");
-            plots.add(directory.resolve("inner-loop.svg"));
-        }
-        String diverged = trajectory.diverged() ? divergedNote(trajectory) : "";
-        String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
-                + " (the first setpoint change until the next change or load step); integrals to the end. %s",
-                trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
-                ResponseWindow.of(scenario).describe(), diverged);
-        HtmlReports.simulate(spec, directory, title, summary, metrics, cycle, plots,
-                scenarioFile == null ? "built-in water-bath demo" : title,
-                scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
-    }
-
-    private static String divergedNote(Trajectory trajectory) {
-        return String.format(Locale.ROOT, "DIVERGED: the process output passed the divergence bound at t = %s s and"
-                + " the run was stopped there (%s).", trajectory.divergedAtSeconds(), Divergence.RULE);
     }
 }

@@ -11,7 +11,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
-import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
@@ -32,6 +31,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -83,12 +83,8 @@ public final class SweepCommand implements Callable<Integer> {
             description = "Threads to run on (default: the number of processors).")
     private Integer threads;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Directory for sweep-runs.csv, the plot and report.html (default: ${DEFAULT-VALUE}).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print the summary as one JSON object instead of a table (no progress bar).")
-    private boolean json;
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
     private boolean noProgress;
@@ -96,45 +92,57 @@ public final class SweepCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        Scenario scenario;
+        Spread spread;
         int threadCount = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        if (runs < 1 || runs > MAX_RUNS) {
-            throw InputException.option("--runs", runs, "must be from 1 to " + MAX_RUNS);
+        try {
+            if (runs < 1 || runs > MAX_RUNS) {
+                throw new IllegalArgumentException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
+            }
+            if (threadCount < 1 || threadCount > MAX_THREADS) {
+                throw new IllegalArgumentException("--threads must be from 1 to " + MAX_THREADS + ": --threads="
+                        + threadCount);
+            }
+            spread = Spread.parse(spreadText);
+            scenario = ScenarioFile.read(scenarioFile);
+            if (scenario.linearPlant().isEmpty()) {
+                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
+                        + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
+            }
+            if (scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
+                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
+                        + PlantType.linearWords() + "): inner.plant.type=" + scenario.inner().get().plant().type().word());
+            }
+            if (scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
+                throw InputFileException.whole(scenarioFile.toString(), "sweep judges stability on a loop with fixed"
+                        + " gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
+                        : "split-range") + " is given");
+            }
+        } catch (InputFileException | IllegalArgumentException e) {
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
         }
-        if (threadCount < 1 || threadCount > MAX_THREADS) {
-            throw InputException.option("--threads", threadCount, "must be from 1 to " + MAX_THREADS);
-        }
-        Spread spread = Spread.parse(spreadText);
-        Scenario scenario = ScenarioFile.read(scenarioFile);
-        if (scenario.linearPlant().isEmpty()) {
-            throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
-                    + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
-        }
-        if (scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
-            throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
-                    + PlantType.linearWords() + "): inner.plant.type=" + scenario.inner().get().plant().type().word());
-        }
-        if (scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
-            throw InputFileException.whole(scenarioFile.toString(), "sweep judges stability on a loop with fixed"
-                    + " gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
-                    : "split-range") + " is given");
-        }
+        boolean json = output.json();
+        Path outDirectory = output.directory("sweep");
         SweepResult result;
         try (SweepProgress progress = !json && !noProgress && System.console() != null
                 ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
             result = new Sweep(scenario, spread, seed).run(runs, threadCount, progress);
         }
         String title = String.valueOf(scenarioFile.getFileName());
-        List<Path> written = new ArrayList<>();
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-            for (Path p : SweepFiles.write(result, stage.directory(), title)) {
-                written.add(p.getFileName());
-            }
-            Path plot = stage.directory().resolve(written.get(1));
-            written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
-                    HtmlReports.version(spec), List.of(header(result, threadCount)),
-                    List.of(table(result), runsTable(result)), List.of(plot), title,
-                    Files.readString(scenarioFile, StandardCharsets.UTF_8)).getFileName());
-            stage.commit();
+        List<Path> written;
+        try {
+            written = new ArrayList<>(SweepFiles.write(result, outDirectory, title));
+            written.add(HtmlReport.write(outDirectory.resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
+                    HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
+                    List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
+        } catch (IOException e) {
+            err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)
+                    .getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
         }
         if (json) {
             out.println(Json.pretty(json(result, threadCount)));
@@ -152,8 +160,7 @@ public final class SweepCommand implements Callable<Integer> {
 
     private static String header(SweepResult result, int threadCount) {
         int n = result.runs().size();
-        long unstable = count(result, LoopStability.UNSTABLE) + count(result, LoopStability.DIVERGED);
-        long diverged = count(result, LoopStability.DIVERGED);
+        long unstable = count(result, LoopStability.UNSTABLE);
         long notAssessed = count(result, LoopStability.NOT_ASSESSED);
         double notSettled = result.notSettledShare();
         List<String> spreads = new ArrayList<>();
@@ -164,11 +171,10 @@ public final class SweepCommand implements Callable<Integer> {
             }
         }
         return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; %s.%nunstable: %s (%d of %d, from the closed-loop poles of the sampled linear loop"
-                + " or a diverging simulation; %d diverged and were stopped, kept out of the distributions)%s;"
-                + " never settled (2 %% band): %s of the runs whose response moved.",
+                + " or a diverging simulation)%s; never settled (2 %% band): %s of the runs whose response moved.",
                 n, result.seed(), threadCount, spreads.isEmpty() ? "no spread: every run on the nominal plant"
                         : "each plant factor uniform within " + String.join(", ", spreads) + " of the nominal",
-                percent(result.unstableShare()), unstable, n, diverged,
+                percent(result.unstableShare()), unstable, n,
                 notAssessed == 0 ? "" : String.format(Locale.ROOT, "; stability not assessed for %d", notAssessed),
                 Double.isNaN(notSettled) ? "n/a" : percent(notSettled));
     }
@@ -252,7 +258,6 @@ public final class SweepCommand implements Callable<Integer> {
         spread.put("time_constant", result.spread().timeConstant());
         spread.put("dead_time", result.spread().deadTime());
         Json.number(root, "unstable_share", result.unstableShare());
-        Json.number(root, "diverged_share", result.divergedShare());
         Json.number(root, "not_assessed_share", result.notAssessedShare());
         Json.number(root, "not_settled_share", result.notSettledShare());
         distribution(root.putObject("overshoot_percent"), result.overshootPercent());

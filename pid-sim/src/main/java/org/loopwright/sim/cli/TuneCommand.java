@@ -24,7 +24,9 @@ import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.pid.tuning.RuleNotApplicable;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
+import org.loopwright.pid.tuning.ModelRule;
 import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
@@ -118,100 +120,116 @@ public final class TuneCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() throws IOException {
+    public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        ControllerType controllerType = parseType(type);
-        boolean fromOptions = processGain != null || timeConstant != null || deadTime != null
-                || secondTimeConstant != null || integrating;
-        boolean fromModel = fromOptions || modelFile != null;
-        boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
-        if (fromModel == fromPoint) {
-            throw new BadInput("give either a model (--process-gain, --time-constant, --dead-time; or"
-                    + " --model-file) or --ultimate-gain and --ultimate-period");
-        }
-        if (fromOptions && modelFile != null) {
-            throw new BadInput("--model-file excludes --process-gain, --time-constant, --second-time-constant,"
-                    + " --integrating and --dead-time: --model-file=" + modelFile);
-        }
-        if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
-            throw new BadInput("an ultimate point needs both --ultimate-gain and --ultimate-period");
-        }
-        if (controllerOut != null && rule == null) {
-            throw new BadInput("--write-controller needs --rule: which rule's settings to write");
-        }
-        if (controllerOut != null && samplePeriod == null) {
-            throw new BadInput("--write-controller needs --sample-period: the controller's period is the device's"
-                    + " choice, not one to invent");
-        }
-        if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
-            throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
-        }
-        if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
-            throw new BadInput("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
-                    + " --closed-loop-time=" + closedLoopTime);
-        }
-        double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
-        List<TuningRule> rules = rule == null ? Arrays.stream(TuningRule.values())
-                .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));
-        List<TuningCandidate> candidates = new ArrayList<>();
-        List<RuleNotApplicable> skipped = new ArrayList<>();
-        ProcessModel model;
-        UltimatePoint point;
+        PrintWriter err = spec.commandLine().getErr();
         try {
-            model = modelFile != null ? ModelFile.read(modelFile) : fromOptions ? modelFromOptions() : null;
-            point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
-        } catch (InvalidSettingException e) {
-            throw new BadInput(inOptionTerms(e));
-        }
-        ControllerSettings base = fromModel ? baseSettings(model) : null;
-        if (fromModel && TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds() > TuningEvaluation.MAX_SAMPLES) {
-            throw new BadInput(String.format(Locale.ROOT, "the model's time constants, --dead-time and --sample-period"
-                    + " must keep the check by simulation within %d samples a run: %.3g s at h = %s s would be %.3g",
-                    TuningEvaluation.MAX_SAMPLES, TuningEvaluation.runSeconds(model), base.samplePeriodSeconds(),
-                    TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()));
-        }
-        for (TuningRule r : rules) {
-            TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);
-            if (result instanceof TunedGains tuned) {
-                candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model, base, samplePeriod != null)
-                        : TuningEvaluation.withoutModel(tuned, samplePeriod != null ? samplePeriod
-                                : ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
-            } else {
-                skipped.add((RuleNotApplicable) result);
+            ControllerType controllerType = parseType(type);
+            boolean fromOptions = processGain != null || timeConstant != null || deadTime != null
+                    || secondTimeConstant != null || integrating;
+            boolean fromModel = fromOptions || modelFile != null;
+            boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
+            if (fromModel == fromPoint) {
+                throw new BadInput("give either a model (--process-gain, --time-constant, --dead-time; or"
+                        + " --model-file) or --ultimate-gain and --ultimate-period");
             }
-        }
-        if (rule != null && candidates.isEmpty()) {
-            RuleNotApplicable why = skipped.get(0);
-            throw new BadInput(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
-        }
-        if (controllerOut != null) {
-            if (candidates.get(0).stable().orElse(true) == Boolean.FALSE) {
-                throw new BadInput("--write-controller: " + candidates.get(0).tuning().rule().label() + " makes the"
-                        + " sampled loop UNSTABLE at --sample-period " + samplePeriod + "; no file written");
+            if (fromOptions && modelFile != null) {
+                throw new BadInput("--model-file excludes --process-gain, --time-constant, --second-time-constant,"
+                        + " --integrating and --dead-time: --model-file=" + modelFile);
             }
-            write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
-        }
-        if (json) {
-            out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
-                    : TuningReport.json(candidates.get(0))));
-        } else {
-            out.println(fromModel
-                    ? "Model: " + describe(model) + " (sample period " + TuningReport.num(base.samplePeriodSeconds())
-                            + " s" + (samplePeriod == null ? ", a twentieth of the fastest of L and T," : "")
-                            + " in simulation)"
-                    : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
-                            + " or simulation; give K, T, L for those)");
-            if (rule == null) {
-                TuningReport.printTable(out, candidates, skipped);
+            if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
+                throw new BadInput("an ultimate point needs both --ultimate-gain and --ultimate-period");
+            }
+            if (controllerOut != null && rule == null) {
+                throw new BadInput("--write-controller needs --rule: which rule's settings to write");
+            }
+            if (controllerOut != null && samplePeriod == null) {
+                throw new BadInput("--write-controller needs --sample-period: the controller's period is the device's"
+                        + " choice, not one to invent");
+            }
+            if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
+                throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
+            }
+            if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
+                throw new BadInput("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
+                        + " --closed-loop-time=" + closedLoopTime);
+            }
+            double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
+            List<TuningCandidate> candidates = new ArrayList<>();
+            List<RuleNotApplicable> skipped = new ArrayList<>();
+            ProcessModel model;
+            UltimatePoint point;
+            try {
+                model = modelFile != null ? ModelFile.read(modelFile) : fromOptions ? modelFromOptions() : null;
+                point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
+            } catch (InvalidSettingException e) {
+                throw new BadInput(inOptionTerms(e));
+            }
+            ControllerSettings base = fromModel ? baseSettings(model) : null;
+            if (fromModel && TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()
+                    > TuningEvaluation.MAX_SAMPLES) {
+                throw new BadInput(String.format(Locale.ROOT, "the model's time constants, --dead-time and"
+                        + " --sample-period must keep the check by simulation within %d samples a run: %.3g s at"
+                        + " h = %s s would be %.3g", TuningEvaluation.MAX_SAMPLES, TuningEvaluation.runSeconds(model),
+                        base.samplePeriodSeconds(), TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()));
+            }
+            List<TuningResult> results = new ArrayList<>();
+            if (fromModel) {
+                for (ModelRule r : rule == null ? ModelRule.values() : new ModelRule[] {modelRule(rule)}) {
+                    results.add(r.tune(model, controllerType, designTime));
+                }
             } else {
-                TuningReport.printOne(out, candidates.get(0));
+                for (UltimatePointRule r : rule == null ? UltimatePointRule.values()
+                        : new UltimatePointRule[] {ultimatePointRule(rule)}) {
+                    results.add(r.tune(point, controllerType));
+                }
+            }
+            for (TuningResult result : results) {
+                if (result instanceof TunedGains tuned) {
+                    candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model, base, samplePeriod != null)
+                            : TuningEvaluation.withoutModel(tuned, samplePeriod != null ? samplePeriod
+                                    : ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
+                } else {
+                    skipped.add((RuleNotApplicable) result);
+                }
+            }
+            if (rule != null && candidates.isEmpty()) {
+                RuleNotApplicable why = skipped.get(0);
+                throw new BadInput(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
             }
             if (controllerOut != null) {
-                out.println("Wrote " + controllerOut);
+                if (candidates.get(0).stable().orElse(true) == Boolean.FALSE) {
+                    throw new BadInput("--write-controller: " + candidates.get(0).tuning().rule().label()
+                            + " makes the sampled loop UNSTABLE at --sample-period " + samplePeriod + "; no file written");
+                }
+                write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
             }
+            if (json) {
+                out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
+                        : TuningReport.json(candidates.get(0))));
+            } else {
+                out.println(fromModel
+                        ? "Model: " + describe(model) + " (sample period " + TuningReport.num(base.samplePeriodSeconds())
+                                + " s" + (samplePeriod == null ? ", a twentieth of the fastest of L and T," : "")
+                                + " in simulation)"
+                        : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
+                                + " or simulation; give K, T, L for those)");
+                if (rule == null) {
+                    TuningReport.printTable(out, candidates, skipped);
+                } else {
+                    TuningReport.printOne(out, candidates.get(0));
+                }
+                if (controllerOut != null) {
+                    out.println("Wrote " + controllerOut);
+                }
+            }
+            out.flush();
+            return 0;
+        } catch (BadInput | InvalidSettingException e) {
+            err.println(e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
         }
-        out.flush();
-        return 0;
     }
 
     /** The model the options describe: integrating, second or first order plus dead time. */
@@ -275,17 +293,24 @@ public final class TuneCommand implements Callable<Integer> {
         };
     }
 
-    /** The rule named on the command line; ziegler-nichols is the step rule for a model, the ultimate rule otherwise. */
-    static TuningRule parseRule(String label, boolean fromModel) {
-        for (TuningRule r : TuningRule.values()) {
-            if (r.label().equals(label) && r.usesModel() == fromModel) {
+    /** The model rule named by {@code --rule} (ziegler-nichols is the step-response rule here). */
+    static ModelRule modelRule(String label) {
+        return rule(label, ModelRule.values(), " for a model");
+    }
+
+    /** The ultimate-point rule named by {@code --rule}. */
+    static UltimatePointRule ultimatePointRule(String label) {
+        return rule(label, UltimatePointRule.values(), " for an ultimate point");
+    }
+
+    private static <R extends TuningRule> R rule(String label, R[] rules, String what) {
+        for (R r : rules) {
+            if (r.label().equals(label)) {
                 return r;
             }
         }
-        String allowed = Arrays.stream(TuningRule.values()).filter(r -> r.usesModel() == fromModel)
-                .map(TuningRule::label).collect(Collectors.joining(", "));
-        throw new BadInput("--rule must be one of " + allowed + (fromModel ? " for a model" : " for an ultimate point")
-                + ": --rule=" + label);
+        String allowed = Arrays.stream(rules).map(TuningRule::label).collect(Collectors.joining(", "));
+        throw new BadInput("--rule must be one of " + allowed + what + ": --rule=" + label);
     }
 
     /** The model's and the point's field names as the options the user typed. */
@@ -300,17 +325,15 @@ public final class TuneCommand implements Callable<Integer> {
         return option + " " + e.rule() + ": " + option + "=" + e.value();
     }
 
-    /** Writes a file the user named, in one piece: staged beside it and moved into place. */
-    static void write(Path file, String text) throws IOException {
-        Path absolute = file.toAbsolutePath();
-        try (OutputStage stage = OutputStage.in(absolute.getParent(), "--write-controller")) {
-            Files.writeString(stage.directory().resolve(absolute.getFileName().toString()), text,
-                    StandardCharsets.UTF_8);
-            stage.commit();
+    static void write(Path file, String text) {
+        try {
+            Files.writeString(file, text, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new BadInput(file + ": cannot be written (" + e + ")");
         }
     }
 
-    /** Bad input found by the command itself: an {@link InputException}, which the entry point maps to exit 2. */
+    /** Bad input found by the command itself, reported on stderr with exit code 2. */
     static final class BadInput extends InputException {
         private static final long serialVersionUID = 1L;
 

@@ -1,15 +1,10 @@
 package org.loopwright.sim.report;
 
-import java.util.ArrayList;
-import java.util.List;
-import java.util.Locale;
 import java.util.Optional;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
-import org.loopwright.sim.metrics.ResponseState;
+import org.loopwright.sim.scenario.Units;
 
 /**
  * The metrics of a run as a readable table or as one JSON object with the keys {@code rise_time},
@@ -20,80 +15,81 @@ import org.loopwright.sim.metrics.ResponseState;
  */
 public final class MetricsReport {
 
-    private static final ObjectMapper JSON = new ObjectMapper();
-
     private MetricsReport() {
     }
 
-    /** The metrics as a JSON object. */
-    public static ObjectNode json(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        ObjectNode o = JSON.createObjectNode();
-        o.put("response", m.state().name().toLowerCase(Locale.ROOT).replace('_', '-'));
-        put(o, "rise_time", m.riseTimeSeconds());
-        put(o, "settling_time", m.settlingTimeSeconds());
-        put(o, "overshoot_percent", m.overshootPercent());
-        put(o, "peak_time", m.peakTimeSeconds());
-        put(o, "steady_state_error", m.steadyStateError());
-        put(o, "iae", m.iae());
-        put(o, "ise", m.ise());
-        put(o, "itae", m.itae());
-        put(o, "total_variation", m.totalVariation());
-        put(o, "saturated_fraction", m.saturatedFraction());
-        put(o, "limit_cycle_amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN));
-        put(o, "limit_cycle_period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN));
-        return o;
-    }
-
-    /** One line of compact JSON. */
-    public static String jsonText(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        return json(m, cycle).toString();
-    }
-
-    private static void put(ObjectNode o, String key, double value) {
-        if (Double.isFinite(value)) {
-            o.put(key, value);
-        } else {
-            o.putNull(key);
-        }
+    /**
+     * The metrics as JSON: one record, written by {@link JsonOutput} (snake_case keys, null where a
+     * figure does not apply).
+     *
+     * @param riseTime              10–90 % rise time, s
+     * @param settlingTime          2 % settling time, s
+     * @param overshootPercent      overshoot, % of the step
+     * @param peakTime              time of the peak, s
+     * @param steadyStateError      setpoint minus measurement at the end, process units
+     * @param iae                   integral of |e|
+     * @param ise                   integral of e²
+     * @param itae                  integral of t·|e|
+     * @param totalVariation        total variation of the controller output
+     * @param saturatedFraction     share of the run at an output limit, 0–1
+     * @param limitCycleAmplitude   an on-off loop's cycle amplitude, process units
+     * @param limitCyclePeriod      an on-off loop's cycle period, s
+     */
+    public record MetricsJson(double riseTime, double settlingTime, double overshootPercent, double peakTime,
+            double steadyStateError, double iae, double ise, double itae, double totalVariation,
+            double saturatedFraction, double limitCycleAmplitude, double limitCyclePeriod) {
     }
 
     /**
-     * The metrics as rows of (figure, value with its unit): the response's state first, then every
-     * figure; a figure that does not apply reads "n/a", or the state ("not settled", "DIVERGED") when
-     * that is why.
+     * The metrics as a record for JSON.
+     *
+     * @param m     the metrics
+     * @param cycle the limit cycle of an on-off loop, if any
+     * @return the record
      */
-    public static List<List<String>> rows(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        String missing = m.state() == ResponseState.NOT_SETTLED || m.state() == ResponseState.DIVERGED
-                ? m.state().words() : "n/a";
-        String missingOverall = m.state() == ResponseState.DIVERGED ? m.state().words() : "n/a";
-        List<List<String>> rows = new ArrayList<>();
-        rows.add(List.of("response", m.state().words()));
-        rows.add(row("rise time (10-90 %)", m.riseTimeSeconds(), "s", missing));
-        rows.add(row("settling time (2 %)", m.settlingTimeSeconds(), "s", missing));
-        rows.add(row("overshoot", m.overshootPercent(), "%", missing));
-        rows.add(row("peak time", m.peakTimeSeconds(), "s", m.state() == ResponseState.SETTLED ? "n/a" : missing));
-        rows.add(row("steady-state error", m.steadyStateError(), "", missing));
-        rows.add(row("IAE", m.iae(), "·s", missingOverall));
-        rows.add(row("ISE", m.ise(), "·s", missingOverall));
-        rows.add(row("ITAE", m.itae(), "·s²", missingOverall));
-        rows.add(row("total variation of output", m.totalVariation(), "", missingOverall));
-        rows.add(row("time saturated", 100.0 * m.saturatedFraction(), "%", missingOverall));
-        rows.add(row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), "", "n/a"));
-        rows.add(row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s", "n/a"));
-        return rows;
+    public static MetricsJson json(ResponseMetrics m, Optional<LimitCycle> cycle) {
+        return new MetricsJson(m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
+                m.peakTimeSeconds(), m.steadyStateError(), m.iae(), m.ise(), m.itae(), m.totalVariation(),
+                m.saturatedFraction(), cycle.map(LimitCycle::amplitude).orElse(Double.NaN),
+                cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN));
     }
 
-    /** A table for people, one figure a line (see {@link #rows}). */
-    public static String table(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        StringBuilder t = new StringBuilder();
-        for (List<String> row : rows(m, cycle)) {
-            t.append(String.format(Locale.ROOT, "  %-27s %s%n", row.get(0), row.get(1)));
-        }
-        return t.toString();
+    /**
+     * The metrics as JSON text.
+     *
+     * @param m     the metrics
+     * @param cycle the limit cycle of an on-off loop, if any
+     * @return the text
+     */
+    public static String jsonText(ResponseMetrics m, Optional<LimitCycle> cycle) {
+        return JsonOutput.text(json(m, cycle));
     }
 
-    private static List<String> row(String name, double value, String unit, String missing) {
-        return List.of(name, Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value)
-                + (unit.isEmpty() ? "" : " " + unit) : missing);
+    /**
+     * The metrics as one typed table, a figure a row with its value and unit in the scenario's
+     * units: the text table, the HTML report's table and the JSON keys all come from it.
+     *
+     * @param m      the metrics
+     * @param cycle  the limit cycle of an on-off loop, if any
+     * @param units  the scenario's units
+     * @return the table
+     */
+    public static ResultTable table(ResponseMetrics m, Optional<LimitCycle> cycle, Units units) {
+        ResultTable table = ResultTable.of("Response metrics (" + NumberText.MISSING + ": the figure does not apply)",
+                ResultTable.Column.text("figure", "figure"), ResultTable.Column.number("value", "value", "", 4),
+                ResultTable.Column.text("unit", "unit"));
+        table.row("rise time (10-90 %)", m.riseTimeSeconds(), "s");
+        table.row("settling time (2 %)", m.settlingTimeSeconds(), "s");
+        table.row("overshoot", m.overshootPercent(), "%");
+        table.row("peak time", m.peakTimeSeconds(), "s");
+        table.row("steady-state error", m.steadyStateError(), units.processOrWord());
+        table.row("IAE", m.iae(), units.processSeconds());
+        table.row("ISE", m.ise(), units.processOrWord() + "²·s");
+        table.row("ITAE", m.itae(), units.processOrWord() + "·s²");
+        table.row("total variation of output", m.totalVariation(), units.outputOrWord());
+        table.row("time saturated", 100.0 * m.saturatedFraction(), "%");
+        table.row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), units.processOrWord());
+        table.row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
+        return table;
     }
 }

@@ -11,7 +11,7 @@ import org.junit.jupiter.api.Test;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.TunedGains;
-import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.tuning.TuningCandidate;
@@ -28,7 +28,7 @@ class UnstableSuggestionTest {
 
     private static TuningCandidate proportional(double gain) {
         Scenario scenario = ScenarioFile.read(Path.of(FrequencyCommandsTest.scenario("third-order-p.yaml")));
-        TunedGains gains = new TunedGains(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, ControllerType.PI,
+        TunedGains gains = new TunedGains(UltimatePointRule.ZIEGLER_NICHOLS, ControllerType.PI,
                 IdealGains.pi(gain, Double.POSITIVE_INFINITY), "");
         return TuningEvaluation.onScenario(gains, scenario, scenario.controller().orElseThrow());
     }
