@@ -122,4 +122,30 @@ class ExtremeSampleTest {
         assertThat(c.update(0.0, Double.NaN)).isEqualTo(1e308 - (-1e308 + Double.MAX_VALUE));
         assertThat(c.position()).isEqualTo(1e308);
     }
+
+    @Test
+    void manualObeysTheOperatorOnABadSampleToo() {
+        // the safe output is for automatic and tracking; in manual the operator stays in charge
+        PidController c = new PidController(piOnZeroToHundred().faultPolicy(FaultPolicy.SAFE_OUTPUT, 0.0).build());
+        c.update(50.0, 40.0);
+        c.switchToManual();
+        c.manualOutput(30.0);
+        assertThat(c.update(50.0, Double.NaN)).isEqualTo(30.0);
+        assertThat(c.fault()).isEqualTo(Fault.MEASUREMENT_NOT_FINITE);
+        assertThat(c.faultCount()).isEqualTo(1);
+        c.switchToAutomatic();
+        assertThat(c.update(50.0, Double.NaN)).isZero();
+        assertThat(c.fault()).isEqualTo(Fault.MEASUREMENT_NOT_FINITE);
+    }
+
+    @Test
+    void aCircularSetpointThatJumpsAcrossTheDoubleRangeStaysFinite() {
+        // the wrapped difference of −1e308 and 1e308 is NaN; the ramp goes to the (finite) new setpoint
+        PidController c = new PidController(piOnZeroToHundred().wrapSpan(360.0).build());
+        c.update(1e308, 0.0);
+        c.switchToManual();
+        c.update(-1e308, 0.0);
+        assertThat(c.snapshot().values().previousSetpoint()).isEqualTo(-1e308);
+        assertThat(StateSnapshot.parse(c.snapshot().toText())).isEqualTo(c.snapshot());
+    }
 }
