@@ -15,7 +15,8 @@ import org.loopwright.pid.InvalidSettingException;
  * @param timeConstantSeconds T, finite and &gt; 0
  * @param deadTimeSeconds     L, finite and &ge; 0
  */
-public record FopdtModel(double processGain, double timeConstantSeconds, double deadTimeSeconds) {
+public record FopdtModel(double processGain, double timeConstantSeconds, double deadTimeSeconds)
+        implements ProcessModel {
 
     /** Validates every parameter; see the record description for the allowed ranges. */
     public FopdtModel {
@@ -28,11 +29,6 @@ public record FopdtModel(double processGain, double timeConstantSeconds, double 
         if (!Double.isFinite(deadTimeSeconds) || deadTimeSeconds < 0.0) {
             throw new InvalidSettingException("deadTimeSeconds", deadTimeSeconds, "must be finite and >= 0");
         }
-    }
-
-    /** |K|, the magnitude the rules tune on. */
-    public double gainMagnitude() {
-        return Math.abs(processGain);
     }
 
     /** The normalised dead time τ = L/(L + T), between 0 (lag-dominant) and 1 (pure delay). */

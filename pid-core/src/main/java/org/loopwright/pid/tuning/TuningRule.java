@@ -4,13 +4,15 @@ import java.util.Locale;
 
 import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.form.IdealGains;
+import org.loopwright.pid.form.SeriesGains;
 
 /**
- * Published PID tuning rules. Five work from a first-order-plus-dead-time model
- * ({@link #tune(FopdtModel, ControllerType, double)}), two from an ultimate point
- * ({@link #tune(UltimatePoint, ControllerType)}); asking a rule for the other kind of input, a
- * model outside the rule's stated range or a variant the paper does not give returns a
- * {@link RuleNotApplicable} with the reason.
+ * Published PID tuning rules. Five work from a process model
+ * ({@link #tune(ProcessModel, ControllerType, double)}): all of them from first order plus dead time,
+ * SIMC also from second order plus dead time and from an integrating process; two work from an
+ * ultimate point ({@link #tune(UltimatePoint, ControllerType)}). Asking a rule for the other kind of
+ * input, a model its paper does not cover, a model outside the rule's stated range or a variant the
+ * paper does not give returns a {@link RuleNotApplicable} with the reason.
  *
  * <p>The formulas below are written as the maintainers recall them from the cited papers (and from
  * Åström &amp; Hägglund, <i>Advanced PID Control</i>, ISA 2006, which reprints most of them); each
@@ -24,9 +26,18 @@ import org.loopwright.pid.form.IdealGains;
 public enum TuningRule {
 
     /**
-     * SIMC, Skogestad (2003). Recalled from memory: Kc = T/(K·(τc + L)), Ti = min(T, 4·(τc + L)),
-     * recommended τc = L. The PID rule needs a second time constant (Td = τ2), which a
-     * first-order model lacks, so PID is not applicable here.
+     * SIMC, Skogestad (2003). Recalled from memory, with τc the closed-loop time constant
+     * (recommended τc = L, the default):
+     * <ul>
+     * <li>first order plus dead time, PI: Kc = T/(K·(τc + L)), Ti = min(T, 4·(τc + L)); PID does not
+     *     apply (the rule's derivative cancels a second time constant, which this model lacks);</li>
+     * <li>second order plus dead time, PID in series form: Kc' = T1/(K·(τc + L)),
+     *     Ti' = min(T1, 4·(τc + L)), Td' = T2, given here as its ideal equivalent; PI: the first-order
+     *     rule on the half-rule model (T1 + T2/2, L + T2/2);</li>
+     * <li>integrating K·e^(−sL)/s, PI: Kc = 1/(K·(τc + L)), Ti = 4·(τc + L); with a lag
+     *     K·e^(−sL)/(s(Ts + 1)), PID in series form with Td' = T and the same Kc', Ti', and PI on the
+     *     dead time L + T/2 (the half rule, as the limit T1 → ∞ of the second-order case).</li>
+     * </ul>
      */
     SIMC("simc", "S. Skogestad, \"Simple analytic rules for model reduction and PID controller tuning\","
             + " Journal of Process Control 13 (2003) 291-309", true) {
@@ -39,14 +50,58 @@ public enum TuningRule {
             double l = m.deadTimeSeconds();
             double tauC = Double.isNaN(closedLoopTimeSeconds) ? l : closedLoopTimeSeconds;
             if (tauC == 0.0) {
-                return new RuleNotApplicable(this, type, "the default closed-loop time constant tau_c = L is 0"
-                        + " because the dead time is 0: give a closed-loop time constant");
+                return noDefaultTauC(this, type);
             }
             double t = m.timeConstantSeconds();
             double gain = t / (m.gainMagnitude() * (tauC + l));
             double integralTime = Math.min(t, 4.0 * (tauC + l));
-            String note = "tau_c = " + format(tauC) + " s" + (Double.isNaN(closedLoopTimeSeconds) ? " (= L)" : "");
-            return new TunedGains(this, type, IdealGains.pi(gain, integralTime), note);
+            return new TunedGains(this, type, IdealGains.pi(gain, integralTime), tauCNote(tauC, closedLoopTimeSeconds));
+        }
+
+        @Override
+        TuningResult fromSecondOrder(SopdtModel m, ControllerType type, double closedLoopTimeSeconds) {
+            if (type == ControllerType.PI) {
+                FopdtModel reduced = m.halfRule();
+                TuningResult pi = fromModel(reduced, type, closedLoopTimeSeconds);
+                return pi instanceof TunedGains t ? new TunedGains(this, type, t.gains(), t.note()
+                        + "; half rule: T = " + format(reduced.timeConstantSeconds()) + " s, L = "
+                        + format(reduced.deadTimeSeconds()) + " s") : pi;
+            }
+            double l = m.deadTimeSeconds();
+            double tauC = Double.isNaN(closedLoopTimeSeconds) ? l : closedLoopTimeSeconds;
+            if (tauC == 0.0) {
+                return noDefaultTauC(this, type);
+            }
+            double t1 = m.timeConstantSeconds();
+            SeriesGains series = new SeriesGains(t1 / (m.gainMagnitude() * (tauC + l)),
+                    Math.min(t1, 4.0 * (tauC + l)), m.secondTimeConstantSeconds());
+            return new TunedGains(this, type, series.toIdeal(), tauCNote(tauC, closedLoopTimeSeconds)
+                    + "; series form Kc' = " + format(series.gain()) + ", Ti' = " + format(series.integralTime())
+                    + " s, Td' = T2 = " + format(series.derivativeTime()) + " s");
+        }
+
+        @Override
+        TuningResult fromIntegrating(IntegratingModel m, ControllerType type, double closedLoopTimeSeconds) {
+            if (type == ControllerType.PID && m.lagSeconds() == 0.0) {
+                return new RuleNotApplicable(this, type, "SIMC gives derivative action for an integrating process"
+                        + " only with a lag (Td = T); a pure integrator has none: use PI");
+            }
+            double l = type == ControllerType.PI ? m.deadTimeSeconds() + m.lagSeconds() / 2.0 : m.deadTimeSeconds();
+            double tauC = Double.isNaN(closedLoopTimeSeconds) ? l : closedLoopTimeSeconds;
+            if (tauC == 0.0) {
+                return noDefaultTauC(this, type);
+            }
+            double gain = 1.0 / (m.gainMagnitude() * (tauC + l));
+            double integralTime = 4.0 * (tauC + l);
+            String note = tauCNote(tauC, closedLoopTimeSeconds);
+            if (type == ControllerType.PI) {
+                return new TunedGains(this, type, IdealGains.pi(gain, integralTime), m.lagSeconds() > 0.0
+                        ? note + "; half rule: L = " + format(l) + " s" : note);
+            }
+            SeriesGains series = new SeriesGains(gain, integralTime, m.lagSeconds());
+            return new TunedGains(this, type, series.toIdeal(), note + "; series form Kc' = "
+                    + format(series.gain()) + ", Ti' = " + format(integralTime) + " s, Td' = T = "
+                    + format(m.lagSeconds()) + " s");
         }
     },
 
@@ -230,21 +285,23 @@ public enum TuningRule {
     /**
      * Tunes from a model with the rule's default design parameter.
      *
-     * @see #tune(FopdtModel, ControllerType, double)
+     * @see #tune(ProcessModel, ControllerType, double)
      */
-    public TuningResult tune(FopdtModel model, ControllerType type) {
+    public TuningResult tune(ProcessModel model, ControllerType type) {
         return tune(model, type, Double.NaN);
     }
 
     /**
-     * Tunes from a first-order-plus-dead-time model.
+     * Tunes from a process model: first order plus dead time for every model rule; second order
+     * and integrating for the rules whose paper covers them (SIMC), the others saying they do not
+     * apply.
      *
      * @param closedLoopTimeSeconds τc for SIMC or λ for lambda tuning, in seconds; NaN for the rule's
      *                              default; ignored by the other rules
      * @return the gains, or why the rule does not apply (always so for the ultimate-point rules)
      * @throws InvalidSettingException when closedLoopTimeSeconds is neither NaN nor finite and &gt; 0
      */
-    public TuningResult tune(FopdtModel model, ControllerType type, double closedLoopTimeSeconds) {
+    public TuningResult tune(ProcessModel model, ControllerType type, double closedLoopTimeSeconds) {
         if (!Double.isNaN(closedLoopTimeSeconds)
                 && (!Double.isFinite(closedLoopTimeSeconds) || closedLoopTimeSeconds <= 0.0)) {
             throw new InvalidSettingException("closedLoopTimeSeconds", closedLoopTimeSeconds,
@@ -254,7 +311,13 @@ public enum TuningRule {
             return new RuleNotApplicable(this, type, name() + " tunes from an ultimate gain and period,"
                     + " not from a process model");
         }
-        return fromModel(model, type, closedLoopTimeSeconds);
+        if (model instanceof FopdtModel first) {
+            return fromModel(first, type, closedLoopTimeSeconds);
+        }
+        if (model instanceof SopdtModel second) {
+            return fromSecondOrder(second, type, closedLoopTimeSeconds);
+        }
+        return fromIntegrating((IntegratingModel) model, type, closedLoopTimeSeconds);
     }
 
     /**
@@ -285,6 +348,25 @@ public enum TuningRule {
 
     TuningResult fromUltimatePoint(UltimatePoint point, ControllerType type) {
         throw new IllegalStateException(name() + " has no ultimate-point rule");
+    }
+
+    TuningResult fromSecondOrder(SopdtModel model, ControllerType type, double closedLoopTimeSeconds) {
+        return new RuleNotApplicable(this, type, name() + "'s paper gives a rule for a first-order model with dead"
+                + " time, not a second-order one: reduce the model (Skogestad's half rule) or use simc");
+    }
+
+    TuningResult fromIntegrating(IntegratingModel model, ControllerType type, double closedLoopTimeSeconds) {
+        return new RuleNotApplicable(this, type, name() + "'s rule here is for a self-regulating first-order model"
+                + " with dead time, not an integrating process: use simc");
+    }
+
+    private static RuleNotApplicable noDefaultTauC(TuningRule rule, ControllerType type) {
+        return new RuleNotApplicable(rule, type, "the default closed-loop time constant tau_c = L is 0"
+                + " because the dead time is 0: give a closed-loop time constant");
+    }
+
+    private static String tauCNote(double tauC, double closedLoopTimeSeconds) {
+        return "tau_c = " + format(tauC) + " s" + (Double.isNaN(closedLoopTimeSeconds) ? " (= L)" : "");
     }
 
     private static RuleNotApplicable lagDominantOnly(TuningRule rule, FopdtModel m, ControllerType type) {

@@ -17,6 +17,7 @@ import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.pid.tuning.UltimatePoint;
+import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
@@ -61,6 +62,20 @@ public final class AutotuneCommand implements Callable<Integer> {
             description = "Abort when the process variable leaves setpoint +/- BAND (default: 25 %% of the setpoint, or 1 at setpoint 0).")
     private Double excursionLimit;
 
+    @Option(names = "--write-controller", paramLabel = "FILE.yaml",
+            description = "Write one suggestion as a controller file: the scenario's controller with its gains"
+                    + " (choose it with --rule and --type).")
+    private Path controllerOut;
+
+    @Option(names = "--rule", paramLabel = "R", defaultValue = "tyreus-luyben",
+            description = "The suggestion --write-controller writes: tyreus-luyben or ziegler-nichols"
+                    + " (default: ${DEFAULT-VALUE}, the better damped of the two).")
+    private String rule;
+
+    @Option(names = "--type", paramLabel = "pi|pid", defaultValue = "pi",
+            description = "PI or PID for --write-controller (default: ${DEFAULT-VALUE}).")
+    private String type;
+
     @Option(names = "--json", description = "Print JSON instead of text.")
     private boolean json;
 
@@ -69,6 +84,8 @@ public final class AutotuneCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         try {
+            TuningRule written = TuneCommand.parseRule(rule, false);
+            ControllerType writtenType = TuneCommand.parseType(type);
             Scenario scenario = ScenarioFile.read(scenarioFile);
             RelaySimulation.Outcome relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis),
                     orNaN(excursionLimit));
@@ -89,6 +106,11 @@ public final class AutotuneCommand implements Callable<Integer> {
                     }
                 }
             }
+            TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
+                    && c.tuning().type() == writtenType).findFirst().orElseThrow();
+            if (controllerOut != null) {
+                TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
+            }
             if (json) {
                 ObjectNode node = Json.object();
                 Json.number(node, "ultimate_gain", relay.ultimateGain());
@@ -105,10 +127,14 @@ public final class AutotuneCommand implements Callable<Integer> {
             } else {
                 RelaySimulationText.print(out, relay);
                 TuningReport.printTable(out, suggestions, List.of());
+                if (controllerOut != null) {
+                    out.println("Wrote " + controllerOut + " (" + written.label() + ", "
+                            + writtenType.name().toLowerCase(Locale.ROOT) + ")");
+                }
             }
             out.flush();
             return 0;
-        } catch (InputFileException | InvalidSettingException e) {
+        } catch (InputFileException | InvalidSettingException | TuneCommand.BadInput e) {
             err.println(e.getMessage());
             err.flush();
             return LoopwrightCommand.BAD_INPUT;

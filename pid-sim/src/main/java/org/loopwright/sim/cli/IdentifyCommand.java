@@ -2,6 +2,7 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
@@ -17,6 +18,7 @@ import org.loopwright.sim.identify.ModelKind;
 import org.loopwright.sim.identify.StepIdentification;
 import org.loopwright.sim.identify.StepTest;
 import org.loopwright.sim.identify.StepTestFile;
+import org.loopwright.sim.scenario.PlantBlock;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -48,6 +50,10 @@ public final class IdentifyCommand implements Callable<Integer> {
             description = "Where to write the plot identify-<model>.png (default: the current directory).")
     private Path outDirectory;
 
+    @Option(names = "--write-plant", paramLabel = "FILE.yaml",
+            description = "Write the fitted model as a plant: block of the scenario format (design --plant reads it).")
+    private Path plantOut;
+
     @Option(names = "--json", description = "Print JSON instead of text.")
     private boolean json;
 
@@ -69,10 +75,16 @@ public final class IdentifyCommand implements Callable<Integer> {
             StepTest test = StepTestFile.read(file);
             IdentifiedModel fit = StepIdentification.identify(test, kind);
             Path plot = writePlot(test, fit, kind);
+            if (plantOut != null) {
+                writePlant(fit);
+            }
             if (json) {
                 out.println(Json.pretty(json(fit)));
             } else {
                 printText(out, fit, plot);
+                if (plantOut != null) {
+                    out.println("Wrote " + plantOut);
+                }
             }
             out.flush();
             return 0;
@@ -89,6 +101,16 @@ public final class IdentifyCommand implements Callable<Integer> {
             return IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);
         } catch (IOException e) {
             throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+        }
+    }
+
+    private void writePlant(IdentifiedModel fit) {
+        String text = String.format(Locale.ROOT, "# %s fitted by identify to %s: RMSE %.4g, R² %.5f%n", fit.kind().label(),
+                file.getFileName(), fit.rmse(), fit.rSquared()) + PlantBlock.yaml(fit.processModel());
+        try {
+            Files.writeString(plantOut, text, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw InputFileException.whole(plantOut.toString(), "cannot be written (" + e + ")", e);
         }
     }
 

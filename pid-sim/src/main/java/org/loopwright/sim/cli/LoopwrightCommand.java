@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
 @Command(name = "loopwright", mixinStandardHelpOptions = true, version = "loopwright 0.1.0",
         description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
         subcommands = {CommandLine.HelpCommand.class, SimulateCommand.class, ReplayCommand.class,
-                MarginsCommand.class, CompareCommand.class, TuneCommand.class, IdentifyCommand.class,
+                MarginsCommand.class, CompareCommand.class, TuneCommand.class, DesignCommand.class, IdentifyCommand.class,
                 AutotuneCommand.class, SweepCommand.class})
 public final class LoopwrightCommand implements Runnable {
 

@@ -12,9 +12,14 @@ import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
+import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.FopdtModel;
+import org.loopwright.pid.tuning.IntegratingModel;
+import org.loopwright.pid.tuning.ProcessModel;
+import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.pid.tuning.RuleNotApplicable;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
@@ -30,18 +35,20 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code tune}: PID settings from a first-order-plus-dead-time model (K, T, L) or an ultimate point
- * (Ku, Pu) by the published rules, each checked on the model: the settings in ideal, parallel and
- * series form, the margins and Ms of the continuous loop, and the figures of a unit setpoint step and
- * a unit load step in simulation (sample period and run length as {@link TuningEvaluation} chooses).
- * Without {@code --rule} every rule that applies is compared in one table. Exit code 2 for bad input,
- * including a rule that does not apply to the model.
+ * {@code tune}: PID settings from a process model (first or second order plus dead time, or
+ * integrating) or an ultimate point (Ku, Pu) by the published rules, each checked on the model: the
+ * settings in ideal, parallel and series form, the margins and Ms of the loop (sampled at
+ * {@code --sample-period} when given, else of the continuous design), and the figures of a unit
+ * setpoint step and a unit load step in simulation (see {@link TuningEvaluation}). Without
+ * {@code --rule} every rule is listed, those that do not apply with the reason. Exit code 2 for bad
+ * input, including a rule that does not apply to the model.
  */
 @Command(name = "tune", mixinStandardHelpOptions = true,
-        description = {"PID settings from a model (K, T, L) or an ultimate point (Ku, Pu) by published rules,"
-                + " checked on the model: margins, Ms, setpoint- and load-step figures.",
-                "Rules: simc, amigo, lambda, ziegler-nichols, cohen-coon (from a model);"
-                        + " ziegler-nichols, tyreus-luyben (from an ultimate point)."})
+        description = {"PID settings from a model (K, T, L; or K, T, T2, L; or an integrating K, L) or an ultimate"
+                + " point (Ku, Pu) by published rules, checked on the model: margins, Ms, setpoint- and load-step"
+                + " figures.",
+                "Rules: simc, amigo, lambda, ziegler-nichols, cohen-coon (from a model; only simc covers second-order"
+                        + " and integrating models); ziegler-nichols, tyreus-luyben (from an ultimate point)."})
 public final class TuneCommand implements Callable<Integer> {
 
     /** Sample period for settings tuned from an ultimate point alone: Pu divided by this. */
@@ -50,14 +57,38 @@ public final class TuneCommand implements Callable<Integer> {
     @Spec
     private CommandSpec spec;
 
-    @Option(names = "--process-gain", paramLabel = "K", description = "Process gain K (output units per input unit).")
+    @Option(names = "--process-gain", paramLabel = "K",
+            description = "Process gain K (measurement units per output unit; per second for --integrating).")
     private Double processGain;
 
-    @Option(names = "--time-constant", paramLabel = "T", description = "Time constant T in seconds.")
+    @Option(names = "--time-constant", paramLabel = "T",
+            description = "Time constant T in seconds (the lag of an integrating process, optional there).")
     private Double timeConstant;
+
+    @Option(names = "--second-time-constant", paramLabel = "T2",
+            description = "Second time constant T2 <= T in seconds: a second-order-plus-dead-time model.")
+    private Double secondTimeConstant;
+
+    @Option(names = "--integrating", description = "The process integrates (a level, a position): K is its rate.")
+    private boolean integrating;
 
     @Option(names = "--dead-time", paramLabel = "L", description = "Dead time L in seconds.")
     private Double deadTime;
+
+    @Option(names = "--model-file", paramLabel = "FILE.json",
+            description = "Read the model from the output of identify --json instead of K, T, L.")
+    private Path modelFile;
+
+    @Option(names = "--sample-period", paramLabel = "H",
+            description = "The controller's sample period in seconds: margins of the loop sampled at H; needed by"
+                    + " --write-controller (default for the checks: a twentieth of the fastest of L and T).")
+    private Double samplePeriod;
+
+    @Option(names = "--output-min", paramLabel = "A", description = "Lower output limit (default: none).")
+    private Double outputMin;
+
+    @Option(names = "--output-max", paramLabel = "B", description = "Upper output limit (default: none).")
+    private Double outputMax;
 
     @Option(names = "--ultimate-gain", paramLabel = "KU", description = "Ultimate gain Ku.")
     private Double ultimateGain;
@@ -77,7 +108,8 @@ public final class TuneCommand implements Callable<Integer> {
     private Double closedLoopTime;
 
     @Option(names = "--write-controller", paramLabel = "FILE.yaml",
-            description = "Write the settings as a controller file that simulate and replay accept (needs --rule).")
+            description = "Write the settings as a controller file that simulate and replay accept (needs --rule"
+                    + " and --sample-period).")
     private Path controllerOut;
 
     @Option(names = "--json", description = "Print JSON instead of text.")
@@ -89,20 +121,27 @@ public final class TuneCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         try {
             ControllerType controllerType = parseType(type);
-            boolean fromModel = processGain != null || timeConstant != null || deadTime != null;
+            boolean fromOptions = processGain != null || timeConstant != null || deadTime != null
+                    || secondTimeConstant != null || integrating;
+            boolean fromModel = fromOptions || modelFile != null;
             boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
             if (fromModel == fromPoint) {
-                throw new BadInput("give either --process-gain, --time-constant and --dead-time, or --ultimate-gain"
-                        + " and --ultimate-period");
+                throw new BadInput("give either a model (--process-gain, --time-constant, --dead-time; or"
+                        + " --model-file) or --ultimate-gain and --ultimate-period");
             }
-            if (fromModel && (processGain == null || timeConstant == null || deadTime == null)) {
-                throw new BadInput("a model needs all of --process-gain, --time-constant and --dead-time");
+            if (fromOptions && modelFile != null) {
+                throw new BadInput("--model-file excludes --process-gain, --time-constant, --second-time-constant,"
+                        + " --integrating and --dead-time: --model-file=" + modelFile);
             }
             if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
                 throw new BadInput("an ultimate point needs both --ultimate-gain and --ultimate-period");
             }
             if (controllerOut != null && rule == null) {
                 throw new BadInput("--write-controller needs --rule: which rule's settings to write");
+            }
+            if (controllerOut != null && samplePeriod == null) {
+                throw new BadInput("--write-controller needs --sample-period: the controller's period is the device's"
+                        + " choice, not one to invent");
             }
             if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
                 throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
@@ -116,19 +155,21 @@ public final class TuneCommand implements Callable<Integer> {
                     .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));
             List<TuningCandidate> candidates = new ArrayList<>();
             List<RuleNotApplicable> skipped = new ArrayList<>();
-            FopdtModel model;
+            ProcessModel model;
             UltimatePoint point;
             try {
-                model = fromModel ? new FopdtModel(processGain, timeConstant, deadTime) : null;
+                model = modelFile != null ? ModelFile.read(modelFile) : fromOptions ? modelFromOptions() : null;
                 point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
             } catch (InvalidSettingException e) {
                 throw new BadInput(inOptionTerms(e));
             }
+            ControllerSettings base = fromModel ? baseSettings(model) : null;
             for (TuningRule r : rules) {
                 TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);
                 if (result instanceof TunedGains tuned) {
-                    candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model)
-                            : TuningEvaluation.withoutModel(tuned, ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
+                    candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model, base, samplePeriod != null)
+                            : TuningEvaluation.withoutModel(tuned, samplePeriod != null ? samplePeriod
+                                    : ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
                 } else {
                     skipped.add((RuleNotApplicable) result);
                 }
@@ -145,8 +186,9 @@ public final class TuneCommand implements Callable<Integer> {
                         : TuningReport.json(candidates.get(0))));
             } else {
                 out.println(fromModel
-                        ? "Model: K=" + processGain + ", T=" + timeConstant + " s, L=" + deadTime + " s (sample period "
-                                + TuningReport.num(TuningEvaluation.samplePeriodSeconds(model)) + " s in simulation)"
+                        ? "Model: " + describe(model) + " (sample period " + TuningReport.num(base.samplePeriodSeconds())
+                                + " s" + (samplePeriod == null ? ", a twentieth of the fastest of L and T," : "")
+                                + " in simulation)"
                         : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
                                 + " or simulation; give K, T, L for those)");
                 if (rule == null) {
@@ -165,6 +207,59 @@ public final class TuneCommand implements Callable<Integer> {
             err.flush();
             return LoopwrightCommand.BAD_INPUT;
         }
+    }
+
+    /** The model the options describe: integrating, second or first order plus dead time. */
+    private ProcessModel modelFromOptions() {
+        if (processGain == null || deadTime == null) {
+            throw new BadInput("a model needs --process-gain and --dead-time"
+                    + (integrating ? "" : ", and --time-constant"));
+        }
+        if (integrating) {
+            if (secondTimeConstant != null) {
+                throw new BadInput("--integrating takes one lag (--time-constant), not --second-time-constant:"
+                        + " --second-time-constant=" + secondTimeConstant);
+            }
+            return new IntegratingModel(processGain, timeConstant == null ? 0.0 : timeConstant, deadTime);
+        }
+        if (timeConstant == null) {
+            throw new BadInput("a self-regulating model needs --time-constant (or give --integrating)");
+        }
+        return secondTimeConstant == null ? new FopdtModel(processGain, timeConstant, deadTime)
+                : new SopdtModel(processGain, timeConstant, secondTimeConstant, deadTime);
+    }
+
+    /** The settings every rule's gains go into: the sample period, the output limits, the action. */
+    private ControllerSettings baseSettings(ProcessModel model) {
+        double h = samplePeriod != null ? samplePeriod : TuningEvaluation.samplePeriodSeconds(model);
+        if (!(h > 0.0 && Double.isFinite(h))) {
+            throw new BadInput(samplePeriod != null
+                    ? "--sample-period must be finite and > 0: --sample-period=" + samplePeriod
+                    : "a pure integrator without dead time has no time scale: give --sample-period");
+        }
+        double min = outputMin == null ? Double.NEGATIVE_INFINITY : outputMin;
+        double max = outputMax == null ? Double.POSITIVE_INFINITY : outputMax;
+        if (!(min < max) || Double.isNaN(min) || Double.isNaN(max)) {
+            throw new BadInput("--output-min must be < --output-max: --output-min=" + outputMin + ", --output-max="
+                    + outputMax);
+        }
+        return ControllerSettings.builder().gains(IdealGains.pi(1.0, 1.0)).samplePeriodSeconds(h)
+                .outputRange(min, max).action(TuningEvaluation.action(model)).build();
+    }
+
+    /** The model in words, such as "fopdt, K=2.0, T=10.0 s, L=1.0 s". */
+    static String describe(ProcessModel model) {
+        if (model instanceof FopdtModel m) {
+            return "first order plus dead time, K=" + m.processGain() + ", T=" + m.timeConstantSeconds() + " s, L="
+                    + m.deadTimeSeconds() + " s";
+        }
+        if (model instanceof SopdtModel m) {
+            return "second order plus dead time, K=" + m.processGain() + ", T1=" + m.timeConstantSeconds() + " s, T2="
+                    + m.secondTimeConstantSeconds() + " s, L=" + m.deadTimeSeconds() + " s";
+        }
+        IntegratingModel m = (IntegratingModel) model;
+        return "integrating, K=" + m.processGain() + " 1/s" + (m.lagSeconds() > 0.0 ? ", lag T=" + m.lagSeconds()
+                + " s" : "") + ", L=" + m.deadTimeSeconds() + " s";
     }
 
     static ControllerType parseType(String text) {
@@ -192,14 +287,15 @@ public final class TuneCommand implements Callable<Integer> {
     private static final Map<String, String> OPTION_OF_FIELD = Map.of(
             "processGain", "--process-gain", "timeConstantSeconds", "--time-constant",
             "deadTimeSeconds", "--dead-time", "ultimateGain", "--ultimate-gain",
-            "ultimatePeriodSeconds", "--ultimate-period");
+            "ultimatePeriodSeconds", "--ultimate-period", "secondTimeConstantSeconds", "--second-time-constant",
+            "lagSeconds", "--time-constant");
 
     static String inOptionTerms(InvalidSettingException e) {
         String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
         return option + " " + e.rule() + ": " + option + "=" + e.value();
     }
 
-    private static void write(Path file, String text) {
+    static void write(Path file, String text) {
         try {
             Files.writeString(file, text, StandardCharsets.UTF_8);
         } catch (IOException e) {

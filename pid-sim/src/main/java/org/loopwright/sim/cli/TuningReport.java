@@ -46,7 +46,7 @@ final class TuningReport {
         } else {
             StabilityMargins m = c.margins().get();
             out.println("  margins:  phase margin " + num(phaseMargin(m)) + " deg, gain margin " + num(gainMargin(m))
-                    + ", Ms " + num(m.sensitivityPeak().value()) + " (continuous loop on the model)");
+                    + ", Ms " + num(m.sensitivityPeak().value()) + " (" + loopKind(c) + " on the model)");
         }
         c.setpointResponse().ifPresent(r -> out.println("  setpoint step: rise time " + num(r.riseTimeSeconds())
                 + " s, settling time " + num(r.settlingTimeSeconds()) + " s, overshoot " + num(r.overshootPercent())
@@ -57,9 +57,10 @@ final class TuningReport {
 
     /** Every candidate in one table, then the rules that do not apply and why. */
     static void printTable(PrintWriter out, List<TuningCandidate> candidates, List<RuleNotApplicable> skipped) {
-        String format = "%-16s %-4s %10s %10s %10s %8s %8s %6s %10s %10s %10s%n";
-        out.printf(Locale.ROOT, format, "rule", "type", "gain", "Ti [s]", "Td [s]", "PM [deg]", "GM", "Ms", "overshoot%",
-                "settle [s]", "load IAE");
+        String format = "%-16s %-4s %10s %10s %10s %12s %9s %9s %10s %10s %10s%n";
+        String loop = candidates.stream().anyMatch(TuningCandidate::sampledMargins) ? "sampled " : "cont. ";
+        out.printf(Locale.ROOT, format, "rule", "type", "gain", "Ti [s]", "Td [s]", loop + "PM", loop + "GM",
+                loop + "Ms", "overshoot%", "settle [s]", "load IAE");
         for (TuningCandidate c : candidates) {
             IdealGains i = c.ideal();
             Optional<StabilityMargins> m = c.margins();
@@ -80,6 +81,14 @@ final class TuningReport {
                     + (c.tuning().note().isEmpty() ? "" : "; " + c.tuning().note()));
         }
         cited.forEach(out::println);
+        candidates.stream().findFirst().ifPresent(c -> out.println("margins (PM in degrees): of the " + loopKind(c)
+                + (c.sampledMargins() ? "" : "; give --sample-period for the sampled loop")));
+    }
+
+    /** Which loop a candidate's margins belong to, in words. */
+    static String loopKind(TuningCandidate c) {
+        return c.sampledMargins() ? "loop sampled at h = " + num(c.settings().samplePeriodSeconds()) + " s"
+                : "continuous design";
     }
 
     /** The JSON object of one candidate. */
@@ -109,6 +118,7 @@ final class TuningReport {
             node.putNull("series");
         }
         Optional<StabilityMargins> m = c.margins();
+        node.put("margins_of", m.isEmpty() ? null : c.sampledMargins() ? "sampled" : "continuous");
         Json.number(node, "phase_margin_deg", m.map(TuningReport::phaseMargin).orElse(Double.NaN));
         Json.number(node, "gain_margin", m.map(TuningReport::gainMargin).orElse(Double.NaN));
         Json.number(node, "ms", m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));

@@ -4,6 +4,8 @@ import java.util.Arrays;
 import java.util.Objects;
 
 import org.loopwright.pid.tuning.FopdtModel;
+import org.loopwright.pid.tuning.ProcessModel;
+import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.sim.plant.TransferFunction;
 
 /**
@@ -62,6 +64,12 @@ public record IdentifiedModel(ModelKind kind, double gain, double[] timeConstant
             return new FopdtModel(gain, timeConstants[0], deadTimeSeconds);
         }
         return new FopdtModel(gain, timeConstants[0] + timeConstants[1] / 2.0, deadTimeSeconds + timeConstants[1] / 2.0);
+    }
+
+    /** The model for the tuning rules: first or second order plus dead time, as fitted. */
+    public ProcessModel processModel() {
+        return kind == ModelKind.FOPDT ? toFopdt()
+                : new SopdtModel(gain, timeConstants[0], timeConstants[1], deadTimeSeconds);
     }
 
     /** The unit step response of one or two lags at τ seconds after the dead time. */

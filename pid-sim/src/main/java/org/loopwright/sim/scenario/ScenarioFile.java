@@ -21,6 +21,7 @@ import org.loopwright.sim.config.NumberRule;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.nonideal.ActuatorModel;
 import org.loopwright.sim.nonideal.SensorModel;
+import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantType;
 
 /**
@@ -159,6 +160,18 @@ public final class ScenarioFile {
      */
     public static Scenario read(YamlDocument doc, Path directory) {
         return new Reader(doc, directory).scenario();
+    }
+
+    /**
+     * Reads a plant file: a YAML mapping with the one key {@code plant}, holding a plant mapping of
+     * the scenario format (as {@code identify --write-plant} writes it).
+     *
+     * @throws InputFileException naming the file, line, column, key, value and what is allowed
+     */
+    public static PlantModel readPlant(Path file) {
+        YamlDocument doc = YamlDocument.read(file);
+        FileMapping top = new FileMapping(doc, "", List.of(PLANT), "");
+        return PlantType.read(doc, top.get(PLANT));
     }
 
     /**

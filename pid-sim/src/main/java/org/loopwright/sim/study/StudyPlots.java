@@ -5,6 +5,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 
 import org.hipparchus.complex.Complex;
 import org.knowm.xchart.BitmapEncoder;
@@ -100,6 +101,36 @@ public final class StudyPlots {
         save(loopMagnitude, directory, "loop-magnitude", written);
         save(loopPhase, directory, "loop-phase", written);
         save(nyquist, directory, "nyquist", written);
+        return written;
+    }
+
+    /**
+     * Writes the Bode plots (magnitude, phase) and the Nyquist plot of one loop, with the Ms circle,
+     * as {@code loop-magnitude.png}, {@code loop-phase.png} and {@code nyquist.png} in the directory.
+     *
+     * @param loop  the loop
+     * @param ms    its Ms (the circle of radius 1/Ms around −1)
+     * @param title what the loop is, for the plot titles
+     * @param low   the lowest frequency, rad/s
+     * @param high  the highest frequency, rad/s (π/h for a sampled loop)
+     * @return the files written
+     */
+    public static List<Path> writeLoop(FrequencyResponse loop, double ms, String title, double low, double high,
+            Path directory) throws IOException {
+        XYChart magnitude = bodeChart("Loop magnitude, " + title, "|L| (dB)");
+        XYChart phase = bodeChart("Loop phase, " + title, "arg L (deg)");
+        XYChart nyquist = chart("Nyquist, " + title, "Re L", "Im L");
+        addBode(magnitude, phase, "L", loop, low, high);
+        addNyquist(nyquist, "L", loop, low, high);
+        addMsCircle(nyquist, ms);
+        nyquist.getStyler().setXAxisMin(-NYQUIST_REACH + 1.0).setXAxisMax(1.0).setYAxisMin(-2.0).setYAxisMax(2.0);
+        List<Path> written = new ArrayList<>();
+        for (var entry : List.of(Map.entry("loop-magnitude", magnitude), Map.entry("loop-phase", phase),
+                Map.entry("nyquist", nyquist))) {
+            String base = directory.resolve(entry.getKey()).toString();
+            BitmapEncoder.saveBitmap(entry.getValue(), base, BitmapEncoder.BitmapFormat.PNG);
+            written.add(Path.of(base + ".png"));
+        }
         return written;
     }
 

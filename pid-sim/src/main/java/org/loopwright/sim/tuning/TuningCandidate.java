@@ -13,18 +13,19 @@ import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 
 /**
- * One rule's settings and what they do: the margins of the continuous loop on the model and the
+ * One rule's settings and what they do: the margins of the loop on the model and the
  * figures of a setpoint step and a load step in simulation. Margins and figures are empty when
  * there was no model to check them on.
  *
  * @param tuning            the rule's result
  * @param settings          controller settings carrying the gains (ideal form)
- * @param margins           margins and Ms of the continuous loop on the model
+ * @param margins           margins and Ms of the loop on the model
+ * @param sampledMargins    whether those are of the sampled loop (true) or of the continuous design (false)
  * @param setpointResponse  figures of a unit setpoint step
  * @param loadResponse      figures of a unit load step at the plant input (IAE, peak deviation)
  */
 public record TuningCandidate(TunedGains tuning, ControllerSettings settings, Optional<StabilityMargins> margins,
-                              Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
+                              boolean sampledMargins, Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
 
     /** Checks that nothing is null. */
     public TuningCandidate {

@@ -12,6 +12,11 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.form.IdealGains;
+import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.scenario.ScenarioFile;
 
 class AutotuneCommandTest {
 
@@ -42,6 +47,29 @@ class AutotuneCommandTest {
         // every suggestion is stable on the plant: a positive gain margin above 1
         node.get("suggestions").forEach(s -> assertThat(s.get("gain_margin").asDouble()).isGreaterThan(1.0));
         node.get("suggestions").forEach(s -> assertThat(s.get("load_step").get("iae").asDouble()).isPositive());
+    }
+
+    @Test
+    void writesTheChosenSuggestionAsTheScenariosControllerWithNewGains(@TempDir Path dir) throws Exception {
+        Path file = dir.resolve("tuned.yaml");
+        String scenario = resource("/scenarios/third-order-lag.yaml");
+
+        CommandRun run = CommandRun.of("autotune", scenario, "--json", "--write-controller", file.toString(),
+                "--rule", "ziegler-nichols", "--type", "pid");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode zn = JSON.readTree(run.out()).get("suggestions").get(2);
+        ControllerSettings written = ControllerFile.read(file);
+        ControllerSettings original = ScenarioFile.read(Path.of(scenario)).controller().orElseThrow();
+        IdealGains gains = (IdealGains) written.gains();
+        assertThat(gains.gain()).isEqualTo(zn.get("ideal").get("gain").asDouble());
+        assertThat(gains.integralTime()).isEqualTo(zn.get("ideal").get("integral_time").asDouble());
+        assertThat(gains.derivativeTime()).isEqualTo(zn.get("ideal").get("derivative_time").asDouble());
+        assertThat(written.samplePeriodSeconds()).isEqualTo(original.samplePeriodSeconds());
+        assertThat(written.outputMax()).isEqualTo(original.outputMax());
+        assertThat(CommandRun.of("autotune", scenario, "--write-controller", file.toString(), "--rule", "simc")
+                .err().strip()).isEqualTo("--rule must be one of ziegler-nichols, tyreus-luyben for an ultimate point:"
+                        + " --rule=simc");
     }
 
     @Test

@@ -14,6 +14,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.ScenarioFile;
 
 /** The identify command on an INVENTED step test (analytic FOPDT response plus seeded noise). */
 class IdentifyCommandTest {
@@ -57,6 +59,23 @@ class IdentifyCommandTest {
         Path png = dir.resolve("identify-fopdt.png");
         assertThat(png).exists();
         assertThat(Files.readAllBytes(png)).startsWith(0x89, 'P', 'N', 'G');
+    }
+
+    @Test
+    void writesTheFittedModelAsAPlantBlockThatReadsBackToTheSameTransferFunction(@TempDir Path dir) throws Exception {
+        Path file = bumpTest(dir);
+        Path plant = dir.resolve("plant.yaml");
+
+        CommandRun run = CommandRun.of("identify", file.toString(), "--out", dir.toString(), "--json",
+                "--write-plant", plant.toString());
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode node = JSON.readTree(run.out());
+        TransferFunction read = (TransferFunction) ScenarioFile.readPlant(plant);
+        // the written numbers round-trip exactly (Java's shortest decimal form)
+        assertThat(read.numerator()).containsExactly(node.get("gain").asDouble());
+        assertThat(read.denominator()).containsExactly(node.get("time_constant").asDouble(), 1.0);
+        assertThat(read.deadTimeSeconds()).isEqualTo(node.get("dead_time").asDouble());
     }
 
     @Test

@@ -117,7 +117,8 @@ class TuneCommandTest {
     void writesAControllerFileThatReadsBackToTheSameGains(@TempDir Path dir) {
         Path file = dir.resolve("bath.yaml");
         CommandRun run = CommandRun.of("tune", "--process-gain", "0.25", "--time-constant", "120", "--dead-time", "15",
-                "--rule", "amigo", "--type", "pid", "--write-controller", file.toString());
+                "--rule", "amigo", "--type", "pid", "--sample-period", "0.75", "--output-min", "0", "--output-max", "100",
+                "--write-controller", file.toString());
 
         assertThat(run.exitCode()).isZero();
         assertThat(run.out()).contains("Wrote " + file);
@@ -128,19 +129,75 @@ class TuneCommandTest {
         assertThat(gains.gain()).isCloseTo(15.2, within(1e-9));
         assertThat(gains.integralTime()).isCloseTo(56.6666667, within(1e-6));
         assertThat(gains.derivativeTime()).isCloseTo(7.2289157, within(1e-6));
-        assertThat(settings.samplePeriodSeconds()).isEqualTo(0.75); // min(T, L)/20
+        assertThat(settings.samplePeriodSeconds()).isEqualTo(0.75);
+        assertThat(settings.outputMin()).isEqualTo(0.0);
+        assertThat(settings.outputMax()).isEqualTo(100.0);
+        assertThat(run.out()).contains("(loop sampled at h = 0.7500 s on the model)");
+    }
+
+    @Test
+    void tunesASecondOrderModelBySimcWithTheDerivativeOnTheSecondLag() throws Exception {
+        // SIMC (Skogestad 2003, from memory), K = 2, T1 = 10, T2 = 3, L = 1, tau_c = L: series Kc' = 2.5,
+        // Ti' = 8, Td' = 3; ideal Kc = 2.5*(1 + 3/8) = 3.4375, Ti = 11, Td = 24/11
+        CommandRun run = CommandRun.of("tune", "--process-gain", "2", "--time-constant", "10", "--second-time-constant",
+                "3", "--dead-time", "1", "--rule", "simc", "--type", "pid", "--json");
+
+        assertThat(run.exitCode()).isZero();
+        JsonNode node = JSON.readTree(run.out());
+        assertThat(node.get("ideal").get("gain").asDouble()).isCloseTo(3.4375, within(1e-9));
+        assertThat(node.get("ideal").get("integral_time").asDouble()).isCloseTo(11.0, within(1e-9));
+        assertThat(node.get("ideal").get("derivative_time").asDouble()).isCloseTo(24.0 / 11.0, within(1e-9));
+        assertThat(node.get("margins_of").asText()).isEqualTo("continuous");
+    }
+
+    @Test
+    void tunesAnIntegratingProcessAndSaysWhichRulesDoNotApply() {
+        // SIMC integrating PI (Skogestad 2003, from memory), K = 0.1 1/s, L = 2, tau_c = L: Kc = 2.5, Ti = 16
+        CommandRun run = CommandRun.of("tune", "--process-gain", "0.1", "--integrating", "--dead-time", "2");
+
+        assertThat(run.exitCode()).isZero();
+        assertThat(run.out()).containsPattern("simc +pi +2\\.500 +16\\.00")
+                .contains("not applicable: amigo (PI): AMIGO's rule here is for a self-regulating first-order model");
+    }
+
+    @Test
+    void readsTheModelThatIdentifyPrints(@TempDir Path dir) throws Exception {
+        Path file = dir.resolve("model.json");
+        java.nio.file.Files.writeString(file, "{\n  \"model\" : \"fopdt\",\n  \"gain\" : 2.0,\n"
+                + "  \"time_constant\" : 10.0,\n  \"dead_time\" : 1.0,\n  \"rmse\" : 0.01\n}\n");
+        CommandRun run = CommandRun.of("tune", "--model-file", file.toString(), "--rule", "simc", "--json");
+
+        assertThat(run.exitCode()).isZero();
+        // SIMC PI on K = 2, T = 10, L = 1: Kc = 2.5, Ti = 8 (as TuningRuleTest, from memory)
+        assertThat(JSON.readTree(run.out()).get("ideal").get("gain").asDouble()).isCloseTo(2.5, within(1e-12));
     }
 
     static Stream<Arguments> badInput() {
         return Stream.of(
                 Arguments.of(new String[] {"tune"},
-                        "give either --process-gain, --time-constant and --dead-time, or --ultimate-gain and"
-                                + " --ultimate-period"),
+                        "give either a model (--process-gain, --time-constant, --dead-time; or --model-file) or"
+                                + " --ultimate-gain and --ultimate-period"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--ultimate-gain", "2"},
-                        "give either --process-gain, --time-constant and --dead-time, or --ultimate-gain and"
-                                + " --ultimate-period"),
+                        "give either a model (--process-gain, --time-constant, --dead-time; or --model-file) or"
+                                + " --ultimate-gain and --ultimate-period"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--dead-time", "2"},
-                        "a model needs all of --process-gain, --time-constant and --dead-time"),
+                        "a self-regulating model needs --time-constant (or give --integrating)"),
+                Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "2"},
+                        "a model needs --process-gain and --dead-time, and --time-constant"),
+                Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "2", "--second-time-constant",
+                        "3", "--dead-time", "1"},
+                        "--second-time-constant must be finite, > 0 and <= the first time constant (2.0):"
+                                + " --second-time-constant=3.0"),
+                Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
+                        "--rule", "simc", "--write-controller", "x.yaml"},
+                        "--write-controller needs --sample-period: the controller's period is the device's choice,"
+                                + " not one to invent"),
+                Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
+                        "--output-min", "5", "--output-max", "5"},
+                        "--output-min must be < --output-max: --output-min=5.0, --output-max=5.0"),
+                Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "5", "--dead-time", "1",
+                        "--sample-period", "0"},
+                        "--sample-period must be finite and > 0: --sample-period=0.0"),
                 Arguments.of(new String[] {"tune", "--ultimate-gain", "2"},
                         "an ultimate point needs both --ultimate-gain and --ultimate-period"),
                 Arguments.of(new String[] {"tune", "--ultimate-gain", "2", "--ultimate-period", "3", "--type", "pd"},

@@ -1,0 +1,320 @@
+package org.loopwright.sim.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.discrete.DerivativeMethod;
+import org.loopwright.pid.discrete.IntegralMethod;
+import org.loopwright.pid.tuning.ControllerType;
+import org.loopwright.pid.tuning.FopdtModel;
+import org.loopwright.pid.tuning.IntegratingModel;
+import org.loopwright.pid.tuning.ProcessModel;
+import org.loopwright.pid.tuning.SopdtModel;
+import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.Keywords;
+import org.loopwright.sim.design.Design;
+import org.loopwright.sim.design.DesignModel;
+import org.loopwright.sim.design.DesignResult;
+import org.loopwright.sim.design.DesignSpec;
+import org.loopwright.sim.identify.IdentifiedModel;
+import org.loopwright.sim.identify.ModelKind;
+import org.loopwright.sim.identify.StepIdentification;
+import org.loopwright.sim.identify.StepTest;
+import org.loopwright.sim.identify.StepTestFile;
+import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.sweep.Spread;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code design}: from a step test or a model to settings one can load, with the evidence. Fits the
+ * model (or takes the one given), proposes every published rule that applies and the optimised design
+ * (largest integral gain with a stable sampled loop and Ms within the limit), checks each on the
+ * sampled loop, in simulation with the device's limits and across plant uncertainty, recommends one,
+ * and writes {@code controller.yaml}, {@code scenario.yaml}, {@code candidates.csv}, {@code design.json}
+ * and {@code report.html} into DIR. See {@link Design} and {@link org.loopwright.sim.design.DesignExperiment}.
+ * Exit code 2 for bad input; 0 also when no candidate meets the constraints (the verdict says so).
+ */
+@Command(name = "design", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {"From a step test or a model to verified settings: candidates by every published rule that"
+                + " applies and the optimised design (max-integral-gain: the largest integral gain with a stable"
+                + " sampled loop and Ms within the limit), each checked on the sampled loop, in simulation with the"
+                + " output limits and across plant uncertainty; one recommendation, a controller file, a scenario and"
+                + " a report.",
+                "Give one of: --step-test STEP.csv | --plant PLANT.yaml | --process-gain K --time-constant T"
+                        + " [--second-time-constant T2] --dead-time L | --process-gain K --integrating --dead-time L"
+                        + " [--time-constant T]."})
+public final class DesignCommand implements Callable<Integer> {
+
+    /** SOPDT is kept over FOPDT when it lowers the step test's RMSE by at least this share. */
+    public static final double SOPDT_RMSE_GAIN = 0.2;
+
+    private static final Keywords<String> MODEL_CHOICES = Keywords.of(java.util.Map.entry("auto", "auto"),
+            java.util.Map.entry("fopdt", "fopdt"), java.util.Map.entry("sopdt", "sopdt"));
+
+    @Spec
+    private CommandSpec spec;
+
+    @Option(names = "--step-test", paramLabel = "STEP.csv", description = "A bump test, CSV with columns time,input,output.")
+    private Path stepTest;
+
+    @Option(names = "--model", paramLabel = "fopdt|sopdt|auto", defaultValue = "auto",
+            description = "The model fitted to the step test; auto keeps sopdt when it lowers the RMSE by 20 %% or more"
+                    + " (default: ${DEFAULT-VALUE}).")
+    private String modelChoice;
+
+    @Option(names = "--plant", paramLabel = "PLANT.yaml",
+            description = "A file with one plant: block of the scenario format (fopdt, sopdt with real time constants,"
+                    + " integrating; as identify --write-plant writes it).")
+    private Path plantFile;
+
+    @Option(names = "--process-gain", paramLabel = "K", description = "Process gain K (per second for --integrating).")
+    private Double processGain;
+
+    @Option(names = "--time-constant", paramLabel = "T", description = "Time constant T, s (the lag with --integrating).")
+    private Double timeConstant;
+
+    @Option(names = "--second-time-constant", paramLabel = "T2", description = "Second time constant T2 <= T, s.")
+    private Double secondTimeConstant;
+
+    @Option(names = "--integrating", description = "The process integrates (a level, a position).")
+    private boolean integrating;
+
+    @Option(names = "--dead-time", paramLabel = "L", description = "Dead time L, s.")
+    private Double deadTime;
+
+    @Option(names = "--sample-period", paramLabel = "H", required = true,
+            description = "The controller's sample period on the device, s (required).")
+    private double samplePeriod;
+
+    @Option(names = "--output-min", paramLabel = "A", description = "Lower output limit (default: none).")
+    private Double outputMin;
+
+    @Option(names = "--output-max", paramLabel = "B", description = "Upper output limit (default: none).")
+    private Double outputMax;
+
+    @Option(names = "--output-slew", paramLabel = "S", description = "Output slew limit, units per second (default: none).")
+    private Double outputSlew;
+
+    @Option(names = "--sensor-delay-samples", paramLabel = "N", defaultValue = "0",
+            description = "Whole samples of measurement delay (default: ${DEFAULT-VALUE}).")
+    private int sensorDelay;
+
+    @Option(names = "--max-sensitivity", paramLabel = "MS", defaultValue = "1.4",
+            description = "The limit on the sampled loop's Ms (default: ${DEFAULT-VALUE}).")
+    private double maxSensitivity;
+
+    @Option(names = "--type", paramLabel = "pi|pid|auto", defaultValue = "auto",
+            description = "PI, PID, or both (default: ${DEFAULT-VALUE}).")
+    private String type;
+
+    @Option(names = "--integral-method", paramLabel = "M", defaultValue = "tustin",
+            description = "forward-euler, backward-euler or tustin (default: ${DEFAULT-VALUE}).")
+    private String integralMethod;
+
+    @Option(names = "--derivative-method", paramLabel = "M", defaultValue = "backward-euler",
+            description = "backward-euler, tustin, step-invariant, ramp-invariant or forward-euler"
+                    + " (default: ${DEFAULT-VALUE}).")
+    private String derivativeMethod;
+
+    @Option(names = "--spread", paramLabel = "KEY=P%[,...]", defaultValue = "gain=20%,time-constant=20%,dead-time=20%",
+            description = "Plant uncertainty of the robustness sweep (default: ${DEFAULT-VALUE}).")
+    private String spreadText;
+
+    @Option(names = "--runs", paramLabel = "N", defaultValue = "200",
+            description = "Sweep runs per candidate (default: ${DEFAULT-VALUE}).")
+    private int runs;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of the sweep (default: ${DEFAULT-VALUE}).")
+    private long seed;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "design",
+            description = "Folder for the files (default: ${DEFAULT-VALUE}, in the working directory).")
+    private Path outDirectory;
+
+    @Option(names = "--json", description = "Print design.json instead of text (no progress bar).")
+    private boolean json;
+
+    @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
+    private boolean noProgress;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        DesignResult result;
+        try {
+            DesignSpec designSpec = specification();
+            DesignModel model = model();
+            boolean bar = !json && !noProgress && System.console() != null;
+            int threads = Runtime.getRuntime().availableProcessors();
+            try (SweepProgress progress = bar ? SweepProgress.on(System.err, Design.progressSteps(designSpec))
+                    : SweepProgress.off()) {
+                result = Design.run(model, designSpec, threads, progress);
+            }
+        } catch (InputFileException | IllegalArgumentException e) {
+            err.println(e instanceof InvalidSettingException s ? TuneCommand.inOptionTerms(s) : e.getMessage());
+            err.flush();
+            return LoopwrightCommand.BAD_INPUT;
+        }
+        Files.createDirectories(outDirectory);
+        List<String> files = DesignFiles.write(result, outDirectory, HtmlReports.version(spec));
+        if (json) {
+            out.println(Json.pretty(DesignFiles.json(result, files)));
+        } else {
+            DesignFiles.printText(out, result, files, outDirectory);
+        }
+        out.flush();
+        return 0;
+    }
+
+    private DesignSpec specification() {
+        List<ControllerType> types = switch (type) {
+            case "pi" -> List.of(ControllerType.PI);
+            case "pid" -> List.of(ControllerType.PID);
+            case "auto" -> List.of(ControllerType.PI, ControllerType.PID);
+            default -> throw new IllegalArgumentException("--type must be pi, pid or auto: --type=" + type);
+        };
+        IntegralMethod integral = ControllerFile.INTEGRAL_METHODS.value(integralMethod).orElseThrow(() ->
+                new IllegalArgumentException("--integral-method must be one of "
+                        + String.join(", ", ControllerFile.INTEGRAL_METHODS.words()) + ": --integral-method="
+                        + integralMethod));
+        DerivativeMethod derivative = ControllerFile.DERIVATIVE_METHODS.value(derivativeMethod).orElseThrow(() ->
+                new IllegalArgumentException("--derivative-method must be one of "
+                        + String.join(", ", ControllerFile.DERIVATIVE_METHODS.words()) + ": --derivative-method="
+                        + derivativeMethod));
+        return new DesignSpec(samplePeriod, outputMin == null ? Double.NEGATIVE_INFINITY : outputMin,
+                outputMax == null ? Double.POSITIVE_INFINITY : outputMax,
+                outputSlew == null ? Double.POSITIVE_INFINITY : outputSlew, sensorDelay, maxSensitivity, types,
+                integral, derivative, Spread.parse(spreadText), runs, seed);
+    }
+
+    private DesignModel model() {
+        boolean fromOptions = processGain != null || timeConstant != null || secondTimeConstant != null
+                || deadTime != null || integrating;
+        int sources = (stepTest != null ? 1 : 0) + (plantFile != null ? 1 : 0) + (fromOptions ? 1 : 0);
+        if (sources != 1) {
+            throw new IllegalArgumentException("give one model: --step-test STEP.csv, --plant PLANT.yaml, or"
+                    + " --process-gain with --time-constant and --dead-time (or --integrating and --dead-time)"
+                    + (sources == 0 ? "" : "; more than one was given"));
+        }
+        if (stepTest == null && !modelChoice.equals("auto")) {
+            throw new IllegalArgumentException("--model applies to --step-test only: --model=" + modelChoice);
+        }
+        if (stepTest != null) {
+            return fromStepTest();
+        }
+        if (plantFile != null) {
+            return DesignModel.given(fromPlant(plantFile), "plant-file");
+        }
+        return DesignModel.given(fromOptions(), "options");
+    }
+
+    private DesignModel fromStepTest() {
+        String choice = MODEL_CHOICES.value(modelChoice).orElseThrow(() -> new IllegalArgumentException(
+                "--model must be fopdt, sopdt or auto: --model=" + modelChoice));
+        StepTest test = StepTestFile.read(stepTest);
+        if (!choice.equals("auto")) {
+            IdentifiedModel fit = StepIdentification.identify(test, choice.equals("fopdt") ? ModelKind.FOPDT
+                    : ModelKind.SOPDT);
+            return new DesignModel(fit.processModel(), "step-test", java.util.Optional.of(test),
+                    java.util.Optional.of(fit), choice + " as asked (--model " + choice + ")");
+        }
+        IdentifiedModel first = StepIdentification.identify(test, ModelKind.FOPDT);
+        IdentifiedModel second;
+        try {
+            second = StepIdentification.identify(test, ModelKind.SOPDT);
+        } catch (InputFileException noFit) {
+            return new DesignModel(first.processModel(), "step-test", java.util.Optional.of(test),
+                    java.util.Optional.of(first), "fopdt: the second-order fit did not converge");
+        }
+        double gain = 1.0 - second.rmse() / first.rmse();
+        String figures = String.format(Locale.ROOT, "RMSE %.4g against %.4g for fopdt, %.0f %% lower",
+                second.rmse(), first.rmse(), 100.0 * gain);
+        if (gain >= SOPDT_RMSE_GAIN) {
+            return new DesignModel(second.processModel(), "step-test", java.util.Optional.of(test),
+                    java.util.Optional.of(second), "sopdt kept: " + figures + " (at least "
+                            + Math.round(100 * SOPDT_RMSE_GAIN) + " % lower asked): the data shows a second lag");
+        }
+        return new DesignModel(first.processModel(), "step-test", java.util.Optional.of(test),
+                java.util.Optional.of(first), "fopdt kept: sopdt's " + figures + ", less than the "
+                        + Math.round(100 * SOPDT_RMSE_GAIN) + " % that would justify a parameter more");
+    }
+
+    private ProcessModel fromOptions() {
+        try {
+            if (processGain == null || deadTime == null) {
+                throw new IllegalArgumentException("a model needs --process-gain and --dead-time"
+                        + (integrating ? "" : ", and --time-constant"));
+            }
+            if (integrating) {
+                if (secondTimeConstant != null) {
+                    throw new IllegalArgumentException("--integrating takes one lag (--time-constant), not"
+                            + " --second-time-constant: --second-time-constant=" + secondTimeConstant);
+                }
+                return new IntegratingModel(processGain, timeConstant == null ? 0.0 : timeConstant, deadTime);
+            }
+            if (timeConstant == null) {
+                throw new IllegalArgumentException("a self-regulating model needs --time-constant (or give"
+                        + " --integrating)");
+            }
+            return secondTimeConstant == null ? new FopdtModel(processGain, timeConstant, deadTime)
+                    : new SopdtModel(processGain, timeConstant, secondTimeConstant, deadTime);
+        } catch (InvalidSettingException e) {
+            throw new IllegalArgumentException(TuneCommand.inOptionTerms(e), e);
+        }
+    }
+
+    /** The plant file's model as a process model the rules take, or why it is none. */
+    static ProcessModel fromPlant(Path file) {
+        PlantModel plant = ScenarioFile.readPlant(file);
+        TransferFunction tf = plant.linear().orElseThrow(() -> InputFileException.whole(file.toString(),
+                "design needs a linear plant (fopdt, sopdt, integrating): plant.type=" + plant.type().word()));
+        double[] num = tf.numerator();
+        double[] den = tf.denominator();
+        double l = tf.deadTimeSeconds();
+        String unsupported = "design needs a first-order, second-order (real time constants) or integrating plant"
+                + " with a constant numerator: plant=" + tf;
+        if (num.length != 1) {
+            throw InputFileException.whole(file.toString(), unsupported);
+        }
+        double k = num[0];
+        double last = den[den.length - 1];
+        try {
+            if (den.length == 2 && last != 0.0) {
+                return new FopdtModel(k / last, den[0] / last, l);
+            }
+            if (den.length == 3 && last != 0.0) {
+                double sum = den[1] / last;
+                double product = den[0] / last;
+                double discriminant = sum * sum - 4.0 * product;
+                if (discriminant >= 0.0 && product > 0.0 && sum > 0.0) {
+                    double root = Math.sqrt(discriminant);
+                    return new SopdtModel(k / last, 0.5 * (sum + root), 0.5 * (sum - root), l);
+                }
+            }
+            if (den.length == 2 && last == 0.0) {
+                return new IntegratingModel(k / den[0], 0.0, l);
+            }
+            if (den.length == 3 && last == 0.0 && den[1] != 0.0) {
+                return new IntegratingModel(k / den[1], den[0] / den[1], l);
+            }
+        } catch (InvalidSettingException e) {
+            throw InputFileException.whole(file.toString(), unsupported);
+        }
+        throw InputFileException.whole(file.toString(), unsupported);
+    }
+}
