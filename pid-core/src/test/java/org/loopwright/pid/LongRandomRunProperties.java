@@ -164,10 +164,12 @@ class LongRandomRunProperties {
             boolean normal = c.fault() == Fault.NONE;
             if (state != null && c.mode() == Mode.MANUAL) {
                 // a good first sample is limited by the range only; a bad one moves at the configured period
-                double period = normal ? (state.started() ? h : Double.POSITIVE_INFINITY)
-                        : current.samplePeriodSeconds();
-                double target = manualTarget(state.manualValue(), from, period);
-                check(position == target, "manual position %s, not the operator's %s, after %s", position, target, op);
+                // (a first sample emits no increment, so its position step is not limited either)
+                boolean first = normal && !state.started();
+                double target = first ? Math.min(Math.max(state.manualValue(), current.outputMin()), current.outputMax())
+                        : manualTarget(state.manualValue(), from, normal ? h : current.samplePeriodSeconds());
+                check(position == target, "manual position %s, not the operator's %s (from %s, %s), after %s",
+                        position, target, from, state, op);
             }
             if (normal && c.mode() == Mode.AUTOMATIC && lastWasNormalAutomatic) {
                 double step = current.outputSlewPerSecond() * h;
@@ -186,7 +188,7 @@ class LongRandomRunProperties {
         /** The operator's value within the range and one slew step at the period. */
         private double manualTarget(double operator, double from, double period) {
             double step = Math.min(current.outputSlewPerSecond() * period,
-                    current.outputKind() == OutputKind.INCREMENT ? Double.MAX_VALUE : Double.POSITIVE_INFINITY);
+                    current.outputKind() == OutputKind.INCREMENT ? OutputKind.LARGEST_INCREMENT : Double.POSITIVE_INFINITY);
             double lo = Math.max(current.outputMin(), from - step);
             double hi = Math.min(current.outputMax(), from + step);
             return Math.min(Math.max(operator, lo), hi);
