@@ -6,8 +6,8 @@ import java.util.Map;
 import java.util.function.Function;
 import java.util.stream.Collectors;
 
-import org.loopwright.bench.timing.TimedLoop;
-import org.loopwright.bench.timing.TimingResult;
+import org.loopwright.sim.timing.LoopTiming;
+import org.loopwright.sim.timing.TimingResult;
 
 /**
  * Everything one suite run measured, each figure beside its baseline, and the targets checked.
@@ -69,7 +69,7 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
         List<TimingComparison> comparisons = new ArrayList<>();
         for (TimingResult t : timings) {
             TimingResult base = timings.stream()
-                    .filter(b -> b.loop() == TimedLoop.BUSY_WAIT_BASELINE && b.periodNanos() == t.periodNanos())
+                    .filter(b -> LoopTiming.BASELINE.equals(b.loop()) && b.periodNanos() == t.periodNanos())
                     .findFirst().orElseThrow(() -> new IllegalArgumentException(
                             "no busy-wait baseline at periodNanos=" + t.periodNanos()));
             comparisons.add(new TimingComparison(t, ratio(t.p50Nanos(), base.p50Nanos()),

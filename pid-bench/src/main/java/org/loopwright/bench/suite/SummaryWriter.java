@@ -10,7 +10,7 @@ import java.util.Locale;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 
-import org.loopwright.bench.timing.TimingResult;
+import org.loopwright.sim.timing.TimingResult;
 
 /** Writes a {@link SuiteSummary} as {@code summary.md} and {@code summary.json} in a directory. */
 public final class SummaryWriter {

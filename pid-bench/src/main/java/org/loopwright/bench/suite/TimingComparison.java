@@ -1,6 +1,6 @@
 package org.loopwright.bench.suite;
 
-import org.loopwright.bench.timing.TimingResult;
+import org.loopwright.sim.timing.TimingResult;
 
 /**
  * A loop's timing beside the busy-wait baseline at the same rate.

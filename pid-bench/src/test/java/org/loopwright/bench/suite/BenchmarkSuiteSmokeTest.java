@@ -56,6 +56,6 @@ class BenchmarkSuiteSmokeTest {
             assertThat(result.get("cpuFraction").asDouble()).as(result.toString()).isPositive();
         }
         assertThat(summary.get("targets")).hasSize(4);
-        assertThat(Files.readString(out.resolve("summary.md"))).contains("Smoke run", "## Targets", "BUSY_WAIT_BASELINE");
+        assertThat(Files.readString(out.resolve("summary.md"))).contains("Smoke run", "## Targets", "busy-wait baseline", "runner, park-then-spin");
     }
 }

@@ -68,14 +68,23 @@ public final class Cascade {
     public Cascade(PidController outer, PidController inner) {
         this.outer = Objects.requireNonNull(outer, "outer");
         this.inner = Objects.requireNonNull(inner, "inner");
-        ControllerSettings o = outer.settings();
-        if (o.windupProtection() != WindupProtection.ACTUATOR_TRACKING) {
-            throw new InvalidSettingException("outerWindupProtection", o.windupProtection(),
+        innerSamplesPerOuterSample = requireCompatible(outer.settings(), inner.settings());
+        innerSetpoint = outer.position();
+    }
+
+    /**
+     * Checks that two controllers' settings can form a cascade.
+     *
+     * @return the whole number n of inner samples per outer sample
+     * @throws InvalidSettingException when the outer settings do not use
+     *         {@link WindupProtection#ACTUATOR_TRACKING} or the periods are not in a whole ratio
+     */
+    public static int requireCompatible(ControllerSettings outer, ControllerSettings inner) {
+        if (outer.windupProtection() != WindupProtection.ACTUATOR_TRACKING) {
+            throw new InvalidSettingException("outerWindupProtection", outer.windupProtection(),
                     "must be ACTUATOR_TRACKING, so that the outer loop tracks what the inner loop achieves");
         }
-        innerSamplesPerOuterSample = samplesPerOuterSample(o.samplePeriodSeconds(),
-                inner.settings().samplePeriodSeconds());
-        innerSetpoint = outer.position();
+        return samplesPerOuterSample(outer.samplePeriodSeconds(), inner.samplePeriodSeconds());
     }
 
     /**
@@ -183,6 +192,26 @@ public final class Cascade {
             innerSetpoint = localSetpoint;
         }
         return true;
+    }
+
+    /**
+     * Back to the state of a new cascade: both controllers reset (counters included), cascade mode,
+     * the outer controller about to run. For a simulation that starts again from rest.
+     */
+    public void reset() {
+        if (outerFollowing) {
+            outer.switchToAutomatic();
+        }
+        outer.reset();
+        inner.reset();
+        innerSample = 0;
+        mode = CascadeMode.CASCADE;
+        localSetpoint = 0.0;
+        innerSetpoint = outer.position();
+        innerLimitedThisPeriod = false;
+        outerFollowing = false;
+        localSinceOuterSample = false;
+        outerModeBeforeFollowing = Mode.AUTOMATIC;
     }
 
     /** Cascade or local. */

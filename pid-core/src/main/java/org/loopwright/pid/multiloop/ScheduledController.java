@@ -101,6 +101,17 @@ public final class ScheduledController {
         return controller.update(setpoint, measurement);
     }
 
+    /**
+     * Back to the state of a new scheduled controller: the controller reset, the first point's
+     * settings published, no external value. For a simulation that starts again from rest.
+     */
+    public void reset() {
+        current = 0;
+        external = Double.NaN;
+        controller.retune(steps[0]);
+        controller.reset();
+    }
+
     /** Sets the scheduling variable for {@link ScheduleVariable#EXTERNAL}; ignored by the others. */
     public void externalValue(double value) {
         external = value;

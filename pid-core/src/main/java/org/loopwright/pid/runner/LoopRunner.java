@@ -12,6 +12,7 @@ import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
 import org.loopwright.pid.StateCapture;
 import org.loopwright.pid.StateSnapshot;
+import org.loopwright.pid.monitor.LoopCondition;
 import org.loopwright.pid.monitor.LoopMonitor;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -66,6 +67,7 @@ import org.slf4j.LoggerFactory;
 public final class LoopRunner {
 
     private static final Logger LOG = LoggerFactory.getLogger(LoopRunner.class);
+    private static final LoopCondition[] CONDITIONS = LoopCondition.values();
 
     private final RunnerSettings settings;
     private final PidController controller;
@@ -349,7 +351,7 @@ public final class LoopRunner {
         }
     }
 
-    /** Publishes the last tick's figures as one view (the only writes to the board). */
+    /** Publishes the last tick's figures, the monitor's conditions included, as one view (the only writes to the board). */
     private void publishStatus() {
         LoopStatus s = board.current;
         board.beginWrite();
@@ -367,6 +369,11 @@ public final class LoopRunner {
         s.faultCount = controller.faultCount();
         s.lastPeriodErrorNanos = lastPeriodError;
         s.appliedCommandCount = channel.nextToApply();
+        if (monitor != null) {
+            for (LoopCondition c : CONDITIONS) {
+                s.conditions[c.ordinal()] = monitor.status(c);
+            }
+        }
         board.endWrite();
     }
 

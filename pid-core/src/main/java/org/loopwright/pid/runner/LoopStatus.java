@@ -2,6 +2,8 @@ package org.loopwright.pid.runner;
 
 import org.loopwright.pid.Fault;
 import org.loopwright.pid.Mode;
+import org.loopwright.pid.monitor.ConditionStatus;
+import org.loopwright.pid.monitor.LoopCondition;
 
 /**
  * One consistent view of a running loop, as published after a tick: every figure in it belongs to
@@ -27,6 +29,7 @@ public final class LoopStatus {
     long lastPeriodErrorNanos;
     long appliedCommandCount;
     long rejectedCommandCount;
+    final ConditionStatus[] conditions = new ConditionStatus[LoopCondition.values().length]; // nulls: no monitor
 
     /** An empty holder, to be filled by {@link LoopRunner#readStatus(LoopStatus)}. */
     public LoopStatus() {
@@ -47,6 +50,7 @@ public final class LoopStatus {
         lastPeriodErrorNanos = s.lastPeriodErrorNanos;
         appliedCommandCount = s.appliedCommandCount;
         rejectedCommandCount = s.rejectedCommandCount;
+        System.arraycopy(s.conditions, 0, conditions, 0, conditions.length);
     }
 
     /** Ticks run since the runner was built (counting across restarts). */
@@ -120,6 +124,26 @@ public final class LoopStatus {
     /** Operator commands that were taken but could not be applied (a restore that did not fit). */
     public long rejectedCommandCount() {
         return rejectedCommandCount;
+    }
+
+    /**
+     * The loop monitor's status of a condition after the last tick, for a runner built with
+     * {@link LoopRunner#monitored}; null for a runner without a monitor (nothing is watched, which is
+     * not the same as ok).
+     */
+    public ConditionStatus condition(LoopCondition condition) {
+        return conditions[condition.ordinal()];
+    }
+
+    /** The worst of the monitor's condition statuses after the last tick; null without a monitor. */
+    public ConditionStatus worstCondition() {
+        ConditionStatus worst = conditions[0];
+        for (ConditionStatus c : conditions) {
+            if (c != null && c.compareTo(worst) > 0) {
+                worst = c;
+            }
+        }
+        return worst;
     }
 
     @Override

@@ -55,4 +55,13 @@ public interface LoopStatusMXBean {
 
     /** See {@link LoopStatus#rejectedCommandCount()}. */
     long getRejectedCommandCount();
+
+    /**
+     * The monitor's condition statuses, {@code condition=status} joined by commas (for example
+     * {@code oscillation=ok, sluggish=warn, ...}); empty for a runner without a monitor.
+     */
+    String getConditions();
+
+    /** The worst of the monitor's condition statuses in words; empty without a monitor. */
+    String getWorstCondition();
 }

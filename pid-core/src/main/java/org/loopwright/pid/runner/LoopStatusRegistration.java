@@ -3,10 +3,14 @@ package org.loopwright.pid.runner;
 import java.lang.management.ManagementFactory;
 import java.util.Locale;
 import java.util.Objects;
+import java.util.StringJoiner;
 
 import javax.management.JMException;
 import javax.management.MBeanServer;
 import javax.management.ObjectName;
+
+import org.loopwright.pid.monitor.ConditionStatus;
+import org.loopwright.pid.monitor.LoopCondition;
 
 /**
  * Optional: a runner's status registered as an MXBean on the platform MBean server, under
@@ -160,6 +164,24 @@ public final class LoopStatusRegistration implements AutoCloseable {
         @Override
         public long getRejectedCommandCount() {
             return runner.status().rejectedCommandCount();
+        }
+
+        @Override
+        public String getConditions() {
+            LoopStatus status = runner.status();
+            StringJoiner joined = new StringJoiner(", ");
+            for (LoopCondition c : LoopCondition.values()) {
+                if (status.condition(c) != null) {
+                    joined.add(c.label() + "=" + word(status.condition(c)));
+                }
+            }
+            return joined.toString();
+        }
+
+        @Override
+        public String getWorstCondition() {
+            ConditionStatus worst = runner.status().worstCondition();
+            return worst == null ? "" : word(worst);
         }
     }
 }

@@ -78,6 +78,12 @@ class MonitoredRunnerTest {
         assertThat(s.samples()).isEqualTo(runner.tickCount());
         assertThat(monitor.status(LoopCondition.SATURATION)).isEqualTo(ConditionStatus.ALARM);
         assertThat(monitor.status(LoopCondition.FROZEN_MEASUREMENT)).isEqualTo(ConditionStatus.ALARM);
+        // the runner's published status carries the monitor's conditions of the last tick
+        LoopStatus published = runner.status();
+        for (LoopCondition c : LoopCondition.values()) {
+            assertThat(published.condition(c)).as(c.label()).isEqualTo(monitor.status(c));
+        }
+        assertThat(published.worstCondition()).isEqualTo(ConditionStatus.ALARM);
         assertThat(probe.windows()).contains(0L);
         assertThat(java.util.Arrays.stream(probe.windows()).sum()).isLessThan(256L);
     }

@@ -211,6 +211,7 @@ class OperatorChannelTest {
             assertThat(server.getAttribute(name, "Mode")).isEqualTo("automatic");
             assertThat(server.getAttribute(name, "State")).isEqualTo("running");
             assertThat(server.getAttribute(name, "PeriodNanos")).isEqualTo(1_000_000L);
+            assertThat(server.getAttribute(name, "Conditions")).as("no monitor, nothing watched").isEqualTo("");
             assertThatThrownBy(() -> LoopStatusRegistration.register(runner, "bath-heater"))
                     .isInstanceOf(IllegalArgumentException.class)
                     .hasMessageStartingWith("cannot register the loop status over JMX: name=bath-heater");

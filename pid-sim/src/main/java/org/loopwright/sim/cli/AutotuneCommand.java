@@ -87,6 +87,13 @@ public final class AutotuneCommand implements Callable<Integer> {
             TuningRule written = TuneCommand.parseRule(rule, false);
             ControllerType writtenType = TuneCommand.parseType(type);
             Scenario scenario = ScenarioFile.read(scenarioFile);
+            if (scenario.inner().isPresent() || scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
+                err.println(scenarioFile + ": autotune runs a relay on a single loop with fixed gains and one actuator: "
+                        + (scenario.inner().isPresent() ? "inner" : scenario.schedule().isPresent()
+                        ? "controller.schedule" : "split-range") + " is given");
+                err.flush();
+                return LoopwrightCommand.BAD_INPUT;
+            }
             RelaySimulation.Outcome relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis),
                     orNaN(excursionLimit));
             if (relay.status() != RelayStatus.SUCCEEDED) {

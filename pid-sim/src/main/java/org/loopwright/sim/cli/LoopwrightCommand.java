@@ -13,7 +13,7 @@ import picocli.CommandLine.Command;
         description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
         subcommands = {CommandLine.HelpCommand.class, SimulateCommand.class, ReplayCommand.class,
                 MarginsCommand.class, CompareCommand.class, TuneCommand.class, DesignCommand.class, IdentifyCommand.class,
-                AutotuneCommand.class, SweepCommand.class})
+                AutotuneCommand.class, SweepCommand.class, TimingCommand.class})
 public final class LoopwrightCommand implements Runnable {
 
     /** Exit code for bad input. */

@@ -9,11 +9,14 @@ import java.util.concurrent.Callable;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.GainCrossing;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.PhaseCrossing;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.InnerLoop;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -30,11 +33,15 @@ import picocli.CommandLine.Spec;
  * (see {@link LoopAnalysis}). Frequencies in rad/s, delay margins in seconds; a margin that does not
  * exist (no crossover) is null in JSON and "none" in the table. Exit code 2 for a bad file, a
  * nonlinear plant or an on-off controller.
+ *
+ * <p>For a cascade it reports the inner loop alone and the outer loop with the inner loop closed
+ * ({@link CascadeAnalysis}), as {@code {"inner": {"continuous", "sampled"}, "outer": {...}}}.
  */
 @Command(name = "margins", mixinStandardHelpOptions = true,
         description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop, continuous and sampled.",
                 "The sampled loop has the controller at z = e^(jωh) and the plant by its zero-order-hold equivalent;",
-                "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller."})
+                "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller.",
+                "A cascade (inner key) gives the inner loop alone and the outer loop with the inner loop closed."})
 public final class MarginsCommand implements Callable<Integer> {
 
     /** The table lists this many phase crossovers at most (JSON lists them all). */
@@ -46,7 +53,8 @@ public final class MarginsCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario file.")
     private Path scenarioFile;
 
-    @Option(names = "--json", description = "Print one JSON object with keys continuous and sampled.")
+    @Option(names = "--json", description = "Print one JSON object with keys continuous and sampled"
+            + " (for a cascade: inner and outer, each with both).")
     private boolean json;
 
     @Override
@@ -55,33 +63,64 @@ public final class MarginsCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         LinearLoopFile loop;
         try {
-            loop = LinearLoopFile.read(scenarioFile, "margins");
+            loop = LinearLoopFile.read(scenarioFile, "margins", true);
         } catch (InputFileException e) {
             err.println(e.getMessage());
             err.flush();
             return LoopwrightCommand.BAD_INPUT;
         }
         ControllerSettings settings = loop.settings();
+        if (loop.scenario().inner().isPresent()) {
+            InnerLoop inner = loop.scenario().inner().get();
+            TransferFunction innerPlant = inner.plant().linear().orElseThrow();
+            ControllerSettings innerSettings = inner.controller();
+            StabilityMargins innerContinuous = LoopAnalysis.continuous(innerPlant, innerSettings);
+            SampledMargins innerSampled = LoopAnalysis.sampled(innerPlant, innerSettings);
+            StabilityMargins outerContinuous = CascadeAnalysis.outerContinuous(loop.plant(), settings, innerPlant,
+                    innerSettings);
+            SampledMargins outerSampled = CascadeAnalysis.outerSampled(loop.plant(), settings, innerPlant,
+                    innerSettings);
+            if (json) {
+                ObjectNode root = Json.object();
+                root.set("inner", loopNode(innerSettings, innerContinuous, innerSampled));
+                root.set("outer", loopNode(settings, outerContinuous, outerSampled));
+                out.println(Json.pretty(root));
+            } else {
+                out.println("Inner loop (inner.controller on inner.plant):");
+                table(out, innerSettings, innerContinuous, innerSampled);
+                out.println();
+                out.println("Outer loop (controller on plant, with the inner loop closed):");
+                table(out, settings, outerContinuous, outerSampled);
+            }
+            out.flush();
+            return 0;
+        }
         StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
         SampledMargins sampled = LoopAnalysis.sampled(loop.plant(), settings);
         if (json) {
-            ObjectNode root = Json.object();
-            root.set("continuous", margins(continuous));
-            ObjectNode sampledNode = margins(sampled.margins());
-            sampledNode.put("stable", sampled.stable());
-            Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
-            sampledNode.put("sample_period", settings.samplePeriodSeconds());
-            sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
-                    ? ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) : null);
-            sampledNode.put("derivative_method", settings.parallelGains().derivativeGain() > 0.0
-                    ? ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()) : null);
-            root.set("sampled", sampledNode);
-            out.println(Json.pretty(root));
+            out.println(Json.pretty(loopNode(settings, continuous, sampled)));
         } else {
             table(out, settings, continuous, sampled);
         }
         out.flush();
         return 0;
+    }
+
+    /** {"continuous": {...}, "sampled": {...}} of one loop. */
+    private static ObjectNode loopNode(ControllerSettings settings, StabilityMargins continuous,
+            SampledMargins sampled) {
+        ObjectNode root = Json.object();
+        root.set("continuous", margins(continuous));
+        ObjectNode sampledNode = margins(sampled.margins());
+        sampledNode.put("stable", sampled.stable());
+        Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
+        sampledNode.put("sample_period", settings.samplePeriodSeconds());
+        sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
+                ? ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) : null);
+        sampledNode.put("derivative_method", settings.parallelGains().derivativeGain() > 0.0
+                ? ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()) : null);
+        root.set("sampled", sampledNode);
+        return root;
     }
 
     private static ObjectNode margins(StabilityMargins m) {

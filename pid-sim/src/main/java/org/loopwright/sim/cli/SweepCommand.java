@@ -113,6 +113,15 @@ public final class SweepCommand implements Callable<Integer> {
                 throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
                         + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
             }
+            if (scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
+                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
+                        + PlantType.linearWords() + "): inner.plant.type=" + scenario.inner().get().plant().type().word());
+            }
+            if (scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
+                throw InputFileException.whole(scenarioFile.toString(), "sweep judges stability on a loop with fixed"
+                        + " gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
+                        : "split-range") + " is given");
+            }
         } catch (InputFileException | IllegalArgumentException e) {
             err.println(e.getMessage());
             err.flush();

@@ -3,6 +3,7 @@ package org.loopwright.sim.config;
 import static java.util.Map.entry;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -251,7 +252,23 @@ public final class ControllerFile {
      * @throws InputFileException naming the file, line, column, key, value and what is allowed
      */
     public static ControllerSettings read(YamlDocument doc, String pointer) {
-        FileMapping file = new FileMapping(doc, pointer, KEYS, "");
+        return read(doc, pointer, List.of());
+    }
+
+    /**
+     * Reads the controller mapping at a pointer that may also hold keys another reader reads (a
+     * scenario's {@code schedule}).
+     *
+     * @param doc         the document
+     * @param pointer     the mapping's pointer
+     * @param alsoAllowed the other keys the mapping may hold, left to their reader
+     * @return the settings
+     * @throws InputFileException naming the file, line, column, key, value and what is allowed
+     */
+    public static ControllerSettings read(YamlDocument doc, String pointer, List<FileKey<?>> alsoAllowed) {
+        List<FileKey<?>> keys = new ArrayList<>(KEYS);
+        keys.addAll(alsoAllowed);
+        FileMapping file = new FileMapping(doc, pointer, keys, "");
         return file.build(() -> settings(file));
     }
 

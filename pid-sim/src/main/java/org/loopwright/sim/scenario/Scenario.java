@@ -9,6 +9,8 @@ import java.util.Optional;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.SettingChecks;
+import org.loopwright.pid.multiloop.Cascade;
+import org.loopwright.pid.multiloop.GainSchedule;
 import org.loopwright.pid.onoff.OnOffSettings;
 import org.loopwright.sim.nonideal.ActuatorModel;
 import org.loopwright.sim.nonideal.SensorModel;
@@ -48,6 +50,9 @@ public final class Scenario {
     private final SensorModel sensor;
     private final double durationSeconds;
     private final long seed;
+    private final InnerLoop inner;
+    private final GainSchedule schedule;
+    private final SplitRangeSpec splitRange;
 
     private Scenario(Builder b) {
         plant = Objects.requireNonNull(b.plant, "plant");
@@ -56,7 +61,31 @@ public final class Scenario {
         }
         controller = b.controller;
         onOffController = b.onOffController;
-        samplePeriodSeconds = controller != null ? controller.samplePeriodSeconds()
+        inner = b.inner;
+        schedule = b.schedule;
+        splitRange = b.splitRange;
+        if (inner != null) {
+            if (controller == null) {
+                throw new InvalidSettingException("onOffController", "given",
+                        "cannot be the outer controller of a cascade; give a PID controller");
+            }
+            if (schedule != null) {
+                throw new InvalidSettingException("schedule", "given",
+                        "applies to a single loop's controller, not to a cascade's outer one");
+            }
+            Cascade.requireCompatible(controller, inner.controller());
+        }
+        if (schedule != null && controller == null) {
+            throw new InvalidSettingException("schedule", "given", "needs a PID controller");
+        }
+        if (splitRange != null) {
+            if (drivingController().isEmpty()) {
+                throw new InvalidSettingException("splitRange", "given", "needs a PID controller");
+            }
+            splitRange.forController(drivingController().get());
+        }
+        samplePeriodSeconds = inner != null ? inner.controller().samplePeriodSeconds()
+                : controller != null ? controller.samplePeriodSeconds()
                 : SettingChecks.positive("samplePeriodSeconds", b.samplePeriodSeconds);
         setpoint = sorted(b.setpoint, Comparator.comparingDouble(SetpointChange::atSeconds));
         disturbances = sorted(b.disturbances, Comparator.comparingDouble(LoadStep::atSeconds));
@@ -103,6 +132,9 @@ public final class Scenario {
         b.sensor = sensor;
         b.durationSeconds = durationSeconds;
         b.seed = seed;
+        b.inner = inner;
+        b.schedule = schedule;
+        b.splitRange = splitRange;
         return b;
     }
 
@@ -140,6 +172,26 @@ public final class Scenario {
         return Optional.ofNullable(controller);
     }
 
+    /** The inner loop, when this is a cascade (the controller is then the outer one). */
+    public Optional<InnerLoop> inner() {
+        return Optional.ofNullable(inner);
+    }
+
+    /** The gain schedule of a single loop's PID controller, when it has one. */
+    public Optional<GainSchedule> schedule() {
+        return Optional.ofNullable(schedule);
+    }
+
+    /** The split range of the controller that drives the actuator, when it has one. */
+    public Optional<SplitRangeSpec> splitRange() {
+        return Optional.ofNullable(splitRange);
+    }
+
+    /** The PID controller whose output drives the actuator: the inner one in a cascade. */
+    public Optional<ControllerSettings> drivingController() {
+        return inner != null ? Optional.of(inner.controller()) : Optional.ofNullable(controller);
+    }
+
     /** The on-off settings, when the controller is an on-off controller. */
     public Optional<OnOffSettings> onOffController() {
         return Optional.ofNullable(onOffController);
@@ -162,7 +214,7 @@ public final class Scenario {
         return toBuilder().plant(model).build();
     }
 
-    /** The sample period h in seconds. */
+    /** The sample period h in seconds: the inner controller's in a cascade, the fastest. */
     public double samplePeriodSeconds() {
         return samplePeriodSeconds;
     }
@@ -219,7 +271,8 @@ public final class Scenario {
         return "Scenario[plant=" + plant + ", controller=" + (controller != null ? controller : onOffController)
                 + ", h=" + samplePeriodSeconds + ", setpoint=" + setpoint + ", disturbances=" + disturbances
                 + ", actuator=" + actuator + ", sensor=" + sensor + ", duration=" + durationSeconds + ", seed="
-                + seed + "]";
+                + seed + (inner != null ? ", inner=" + inner : "") + (schedule != null ? ", schedule" : "")
+                + (splitRange != null ? ", splitRange=" + splitRange : "") + "]";
     }
 
     /** Collects a scenario's parts; {@link #build()} validates them together. Not thread-safe. */
@@ -234,8 +287,29 @@ public final class Scenario {
         private SensorModel sensor = SensorModel.IDEAL;
         private double durationSeconds = Double.NaN;
         private long seed = 1L;
+        private InnerLoop inner;
+        private GainSchedule schedule;
+        private SplitRangeSpec splitRange;
 
         private Builder() {
+        }
+
+        /** The inner loop of a cascade (null for a single loop); the controller becomes the outer one. */
+        public Builder inner(InnerLoop loop) {
+            inner = loop;
+            return this;
+        }
+
+        /** A gain schedule for a single loop's PID controller (null for none). */
+        public Builder schedule(GainSchedule table) {
+            schedule = table;
+            return this;
+        }
+
+        /** A split range for the controller that drives the actuator (null for none). */
+        public Builder splitRange(SplitRangeSpec split) {
+            splitRange = split;
+            return this;
         }
 
         /** The PID controller (replaces an on-off controller). */

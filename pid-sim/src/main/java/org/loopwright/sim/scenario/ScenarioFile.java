@@ -1,5 +1,7 @@
 package org.loopwright.sim.scenario;
 
+import static java.util.Map.entry;
+
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
@@ -8,9 +10,23 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 
 import org.loopwright.pid.Action;
+import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.pid.form.ControllerForm;
+import org.loopwright.pid.form.IdealGains;
+import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.pid.form.PidGains;
+import org.loopwright.pid.form.SeriesGains;
+import org.loopwright.pid.multiloop.ActuatorRange;
+import org.loopwright.pid.multiloop.Cascade;
+import org.loopwright.pid.multiloop.GainSchedule;
+import org.loopwright.pid.multiloop.ScheduleVariable;
+import org.loopwright.pid.multiloop.SchedulePoint;
 import org.loopwright.pid.onoff.OnOffSettings;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.FileKey;
@@ -53,6 +69,10 @@ import org.loopwright.sim.plant.PlantType;
  *          dropout-probability: 0.001}
  * duration: 400
  * seed: 7
+ * inner: {controller: ..., plant: ...}     # a cascade: the controller above is the outer one
+ *                                          # (windup: actuator-tracking, period a whole multiple)
+ * controller: {..., schedule: {variable: measurement, points: [{at: 20, gain: 2.0, integral-time: 30}]}}
+ * split-range: {split-at: 50, gap: 0, first: {min: 0, max: 100}, second: {min: 0, max: 100}}
  * </pre>
  * Required: one of {@code controller} or {@code on-off}, {@code plant} and {@code duration}.
  * Defaults: dead-time 0; dc-motor viscous-friction, load-torque and coulomb-friction 0,
@@ -91,10 +111,43 @@ public final class ScenarioFile {
     /** {@code seed}: of every random stream. */
     public static final FileKey<Long> SEED = FileKey.whole("seed", "seed", Long.MIN_VALUE, Long.MAX_VALUE)
             .orElse(1L);
+    /** {@code inner}: the inner loop of a cascade, {controller, plant}. */
+    public static final FileKey<String> INNER = FileKey.section("inner", "inner",
+            "an inner-loop mapping {controller, plant}").optional();
+    /** {@code split-range}: the driving controller's output over two actuators. */
+    public static final FileKey<String> SPLIT_RANGE = FileKey.section("split-range", "splitRange",
+            "a split-range mapping {split-at, gap, first, second}").optional();
 
     /** Every top-level key, in the order messages list them. */
-    public static final List<FileKey<?>> KEYS = List.of(CONTROLLER, ON_OFF, PLANT, SETPOINT, DISTURBANCES, ACTUATOR,
-            SENSOR, DURATION, SEED);
+    public static final List<FileKey<?>> KEYS = List.of(CONTROLLER, ON_OFF, PLANT, INNER, SETPOINT, DISTURBANCES,
+            ACTUATOR, SPLIT_RANGE, SENSOR, DURATION, SEED);
+
+    /** The words of {@code schedule.variable}; external is the load in effect, as a measured disturbance. */
+    public static final Keywords<ScheduleVariable> SCHEDULE_VARIABLES = Keywords.of(
+            entry("measurement", ScheduleVariable.MEASUREMENT), entry("setpoint", ScheduleVariable.SETPOINT),
+            entry("external", ScheduleVariable.EXTERNAL));
+    /** {@code schedule}, inside a single loop's controller mapping: gains against a scheduling variable. */
+    public static final FileKey<String> SCHEDULE = FileKey.section("schedule", "schedule",
+            "a schedule mapping {variable, points}").optional();
+
+    private static final FileKey<String> INNER_CONTROLLER = FileKey.section("controller", "innerController",
+            "a controller mapping or a controller file's path");
+    private static final FileKey<String> INNER_PLANT = FileKey.section("plant", "innerPlant",
+            "a plant mapping with a type: " + PlantType.WORDS.describe());
+
+    private static final FileKey<ScheduleVariable> SCHEDULE_VARIABLE = FileKey.choice("variable", "variable",
+            SCHEDULE_VARIABLES);
+    private static final FileKey<String> SCHEDULE_POINTS = FileKey.section("points", "points",
+            "a list of points {at, and the gains of the controller's form}");
+    private static final FileKey<Double> POINT_AT = FileKey.number("at", "at", NumberRule.FINITE);
+    private static final Pattern POINT_INDEX = Pattern.compile("^points\\[(\\d+)]");
+
+    private static final FileKey<Double> SPLIT_AT = FileKey.number("split-at", "splitAt", NumberRule.FINITE);
+    private static final FileKey<Double> GAP = FileKey.number("gap", "gap", NumberRule.NON_NEGATIVE).orElse(0.0);
+    private static final FileKey<String> FIRST = FileKey.section("first", "first", "a mapping {min, max}");
+    private static final FileKey<String> SECOND = FileKey.section("second", "second", "a mapping {min, max}");
+    private static final FileKey<Double> RANGE_MIN = FileKey.number("min", "min", NumberRule.FINITE);
+    private static final FileKey<Double> RANGE_MAX = FileKey.number("max", "max", NumberRule.FINITE);
 
     private static final FileKey<Double> AT = FileKey.number("at", "atSeconds", NumberRule.NON_NEGATIVE);
     private static final FileKey<Double> VALUE = FileKey.number("value", "value", NumberRule.FINITE);
@@ -194,6 +247,7 @@ public final class ScenarioFile {
     private static final class Reader {
         private final YamlDocument doc;
         private final Path directory;
+        private ControllerSettings outerSettings;
 
         Reader(YamlDocument doc, Path directory) {
             this.doc = doc;
@@ -208,6 +262,13 @@ public final class ScenarioFile {
             FileMapping plant = PlantType.mapping(doc, top.get(PLANT));
             parts.add(plant);
             b.plant(PlantType.read(plant));
+            top.find(INNER).ifPresent(p -> inner(top, p, b));
+            top.find(SPLIT_RANGE).ifPresent(p -> {
+                FileMapping split = new FileMapping(doc, p, List.of(SPLIT_AT, GAP, FIRST, SECOND), "");
+                parts.add(split);
+                b.splitRange(new SplitRangeSpec(split.get(SPLIT_AT), split.get(GAP), range(split.get(FIRST)),
+                        range(split.get(SECOND))));
+            });
             top.find(SETPOINT).ifPresent(list -> {
                 for (String item : doc.items(list)) {
                     FileMapping change = new FileMapping(doc, item, List.of(AT, VALUE, RAMP), "");
@@ -263,17 +324,102 @@ public final class ScenarioFile {
                 return;
             }
             String pointer = top.get(CONTROLLER);
-            if (doc.node(pointer).isTextual()) {
-                String written = doc.requiredText(pointer);
-                Path file = directory.resolve(written);
-                if (!Files.isRegularFile(file)) {
-                    throw doc.error(pointer, "controller file not found: controller=" + written
-                            + " (looked for " + file + ")");
-                }
-                b.controller(ControllerFile.read(file));
-            } else {
-                b.controller(ControllerFile.read(doc, pointer));
+            YamlDocument source = controllerDocument(pointer);
+            String at = source == doc ? pointer : "";
+            outerSettings = ControllerFile.read(source, at, List.of(SCHEDULE));
+            b.controller(outerSettings);
+            Optional<String> table = SCHEDULE.find(source, at);
+            if (table.isPresent()) {
+                b.schedule(schedule(source, at, table.get()));
             }
+        }
+
+        /** The document that holds the controller mapping at a pointer: this one, or the file it names. */
+        private YamlDocument controllerDocument(String pointer) {
+            if (!doc.node(pointer).isTextual()) {
+                return doc;
+            }
+            String written = doc.requiredText(pointer);
+            Path file = directory.resolve(written);
+            if (!Files.isRegularFile(file)) {
+                throw doc.error(pointer, "controller file not found: " + doc.keyName(pointer) + "=" + written
+                        + " (looked for " + file + ")");
+            }
+            return YamlDocument.read(file);
+        }
+
+        /** The gain schedule at a pointer, its points in the form of the controller mapping it sits in. */
+        private GainSchedule schedule(YamlDocument source, String controller, String pointer) {
+            FileMapping table = new FileMapping(source, pointer, List.of(SCHEDULE_VARIABLE, SCHEDULE_POINTS), "");
+            ControllerForm form = ControllerFile.FORM.read(source, controller);
+            List<FileKey<?>> gainKeys = form == ControllerForm.PARALLEL
+                    ? List.of(ControllerFile.PROPORTIONAL_GAIN, ControllerFile.INTEGRAL_GAIN, ControllerFile.DERIVATIVE_GAIN)
+                    : List.of(ControllerFile.GAIN, ControllerFile.INTEGRAL_TIME, ControllerFile.DERIVATIVE_TIME);
+            List<FileKey<?>> pointKeys = new ArrayList<>(List.of(POINT_AT));
+            pointKeys.addAll(gainKeys);
+            List<SchedulePoint> points = new ArrayList<>();
+            List<String> items = source.items(table.get(SCHEDULE_POINTS));
+            for (String item : items) {
+                FileMapping point = new FileMapping(source, item, pointKeys, "");
+                points.add(point.build(() -> new SchedulePoint(point.get(POINT_AT), gains(point, form))));
+            }
+            ScheduleVariable variable = table.get(SCHEDULE_VARIABLE);
+            try {
+                return new GainSchedule(variable, points);
+            } catch (InvalidSettingException e) {
+                // the table's complaint names points[i]: at that point, in the file's own names
+                Matcher index = POINT_INDEX.matcher(e.field());
+                String where = index.find() ? POINT_AT.pointer(items.get(Integer.parseInt(index.group(1))))
+                        : table.get(SCHEDULE_POINTS);
+                throw source.error(where, e.getMessage().replace("points", table.name(SCHEDULE_POINTS)));
+            }
+        }
+
+        private static PidGains gains(FileMapping point, ControllerForm form) {
+            return switch (form) {
+                case PARALLEL -> new ParallelGains(point.get(ControllerFile.PROPORTIONAL_GAIN),
+                        point.get(ControllerFile.INTEGRAL_GAIN), point.get(ControllerFile.DERIVATIVE_GAIN));
+                case IDEAL -> new IdealGains(point.get(ControllerFile.GAIN), point.get(ControllerFile.INTEGRAL_TIME),
+                        point.get(ControllerFile.DERIVATIVE_TIME));
+                case SERIES -> new SeriesGains(point.get(ControllerFile.GAIN), point.get(ControllerFile.INTEGRAL_TIME),
+                        point.get(ControllerFile.DERIVATIVE_TIME));
+            };
+        }
+
+        private void inner(FileMapping top, String pointer, Scenario.Builder b) {
+            if (top.has(ON_OFF)) {
+                throw top.error(INNER, "inner needs a PID outer controller (the controller key), not on-off");
+            }
+            FileMapping inner = new FileMapping(doc, pointer, List.of(INNER_CONTROLLER, INNER_PLANT), "");
+            String controllerPointer = inner.get(INNER_CONTROLLER);
+            YamlDocument source = controllerDocument(controllerPointer);
+            ControllerSettings innerSettings = ControllerFile.read(source, source == doc ? controllerPointer : "");
+            ControllerSettings outer = outerSettings;
+            try {
+                Cascade.requireCompatible(outer, innerSettings);
+            } catch (InvalidSettingException e) {
+                String detail = e.field().equals("outerWindupProtection")
+                        ? "controller.windup must be actuator-tracking for the outer controller of a cascade, so"
+                                + " that it tracks what the inner loop achieves: controller.windup="
+                                + ControllerFile.WINDUP.word(outer.windupProtection())
+                        : "controller.sample-period must be a whole multiple (1, 2, 3, ...) of"
+                                + " inner.controller.sample-period (inner.controller.sample-period="
+                                + innerSettings.samplePeriodSeconds() + "): controller.sample-period="
+                                + outer.samplePeriodSeconds();
+                throw top.error(CONTROLLER, detail);
+            }
+            b.inner(new InnerLoop(innerSettings, PlantType.read(doc, inner.get(INNER_PLANT))));
+        }
+
+        private ActuatorRange range(String pointer) {
+            FileMapping range = new FileMapping(doc, pointer, List.of(RANGE_MIN, RANGE_MAX), "");
+            double min = range.get(RANGE_MIN);
+            double max = range.get(RANGE_MAX);
+            if (!(max > min)) {
+                throw range.error(RANGE_MAX, range.name(RANGE_MAX) + " must be > " + range.name(RANGE_MIN) + " ("
+                        + range.name(RANGE_MIN) + "=" + min + "): " + range.name(RANGE_MAX) + "=" + max);
+            }
+            return new ActuatorRange(min, max);
         }
     }
 }

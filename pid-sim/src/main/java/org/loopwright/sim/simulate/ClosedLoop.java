@@ -1,6 +1,10 @@
 package org.loopwright.sim.simulate;
 
+import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.PidController;
+import org.loopwright.pid.multiloop.Cascade;
+import org.loopwright.pid.multiloop.ScheduledController;
+import org.loopwright.pid.multiloop.SplitRange;
 import org.loopwright.pid.onoff.OnOffController;
 import org.loopwright.sim.nonideal.Actuator;
 import org.loopwright.sim.nonideal.Sensor;
@@ -24,6 +28,11 @@ import org.loopwright.sim.scenario.SetpointChange;
  * An incremental (velocity-form) PID controller is taken to drive an integrating actuator: u(k) is
  * then the position that actuator reaches, as the controller reports it.
  *
+ * <p>A cascade runs at the inner controller's period: the outer controller acts on every n-th
+ * sample; the plant is the inner plant and the scenario's plant in series ({@link SeriesPlant}),
+ * the sensor reads the outer measurement and the inner measurement is read as it is. A split range
+ * spreads the delivered output over two actuators and the plant sees second − first.
+ *
  * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
  * cached its discretisation after the first samples). Usable from a benchmark:
  * {@code if (!loop.step()) loop.rewind();}.
@@ -34,6 +43,8 @@ public final class ClosedLoop {
 
     private final Scenario scenario;
     private final Plant plant;
+    private final SeriesPlant series;
+    private final SplitRange split;
     private final FeedbackLaw law;
     private final Actuator actuator;
     private final Sensor sensor;
@@ -62,14 +73,18 @@ public final class ClosedLoop {
     /** A loop at rest, at sample 0, for the scenario. */
     public ClosedLoop(Scenario scenario) {
         this.scenario = scenario;
-        this.plant = scenario.plant().newPlant();
-        this.law = scenario.controller().<FeedbackLaw>map(s -> new FeedbackLaw.Pid(new PidController(s)))
+        this.series = scenario.inner().map(i -> new SeriesPlant(i.plant().newPlant(), scenario.plant().newPlant()))
+                .orElse(null);
+        this.plant = series != null ? series : scenario.plant().newPlant();
+        this.law = scenario.controller().map(s -> pidLaw(scenario, s))
                 .orElseGet(() -> new FeedbackLaw.OnOff(new OnOffController(scenario.onOffController().orElseThrow())));
+        this.split = scenario.splitRange().map(sr -> sr.forController(scenario.drivingController().orElseThrow()))
+                .orElse(null);
         this.actuator = new Actuator(scenario.actuator());
         this.sensor = new Sensor(scenario.sensor(), scenario.seed());
         this.periodSeconds = scenario.samplePeriodSeconds();
         this.samples = scenario.sampleCount();
-        this.trajectory = new Trajectory(samples);
+        this.trajectory = new Trajectory(samples, series != null, split != null);
         int changes = scenario.setpoint().size();
         changeAt = new double[changes];
         changeValue = new double[changes];
@@ -89,6 +104,15 @@ public final class ClosedLoop {
             loadValue[i] = l.value();
         }
         rewind();
+    }
+
+    private static FeedbackLaw pidLaw(Scenario scenario, ControllerSettings settings) {
+        if (scenario.inner().isPresent()) {
+            return new FeedbackLaw.Pid(new Cascade(new PidController(settings),
+                    new PidController(scenario.inner().get().controller())));
+        }
+        return scenario.schedule().map(table -> new FeedbackLaw.Pid(new ScheduledController(settings, table)))
+                .orElseGet(() -> new FeedbackLaw.Pid(new PidController(settings)));
     }
 
     /** Back to rest at sample 0 with the same random streams; the trajectory is emptied. */
@@ -130,13 +154,13 @@ public final class ClosedLoop {
             while (nextLoad < loadAt.length && loadAt[nextLoad] <= instant) {
                 double piece = loadAt[nextLoad] - from;
                 if (piece > 0.0) {
-                    plant.advance(delivered + load, piece);
+                    plant.advance(plantInput(), piece);
                     left -= piece;
                     from = loadAt[nextLoad];
                 }
                 load = loadValue[nextLoad++];
             }
-            plant.advance(delivered + load, left);
+            plant.advance(plantInput(), left);
         } else {
             while (nextLoad < loadAt.length && loadAt[nextLoad] <= instant) {
                 load = loadValue[nextLoad++];
@@ -145,14 +169,26 @@ public final class ClosedLoop {
         double process = plant.output();
         double r = setpointAt(instant);
         double y = sensor.read(process);
-        double u = law.update(r, y, instant);
+        double innerMeasurement = series != null ? series.innerOutput() : Double.NaN;
+        double u = law.update(r, y, innerMeasurement, load, instant);
         delivered = actuator.deliver(u, periodSeconds);
         law.delivered(delivered);
         trajectory.record(instant, r, y, u, load, process, delivered, law.atLimit() || actuator.limited());
+        if (series != null) {
+            trajectory.recordInner(law.innerSetpoint(), innerMeasurement);
+        }
+        if (split != null) {
+            trajectory.recordSplit(split.first(delivered), split.second(delivered));
+        }
         previousInstant = instant;
         previousDelay = delay;
         k++;
         return true;
+    }
+
+    /** What the plant's input sees: the delivered output (spread by a split range) plus the load. */
+    private double plantInput() {
+        return (split != null ? split.second(delivered) - split.first(delivered) : delivered) + load;
     }
 
     private double setpointAt(double t) {

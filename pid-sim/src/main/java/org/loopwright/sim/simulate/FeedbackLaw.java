@@ -2,13 +2,32 @@ package org.loopwright.sim.simulate;
 
 import org.loopwright.pid.OutputKind;
 import org.loopwright.pid.PidController;
+import org.loopwright.pid.multiloop.Cascade;
+import org.loopwright.pid.multiloop.ScheduledController;
 import org.loopwright.pid.onoff.OnOffController;
 
-/** The controller in a closed loop: a PID controller or an on-off controller behind one call. */
+/**
+ * The controller in a closed loop behind one call: a PID controller (alone, scheduled, or the
+ * inner and outer controllers of a cascade) or an on-off controller.
+ */
 abstract sealed class FeedbackLaw {
 
-    /** u(k) from r(k), y(k) at the sample instant. */
-    abstract double update(double setpoint, double measurement, double nowSeconds);
+    /**
+     * u(k) at the sample instant.
+     *
+     * @param setpoint         r(k)
+     * @param measurement      y(k), the loop's (outer) measurement
+     * @param innerMeasurement the inner measurement of a cascade (NaN otherwise)
+     * @param external         an external scheduling value: the load in effect
+     * @param nowSeconds       the instant
+     */
+    abstract double update(double setpoint, double measurement, double innerMeasurement, double external,
+            double nowSeconds);
+
+    /** The inner loop's setpoint after the last update (NaN for a single loop). */
+    double innerSetpoint() {
+        return Double.NaN;
+    }
 
     /** Whether the last output sits at one of the controller's own finite limits. */
     abstract boolean atLimit();
@@ -20,13 +39,32 @@ abstract sealed class FeedbackLaw {
 
     static final class Pid extends FeedbackLaw {
         private final PidController controller;
+        private final ScheduledController scheduled;
+        private final Cascade cascade;
         private final double min;
         private final double max;
         private final boolean incremental;
         private double last;
 
+        /** A PID controller alone. */
         Pid(PidController controller) {
+            this(controller, null, null);
+        }
+
+        /** A scheduled controller. */
+        Pid(ScheduledController scheduled) {
+            this(scheduled.controller(), scheduled, null);
+        }
+
+        /** A cascade: the inner controller drives the actuator. */
+        Pid(Cascade cascade) {
+            this(cascade.inner(), null, cascade);
+        }
+
+        private Pid(PidController controller, ScheduledController scheduled, Cascade cascade) {
             this.controller = controller;
+            this.scheduled = scheduled;
+            this.cascade = cascade;
             this.min = controller.settings().outputMin();
             this.max = controller.settings().outputMax();
             this.incremental = controller.settings().outputKind() == OutputKind.INCREMENT;
@@ -34,10 +72,24 @@ abstract sealed class FeedbackLaw {
 
         /** An incremental controller drives an integrating actuator: the loop sees the position it reaches. */
         @Override
-        double update(double setpoint, double measurement, double nowSeconds) {
-            double u = controller.update(setpoint, measurement);
+        double update(double setpoint, double measurement, double innerMeasurement, double external,
+                double nowSeconds) {
+            double u;
+            if (cascade != null) {
+                u = cascade.update(setpoint, measurement, innerMeasurement);
+            } else if (scheduled != null) {
+                scheduled.externalValue(external);
+                u = scheduled.update(setpoint, measurement);
+            } else {
+                u = controller.update(setpoint, measurement);
+            }
             last = incremental ? controller.position() : u;
             return last;
+        }
+
+        @Override
+        double innerSetpoint() {
+            return cascade != null ? cascade.innerSetpoint() : Double.NaN;
         }
 
         @Override
@@ -52,7 +104,13 @@ abstract sealed class FeedbackLaw {
 
         @Override
         void reset() {
-            controller.reset();
+            if (cascade != null) {
+                cascade.reset();
+            } else if (scheduled != null) {
+                scheduled.reset();
+            } else {
+                controller.reset();
+            }
             last = 0.0;
         }
     }
@@ -65,7 +123,8 @@ abstract sealed class FeedbackLaw {
         }
 
         @Override
-        double update(double setpoint, double measurement, double nowSeconds) {
+        double update(double setpoint, double measurement, double innerMeasurement, double external,
+                double nowSeconds) {
             return controller.update(setpoint, measurement, nowSeconds);
         }
 

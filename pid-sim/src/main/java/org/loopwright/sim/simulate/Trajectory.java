@@ -6,7 +6,8 @@ import java.util.Arrays;
  * A closed-loop run, one row per sample k: the sample instant, the setpoint r(k), the measurement
  * y(k) the controller read (NaN for a dropout), the controller output u(k) held from that instant,
  * and the load disturbance in effect at that instant. Beside these it keeps the true process output
- * (before the sensor), the input the actuator delivered, and whether the output was limited.
+ * (before the sensor), the input the actuator delivered, and whether the output was limited; a
+ * cascade adds the inner setpoint and measurement, a split range each actuator's value.
  *
  * <p>Filled by {@link ClosedLoop} while it runs; after the run it is only read. Not thread-safe
  * while it is being filled.
@@ -21,9 +22,13 @@ public final class Trajectory {
     private final double[] process;
     private final double[] delivered;
     private final boolean[] saturated;
+    private final double[] innerSetpoint;
+    private final double[] innerMeasurement;
+    private final double[] firstActuator;
+    private final double[] secondActuator;
     private int length;
 
-    Trajectory(int capacity) {
+    Trajectory(int capacity, boolean innerLoop, boolean splitRange) {
         time = new double[capacity];
         setpoint = new double[capacity];
         measurement = new double[capacity];
@@ -32,6 +37,52 @@ public final class Trajectory {
         process = new double[capacity];
         delivered = new double[capacity];
         saturated = new boolean[capacity];
+        innerSetpoint = innerLoop ? new double[capacity] : null;
+        innerMeasurement = innerLoop ? new double[capacity] : null;
+        firstActuator = splitRange ? new double[capacity] : null;
+        secondActuator = splitRange ? new double[capacity] : null;
+    }
+
+    /** The inner loop's setpoint and measurement at the sample just recorded. */
+    void recordInner(double setpointNow, double measurementNow) {
+        innerSetpoint[length - 1] = setpointNow;
+        innerMeasurement[length - 1] = measurementNow;
+    }
+
+    /** The two actuators of a split range at the sample just recorded. */
+    void recordSplit(double first, double second) {
+        firstActuator[length - 1] = first;
+        secondActuator[length - 1] = second;
+    }
+
+    /** Whether the run was a cascade, with inner-loop columns. */
+    public boolean hasInnerLoop() {
+        return innerSetpoint != null;
+    }
+
+    /** Whether the run had a split range, with a column per actuator. */
+    public boolean hasSplitRange() {
+        return firstActuator != null;
+    }
+
+    /** The inner loop's setpoint at sample k (a cascade only). */
+    public double innerSetpoint(int k) {
+        return innerSetpoint[k];
+    }
+
+    /** The inner measurement at sample k (a cascade only). */
+    public double innerMeasurement(int k) {
+        return innerMeasurement[k];
+    }
+
+    /** The first actuator of a split range at sample k. */
+    public double firstActuator(int k) {
+        return firstActuator[k];
+    }
+
+    /** The second actuator of a split range at sample k. */
+    public double secondActuator(int k) {
+        return secondActuator[k];
     }
 
     void record(double t, double r, double y, double u, double d, double trueOutput, double input, boolean limited) {

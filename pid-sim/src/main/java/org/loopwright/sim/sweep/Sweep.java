@@ -12,9 +12,11 @@ import java.util.function.IntConsumer;
 
 import org.hipparchus.complex.Complex;
 import org.loopwright.pid.ControllerSettings;
+import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
@@ -150,7 +152,8 @@ public final class Sweep {
 
     /**
      * The largest closed-loop pole magnitude of the sampled linear loop, the sensor's delay counted as
-     * dead time; NaN for an on-off controller, too long a delay, or a controller the analysis rejects.
+     * dead time (for a cascade, of the outer loop with the inner loop closed, the inner plant as given);
+     * NaN for an on-off controller, too long a delay, or a controller the analysis rejects.
      */
     private static double largestPoleMagnitude(Scenario drawn, TransferFunction plant) {
         if (drawn.controller().isEmpty()) {
@@ -163,6 +166,12 @@ public final class Sweep {
             return Double.NaN;
         }
         try {
+            if (drawn.inner().isPresent()) {
+                // a cascade: the outer loop with the inner loop closed, whose poles include the inner loop's
+                InnerLoop inner = drawn.inner().get();
+                return CascadeAnalysis.outerSampled(plant.withDeadTime(delaySeconds), settings,
+                        inner.plant().linear().orElseThrow(), inner.controller()).largestPoleMagnitude();
+            }
             List<Complex> poles = LoopAnalysis.closedLoopPoles(
                     LoopAnalysis.sampledLoop(plant.withDeadTime(delaySeconds), settings, h));
             double largest = 0.0;

@@ -123,8 +123,8 @@ class ScenarioFileTest {
                         "s.yaml:1:1: missing key 'controller' (a controller mapping or a controller file's path)"
                                 + " or 'on-off' (an on-off controller mapping)"),
                 Arguments.of(CONTROLLER + plant + "duration: 10\ncolour: red\n",
-                        "s.yaml:4:1: unknown key 'colour'; allowed: controller, on-off, plant, setpoint, disturbances,"
-                                + " actuator, sensor, duration, seed"),
+                        "s.yaml:4:1: unknown key 'colour'; allowed: controller, on-off, plant, inner, setpoint, disturbances,"
+                                + " actuator, split-range, sensor, duration, seed"),
                 Arguments.of(CONTROLLER + plant,
                         "s.yaml:1:1: missing key 'duration' (a number (finite and > 0))"),
                 Arguments.of(CONTROLLER + plant + "duration: -4\n",

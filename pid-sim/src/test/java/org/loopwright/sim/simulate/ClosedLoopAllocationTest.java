@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.lang.management.ManagementFactory;
 import java.util.Arrays;
+import java.util.List;
 import java.util.stream.Stream;
 
 import org.junit.jupiter.api.Test;
@@ -12,6 +13,11 @@ import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.loopwright.pid.Action;
 import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.WindupProtection;
+import org.loopwright.pid.multiloop.ActuatorRange;
+import org.loopwright.pid.multiloop.GainSchedule;
+import org.loopwright.pid.multiloop.SchedulePoint;
+import org.loopwright.pid.multiloop.ScheduleVariable;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.onoff.OnOffSettings;
 import org.loopwright.sim.nonideal.ActuatorModel;
@@ -21,9 +27,11 @@ import org.loopwright.sim.plant.MotorOutput;
 import org.loopwright.sim.plant.TankModel;
 import org.loopwright.sim.plant.ThermalZoneModel;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.SetpointChange;
+import org.loopwright.sim.scenario.SplitRangeSpec;
 
 /**
  * The simulation step allocates nothing once warm: measured with the JVM's per-thread allocation
@@ -35,7 +43,7 @@ import org.loopwright.sim.scenario.SetpointChange;
  */
 class ClosedLoopAllocationTest {
 
-    private static final int WARM_UP = 20_000;
+    private static final int WARM_UP = 100_000;
     private static final int WINDOW = 100_000;
     private static final int WINDOWS = 3;
     private static final int MEASURED = WINDOW * WINDOWS;
@@ -43,6 +51,8 @@ class ClosedLoopAllocationTest {
 
     private static final ControllerSettings PID = ControllerSettings.builder()
             .gains(new IdealGains(1.2, 20.0, 2.0)).samplePeriodSeconds(0.1).outputRange(-50.0, 50.0).build();
+    private static final ControllerSettings OUTER = PID.toBuilder().gains(IdealGains.pi(0.5, 40.0))
+            .windupProtection(WindupProtection.ACTUATOR_TRACKING).build();
 
     /** A scenario with every non-ideal part but jitter, setpoint steps and ramps, a load step inside a period. */
     private static Scenario.Builder everything() {
@@ -69,7 +79,16 @@ class ClosedLoopAllocationTest {
                         .durationSeconds((WARM_UP + MEASURED) * 1.0 + 1.0).build()),
                 Arguments.of("dc motor with friction", everything().plant(new DcMotorModel(2.0, 0.1, 0.1, 0.1, 0.01,
                         0.01, 0.0, 0.04, 0.05, MotorOutput.POSITION, 5e-3)).build()),
-                Arguments.of("tank", everything().plant(new TankModel(0.5, 0.01, 0.2, 0.05)).build()));
+                Arguments.of("tank", everything().plant(new TankModel(0.5, 0.01, 0.2, 0.05)).build()),
+                Arguments.of("cascade, plants in series", everything().controller(OUTER)
+                        .inner(new InnerLoop(PID.toBuilder().samplePeriodSeconds(0.02).build(),
+                                TransferFunction.fopdt(1.0, 2.0, 0.1))).build()),
+                Arguments.of("tank, gain-scheduled", everything().plant(new TankModel(0.5, 0.01, 0.2, 0.05))
+                        .schedule(new GainSchedule(ScheduleVariable.MEASUREMENT, List.of(
+                                new SchedulePoint(0.2, IdealGains.pi(0.05, 40.0)),
+                                new SchedulePoint(1.0, IdealGains.pi(0.02, 100.0))))).build()),
+                Arguments.of("split range", everything().splitRange(new SplitRangeSpec(0.0, 4.0,
+                        new ActuatorRange(0.0, 30.0), new ActuatorRange(0.0, 40.0))).build()));
     }
 
     @ParameterizedTest(name = "{0}")

@@ -1,4 +1,4 @@
-package org.loopwright.bench.timing;
+package org.loopwright.sim.timing;
 
 import java.lang.management.ManagementFactory;
 
@@ -70,12 +70,13 @@ final class PeriodErrorRecorder implements TimingListener {
         return finished;
     }
 
-    /** The result, once {@link #finished()}. */
-    TimingResult result(TimedLoop loop, long spinMarginNanos, long skipped) {
+    /** The run, once {@link #finished()}. */
+    TimedRun result(String loop, long spinMarginNanos, long skipped, double updateNanos) {
         long wall = lastStart - firstStart;
-        return new TimingResult(loop, periodNanos, spinMarginNanos, ticks, overruns, skipped,
+        TimingResult figures = new TimingResult(loop, periodNanos, spinMarginNanos, ticks, overruns, skipped,
                 periodErrors.getValueAtPercentile(50.0), periodErrors.getValueAtPercentile(99.0),
                 periodErrors.getValueAtPercentile(99.9), periodErrors.getMaxValue(),
-                (double) (cpuAtLast - cpuAtFirst) / wall, wall * 1e-9);
+                (double) (cpuAtLast - cpuAtFirst) / wall, wall * 1e-9, updateNanos);
+        return new TimedRun(figures, periodErrors.copy());
     }
 }
