@@ -44,9 +44,8 @@ class IndustrialProperties {
                 .setpointWeights(from.wrapSpan() > 0.0 ? 1.0 : rnd.nextDouble(), rnd.nextDouble())
                 .derivativeFilterRatio(2.0 + 18.0 * rnd.nextDouble())
                 .integralMethod(RandomSettings.pick(rnd, IntegralMethod.values()))
-                .derivativeMethod(RandomSettings.pick(rnd, DerivativeMethod.values()))
                 .windupProtection(RandomSettings.pick(rnd, WindupProtection.values()));
-        return RandomSettings.stableDerivative(b).build();
+        return RandomSettings.stableDerivative(b, RandomSettings.pick(rnd, DerivativeMethod.values())).build();
     }
 
     /** The error the settings see, as the controller forms it: action, wrap and deadband. */
