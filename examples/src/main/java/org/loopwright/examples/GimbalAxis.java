@@ -2,19 +2,26 @@ package org.loopwright.examples;
 
 import java.io.PrintStream;
 import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 
 import org.HdrHistogram.Histogram;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.FaultPolicy;
+import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
 import org.loopwright.pid.WindupProtection;
 import org.loopwright.pid.form.IdealGains;
+import org.loopwright.pid.runner.CommandRefusedException;
 import org.loopwright.pid.runner.LoopClock;
 import org.loopwright.pid.runner.LoopRunner;
+import org.loopwright.pid.runner.LoopStatus;
+import org.loopwright.pid.runner.OperatorChannel;
 import org.loopwright.pid.runner.OverrunPolicy;
 import org.loopwright.pid.runner.PeriodMode;
 import org.loopwright.pid.runner.RunnerSettings;
+import org.loopwright.pid.runner.RunnerState;
 import org.loopwright.pid.runner.StopReason;
 import org.loopwright.pid.runner.WaitStrategy;
 import org.loopwright.sim.plant.DcMotorModel;
@@ -32,6 +39,13 @@ import org.loopwright.sim.plant.MotorOutput;
  * from 0.1 s, then 300° from 0.6 s. Every one of these numbers is invented for this demonstration;
  * none describes a real product. The PID (Kc = 0.5 V/°, Ti = 0.1 s, Td = 6 ms, derivative filter
  * 1 ms, derivative on the measurement) was tuned on this model in simulation.
+ *
+ * <p>While the loop runs, the main thread plays the operator through the runner's operator channel
+ * (the controller's own mode methods are not thread-safe): once the axis has held 300° for a while
+ * ({@value #OPERATOR_AT_SECONDS} s), it takes the axis to manual (the drive holds its voltage, no
+ * bump), retunes to a softer PID (Kc = 0.4 V/°, Ti = 0.12 s) and hands back to automatic (no bump
+ * either); every command lands at the next tick boundary. It also reads the runner's published
+ * status, one consistent tick at a time, and prints it every {@value #STATUS_EVERY_SECONDS} s.
  *
  * <p>The runner gives the controller the measured period of each tick and skips deadlines it has
  * missed; the period error |measured − 1 ms| of every tick is recorded in an HdrHistogram and printed
@@ -60,7 +74,13 @@ public final class GimbalAxis {
     /** The duration that {@link #main} runs when given none, seconds. */
     public static final double DEFAULT_DURATION_SECONDS = 1.5;
 
+    /** When the operator takes over, seconds after the start (the axis has settled on 300°). */
+    public static final double OPERATOR_AT_SECONDS = 1.0;
+    /** How often the main thread prints the published status, seconds of loop time. */
+    public static final double STATUS_EVERY_SECONDS = 0.25;
+
     private static final double PRINT_EVERY_SECONDS = 0.05;
+    private static final Duration COMMAND_PATIENCE = Duration.ofSeconds(5);
 
     private GimbalAxis() {
     }
@@ -76,6 +96,11 @@ public final class GimbalAxis {
                 .wrapSpan(360.0)
                 .faultPolicy(FaultPolicy.SAFE_OUTPUT, 0.0)
                 .build();
+    }
+
+    /** The operator's retune: a softer PID (Kc = 0.4 V/°, Ti = 0.12 s), same period and limits. */
+    public static ControllerSettings softerSettings() {
+        return settings().toBuilder().gains(new IdealGains(0.4, 0.12, 0.006)).build();
     }
 
     /** Runs the axis in real time for the default duration, or the seconds given as the first argument. */
@@ -114,16 +139,71 @@ public final class GimbalAxis {
         gimbal.stopsAtTheEnd(runner);
 
         runner.start();
+        List<String> operatorLog = operate(runner, out);
         if (!runner.awaitStop(Duration.ofMillis(Math.round(durationSeconds * 1000.0)).plusSeconds(30))) {
             runner.stop();
         }
 
-        Outcome outcome = new Outcome(runner.tickCount(), runner.overrunCount(), runner.skippedTickCount(),
-                runner.failedTickCount(), runner.stopReason(), gimbal.periodErrorNanos().copy(),
+        LoopStatus last = runner.status();
+        Outcome outcome = new Outcome(last.tickCount(), last.overrunCount(), last.skippedTickCount(),
+                last.failedTickCount(), runner.stopReason(), gimbal.periodErrorNanos().copy(),
                 gimbal.timeSeconds(), gimbal.setpointDegrees(), gimbal.encoderDegrees(), gimbal.shaftDegreesLog(),
-                gimbal.volts());
+                gimbal.volts(), last.appliedCommandCount(), last.mode(), controller.settings(), operatorLog);
         print(out, outcome);
         return outcome;
+    }
+
+    /**
+     * The operator, on the calling thread: prints the published status now and then, and at
+     * {@link #OPERATOR_AT_SECONDS} switches to manual, retunes and switches back through the operator
+     * channel. Returns what it did, one line per step. A loop that ends first refuses the commands,
+     * which is said, not hidden.
+     */
+    private static List<String> operate(LoopRunner runner, PrintStream out) throws InterruptedException {
+        List<String> log = new ArrayList<>();
+        OperatorChannel operator = runner.operator();
+        LoopStatus status = new LoopStatus();
+        // the loop's time in periods is its deadline count: ticks run plus deadlines skipped
+        long operatorAt = Math.round(OPERATOR_AT_SECONDS * 1e9 / PERIOD_NANOS);
+        long statusEvery = Math.round(STATUS_EVERY_SECONDS * 1e9 / PERIOD_NANOS);
+        long nextStatus = statusEvery;
+        boolean acted = false;
+        while (runner.state() != RunnerState.STOPPED) {
+            runner.readStatus(status);
+            long deadlines = status.tickCount() + status.skippedTickCount();
+            if (deadlines >= nextStatus) {
+                out.println("  status: " + describe(status));
+                nextStatus = (deadlines / statusEvery + 1) * statusEvery;
+            }
+            if (!acted && deadlines >= operatorAt) {
+                acted = true;
+                try {
+                    long manual = operator.requestMode(Mode.MANUAL);
+                    operator.awaitApplied(manual, COMMAND_PATIENCE);
+                    log.add("manual: " + describe(runner.readStatus(status)));
+                    operator.requestRetune(softerSettings());
+                    long automatic = operator.requestMode(Mode.AUTOMATIC);
+                    operator.awaitApplied(automatic, COMMAND_PATIENCE);
+                    log.add("retuned to Kc 0.4 V/°, Ti 0.12 s, back in automatic: "
+                            + describe(runner.readStatus(status)));
+                } catch (CommandRefusedException e) {
+                    log.add("the loop ended before the operator acted: " + e.getMessage());
+                }
+                log.forEach(line -> out.println("  operator " + line));
+            }
+            Thread.sleep(1);
+        }
+        if (!acted) {
+            log.add("the loop ended before " + OPERATOR_AT_SECONDS + " s: the operator sent nothing");
+            out.println("  operator: " + log.get(0));
+        }
+        return log;
+    }
+
+    private static String describe(LoopStatus s) {
+        return String.format(Locale.ROOT, "tick %d, setpoint %.1f°, encoder %.2f°, drive %.3f V, %s, %d commands"
+                + " applied", s.tickCount(), s.setpoint(), s.measurement(), s.output(),
+                s.mode().name().toLowerCase(Locale.ROOT), s.appliedCommandCount());
     }
 
     private static void print(PrintStream out, Outcome o) {
@@ -139,8 +219,9 @@ public final class GimbalAxis {
                 nextPrint = Math.floor(time[k] / PRINT_EVERY_SECONDS + 1.0) * PRINT_EVERY_SECONDS;
             }
         }
-        out.printf(Locale.ROOT, "Runner: %d ticks, %d overruns, %d skipped, %d failed, stopped: %s%n", o.ticks,
-                o.overruns, o.skippedTicks, o.failedTicks, o.stopReason);
+        out.printf(Locale.ROOT, "Runner: %d ticks, %d overruns, %d skipped, %d failed, stopped: %s; %d operator"
+                + " commands applied, ending in %s%n", o.ticks, o.overruns, o.skippedTicks, o.failedTicks, o.stopReason,
+                o.appliedCommands, o.finalMode.name().toLowerCase(Locale.ROOT));
         Histogram h = o.periodErrorNanos;
         out.printf(Locale.ROOT, "Period error |measured - %d µs| over %d periods: p50 %.1f µs, p99 %.1f µs,"
                 + " max %.1f µs (depends on this machine and its load)%n", PERIOD_NANOS / 1000, h.getTotalCount(),
@@ -166,10 +247,19 @@ public final class GimbalAxis {
         private final double[] encoderDegrees;
         private final double[] shaftDegrees;
         private final double[] volts;
+        private final long appliedCommands;
+        private final Mode finalMode;
+        private final ControllerSettings finalSettings;
+        private final List<String> operatorLog;
 
         Outcome(long ticks, long overruns, long skippedTicks, long failedTicks, StopReason stopReason,
                 Histogram periodErrorNanos, double[] timeSeconds, double[] setpointDegrees, double[] encoderDegrees,
-                double[] shaftDegrees, double[] volts) {
+                double[] shaftDegrees, double[] volts, long appliedCommands, Mode finalMode,
+                ControllerSettings finalSettings, List<String> operatorLog) {
+            this.appliedCommands = appliedCommands;
+            this.finalMode = finalMode;
+            this.finalSettings = finalSettings;
+            this.operatorLog = List.copyOf(operatorLog);
             this.ticks = ticks;
             this.overruns = overruns;
             this.skippedTicks = skippedTicks;
@@ -231,6 +321,26 @@ public final class GimbalAxis {
         /** A copy of each tick's unwrapped shaft angle, degrees (350 at the start). */
         public double[] shaftDegrees() {
             return shaftDegrees.clone();
+        }
+
+        /** Operator commands the loop applied (3 when the operator acted: manual, retune, automatic). */
+        public long appliedCommands() {
+            return appliedCommands;
+        }
+
+        /** The controller's mode at the last tick, as the published status said. */
+        public Mode finalMode() {
+            return finalMode;
+        }
+
+        /** The controller's settings at the end (the softer ones once the operator has retuned). */
+        public ControllerSettings finalSettings() {
+            return finalSettings;
+        }
+
+        /** What the operator did, one line per step. */
+        public List<String> operatorLog() {
+            return operatorLog;
         }
 
         /** A copy of each tick's drive voltage. */

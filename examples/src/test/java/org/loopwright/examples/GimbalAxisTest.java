@@ -8,6 +8,7 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 
 import org.junit.jupiter.api.Test;
+import org.loopwright.pid.Mode;
 import org.loopwright.pid.runner.LoopClock;
 import org.loopwright.pid.runner.StopReason;
 
@@ -59,6 +60,28 @@ class GimbalAxisTest {
             }
         }
         assertThat(shaft[shaft.length - 1]).isBetween(299.5, 300.5);
+    }
+
+    @Test
+    void theOperatorSwitchesToManualRetunesAndHandsBackWithoutABump() throws InterruptedException {
+        // the virtual schedule stays exact; the clock also waits in real time so the operator can act
+        GimbalAxis.Outcome o = GimbalAxis.run(1.5, new PacedStepClock(1_000L), NOWHERE);
+
+        assertThat(o.stopReason()).isEqualTo(StopReason.STOP_REQUESTED);
+        assertThat(o.ticks()).isEqualTo(1501);
+        assertThat(o.operatorLog()).hasSize(2);
+        assertThat(o.operatorLog().get(0)).startsWith("manual: ").contains("manual, ");
+        assertThat(o.appliedCommands()).as(String.join("\n", o.operatorLog())).isEqualTo(3);
+        assertThat(o.finalMode()).isEqualTo(Mode.AUTOMATIC);
+        assertThat(o.finalSettings().gains()).isEqualTo(GimbalAxis.softerSettings().gains());
+        // manual, retune and automatic while holding 300°: each transfer bumpless, the axis stays put
+        double[] time = o.timeSeconds();
+        double[] encoder = o.encoderDegrees();
+        for (int k = 0; k < time.length; k++) {
+            if (time[k] >= 0.9) {
+                assertThat(angleBetween(encoder[k], 300.0)).as("near 300° at %s s", time[k]).isBetween(-0.5, 0.5);
+            }
+        }
     }
 
     @Test

@@ -122,11 +122,7 @@ public final class ControllerSettings {
         trackingTimeSeconds = resolveTrackingTime(b.trackingTimeSeconds);
         sign = action.sign();
 
-        if (derivativeGain > 0.0 && !derivativeMethod.isStable(samplePeriodSeconds, filterTimeSeconds)) {
-            throw new InvalidSettingException("samplePeriodSeconds", samplePeriodSeconds,
-                    "must be < 2 * derivativeFilterTimeSeconds for the forward-Euler derivative"
-                            + " (derivativeFilterTimeSeconds=" + filterTimeSeconds + ")");
-        }
+        derivativeMethod.requireStable(derivativeGain, samplePeriodSeconds, filterTimeSeconds);
         fixedPeriod = DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, samplePeriodSeconds);
         setpointStepLimit = setpointSlewPerSecond * samplePeriodSeconds;

@@ -1,5 +1,7 @@
 package org.loopwright.pid.discrete;
 
+import org.loopwright.pid.InvalidSettingException;
+
 /**
  * Discretisation of the filtered derivative D(s) = Kd·s/(1 + s·Tf). Every method gives the same
  * recursion D(k) = pole·D(k−1) + gain·(v(k) − v(k−1)), with v the derivative's input
@@ -27,9 +29,32 @@ public enum DerivativeMethod {
     /** s ≈ (z − 1)/h; requires h &lt; 2·Tf. */
     FORWARD_EULER;
 
-    /** Whether the recursion is stable for this period and filter time. */
+    /**
+     * Whether the recursion is stable for this period and filter time: the one place of the
+     * forward-Euler rule h &lt; 2·Tf (pole 1 − h/Tf inside the unit circle).
+     *
+     * @param periodSeconds     h
+     * @param filterTimeSeconds Tf
+     * @return false only for a forward-Euler derivative with h &ge; 2·Tf
+     */
     public boolean isStable(double periodSeconds, double filterTimeSeconds) {
         return this != FORWARD_EULER || periodSeconds < 2.0 * filterTimeSeconds;
+    }
+
+    /**
+     * Requires that a derivative term (if there is one) can run at a period.
+     *
+     * @param derivativeGain    Kd; 0 means no derivative term, which always runs
+     * @param periodSeconds     h
+     * @param filterTimeSeconds Tf
+     * @throws InvalidSettingException naming {@code samplePeriodSeconds} when {@link #isStable} is false
+     */
+    public void requireStable(double derivativeGain, double periodSeconds, double filterTimeSeconds) {
+        if (derivativeGain > 0.0 && !isStable(periodSeconds, filterTimeSeconds)) {
+            throw new InvalidSettingException("samplePeriodSeconds", periodSeconds,
+                    "must be < 2 * derivativeFilterTimeSeconds for the forward-Euler derivative"
+                            + " (derivativeFilterTimeSeconds=" + filterTimeSeconds + ")");
+        }
     }
 
     /** The pole of the recursion (weight of D(k−1)); needs Tf &gt; 0. */

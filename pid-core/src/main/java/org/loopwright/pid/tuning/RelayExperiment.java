@@ -24,7 +24,7 @@ import java.util.Locale;
  *
  * <p>Example, each sample of a 1 s loop: {@code heater.write(relay.step(1.0, bath.temperature()));}
  * then, once {@code relay.status() == RelayStatus.SUCCEEDED}, tune with
- * {@code TuningRule.ZIEGLER_NICHOLS_ULTIMATE.tune(relay.ultimatePoint(), ControllerType.PI)}.
+ * {@code UltimatePointRule.ZIEGLER_NICHOLS.tune(relay.ultimatePoint(), ControllerType.PI)}.
  *
  * <p>{@link #step(double, double)} allocates nothing. Not thread-safe: one loop thread calls it.
  */

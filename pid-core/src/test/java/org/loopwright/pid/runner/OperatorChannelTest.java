@@ -188,7 +188,6 @@ class OperatorChannelTest {
 
         ticks.ticks = 0;
         runner.start();
-        assertThat(runner.state()).isEqualTo(RunnerState.RUNNING);
         assertThat(runner.awaitStop(PATIENCE)).isTrue();
         assertThat(runner.stopReason()).isEqualTo(StopReason.STOP_REQUESTED);
         assertThat(runner.tickCount()).isEqualTo(20);

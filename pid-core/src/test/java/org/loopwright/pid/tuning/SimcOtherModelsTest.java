@@ -14,7 +14,7 @@ import org.loopwright.pid.form.IdealGains;
 /**
  * SIMC's second-order and integrating rules against values worked by hand from the formulas of
  * Skogestad, "Simple analytic rules for model reduction and PID controller tuning", J. Process
- * Control 13 (2003), as recalled from memory (see {@link TuningRule#SIMC}); the PID rules are in
+ * Control 13 (2003), as recalled from memory (see {@link ModelRule#SIMC}); the PID rules are in
  * series form there and are compared here after the exact series-to-ideal conversion
  * Kc = Kc'(1 + Td'/Ti'), Ti = Ti' + Td', Td = Ti'·Td'/(Ti' + Td') (Åström &amp; Hägglund 2006, eq. 3.9).
  */
@@ -50,7 +50,7 @@ class SimcOtherModelsTest {
     @MethodSource("cases")
     void simcGivesHandWorkedSettings(ProcessModel model, ControllerType type, double tauC, double gain,
             double integralTime, double derivativeTime) {
-        TuningResult result = TuningRule.SIMC.tune(model, type, tauC);
+        TuningResult result = ModelRule.SIMC.tune(model, type, tauC);
 
         assertThat(result).isInstanceOf(TunedGains.class);
         IdealGains gains = ((TunedGains) result).gains();
@@ -62,21 +62,21 @@ class SimcOtherModelsTest {
     @ParameterizedTest
     @EnumSource(ControllerType.class)
     void simcTunesACoolerOnTheMagnitudeOfItsGain(ControllerType type) {
-        TunedGains heater = (TunedGains) TuningRule.SIMC.tune(LEVEL_WITH_LAG, type);
-        TunedGains cooler = (TunedGains) TuningRule.SIMC.tune(new IntegratingModel(-0.1, 4.0, 2.0), type);
+        TunedGains heater = (TunedGains) ModelRule.SIMC.tune(LEVEL_WITH_LAG, type);
+        TunedGains cooler = (TunedGains) ModelRule.SIMC.tune(new IntegratingModel(-0.1, 4.0, 2.0), type);
         assertThat(cooler.gains()).isEqualTo(heater.gains());
     }
 
     @org.junit.jupiter.api.Test
     void simcGivesNoDerivativeForAPureIntegrator() {
-        assertThat(TuningRule.SIMC.tune(LEVEL, ControllerType.PID)).isEqualTo(new RuleNotApplicable(TuningRule.SIMC,
+        assertThat(ModelRule.SIMC.tune(LEVEL, ControllerType.PID)).isEqualTo(new RuleNotApplicable(ModelRule.SIMC,
                 ControllerType.PID, "SIMC gives derivative action for an integrating process only with a lag"
                         + " (Td = T); a pure integrator has none: use PI"));
     }
 
     @ParameterizedTest
-    @EnumSource(value = TuningRule.class, names = {"AMIGO", "LAMBDA", "ZIEGLER_NICHOLS_STEP", "COHEN_COON"})
-    void otherRulesSayTheirPaperHasNoSuchModel(TuningRule rule) {
+    @EnumSource(value = ModelRule.class, names = {"AMIGO", "LAMBDA", "ZIEGLER_NICHOLS_STEP", "COHEN_COON"})
+    void otherRulesSayTheirPaperHasNoSuchModel(ModelRule rule) {
         assertThat(rule.tune(SECOND_ORDER, ControllerType.PI)).isEqualTo(new RuleNotApplicable(rule,
                 ControllerType.PI, rule.name() + "'s paper gives a rule for a first-order model with dead time,"
                         + " not a second-order one: reduce the model (Skogestad's half rule) or use simc"));

@@ -37,7 +37,7 @@ class TuningRuleProperties {
                                               @ForAll boolean negative,
                                               @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
                                               @ForAll @DoubleRange(min = 0.001, max = 20) @Scale(4) double ratio) {
-        assertFinitePositive(TuningRule.SIMC.tune(model(k, negative, t, ratio), ControllerType.PI), ControllerType.PI);
+        assertFinitePositive(ModelRule.SIMC.tune(model(k, negative, t, ratio), ControllerType.PI), ControllerType.PI);
     }
 
     @Property(tries = 1000)
@@ -46,7 +46,7 @@ class TuningRuleProperties {
                                                      @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
                                                      @ForAll @DoubleRange(min = 0.001, max = 100) @Scale(4) double ratio,
                                                      @ForAll ControllerType type) {
-        assertFinitePositive(TuningRule.AMIGO.tune(model(k, negative, t, ratio), type), type);
+        assertFinitePositive(ModelRule.AMIGO.tune(model(k, negative, t, ratio), type), type);
     }
 
     @Property(tries = 1000)
@@ -55,7 +55,7 @@ class TuningRuleProperties {
                                               @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
                                               @ForAll @DoubleRange(min = 0.001, max = 100) @Scale(4) double ratio,
                                               @ForAll ControllerType type) {
-        assertFinitePositive(TuningRule.LAMBDA.tune(model(k, negative, t, ratio), type), type);
+        assertFinitePositive(ModelRule.LAMBDA.tune(model(k, negative, t, ratio), type), type);
     }
 
     @Property(tries = 1000)
@@ -64,9 +64,9 @@ class TuningRuleProperties {
             @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
             @ForAll @DoubleRange(min = 0.001, max = 5) @Scale(4) double ratio, @ForAll ControllerType type) {
         FopdtModel m = model(k, negative, t, ratio);
-        for (TuningRule rule : new TuningRule[] {TuningRule.ZIEGLER_NICHOLS_STEP, TuningRule.COHEN_COON}) {
+        for (ModelRule rule : new ModelRule[] {ModelRule.ZIEGLER_NICHOLS_STEP, ModelRule.COHEN_COON}) {
             TuningResult result = rule.tune(m, type);
-            if (m.deadTimeSeconds() / m.timeConstantSeconds() <= TuningRule.MAX_DEAD_TIME_RATIO) {
+            if (m.deadTimeSeconds() / m.timeConstantSeconds() <= ModelRule.MAX_DEAD_TIME_RATIO) {
                 assertFinitePositive(result, type);
             } else {
                 assertThat(result).isInstanceOf(RuleNotApplicable.class);
@@ -79,7 +79,7 @@ class TuningRuleProperties {
                                         @ForAll @DoubleRange(min = 0.001, max = 10000) @Scale(4) double pu,
                                         @ForAll ControllerType type) {
         UltimatePoint point = new UltimatePoint(ku, pu);
-        assertFinitePositive(TuningRule.ZIEGLER_NICHOLS_ULTIMATE.tune(point, type), type);
-        assertFinitePositive(TuningRule.TYREUS_LUYBEN.tune(point, type), type);
+        assertFinitePositive(UltimatePointRule.ZIEGLER_NICHOLS.tune(point, type), type);
+        assertFinitePositive(UltimatePointRule.TYREUS_LUYBEN.tune(point, type), type);
     }
 }

@@ -15,7 +15,7 @@ import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.RelayStatus;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
-import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputFileException;
@@ -84,7 +84,7 @@ public final class AutotuneCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         try {
-            TuningRule written = TuneCommand.parseRule(rule, false);
+            UltimatePointRule written = TuneCommand.ultimatePointRule(rule);
             ControllerType writtenType = TuneCommand.parseType(type);
             Scenario scenario = ScenarioFile.read(scenarioFile);
             if (scenario.inner().isPresent() || scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
@@ -106,7 +106,7 @@ public final class AutotuneCommand implements Callable<Integer> {
             ControllerSettings base = scenario.controller().orElseThrow();
             List<TuningCandidate> suggestions = new ArrayList<>();
             for (ControllerType type : ControllerType.values()) {
-                for (TuningRule rule : List.of(TuningRule.ZIEGLER_NICHOLS_ULTIMATE, TuningRule.TYREUS_LUYBEN)) {
+                for (UltimatePointRule rule : UltimatePointRule.values()) {
                     TuningResult result = rule.tune(point, type);
                     if (result instanceof TunedGains tuned) {
                         suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));

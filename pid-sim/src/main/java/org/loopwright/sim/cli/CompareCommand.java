@@ -14,17 +14,20 @@ import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.report.HtmlReport;
+import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.study.DiscretisationStudy;
 import org.loopwright.sim.study.SamplingVerdict;
 import org.loopwright.sim.study.StudyPlots;
 import org.loopwright.sim.study.StudyResult;
 import org.loopwright.sim.study.StudyRow;
+import org.loopwright.sim.study.StudyTable;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -53,12 +56,9 @@ public final class CompareCommand implements Callable<Integer> {
             description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
     private List<Double> periods;
 
-    @Option(names = "--out", paramLabel = "DIR",
-            description = "Write the plots (PNG and SVG) and report.html into this directory.")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print a JSON array of rows instead of the table.")
-    private boolean json;
+    /** Without --out, compare prints its table and writes no plots. */
+    @Mixin
+    private OutputOptions output;
 
     @Override
     public Integer call() {
@@ -78,18 +78,20 @@ public final class CompareCommand implements Callable<Integer> {
             List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
                     DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())));
             StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+            boolean json = output.json();
             if (json) {
                 out.println(Json.pretty(rows(result)));
             } else {
-                table(out, result, periods == null);
+                table(out, result, periods == null, loop.scenario().units());
             }
-            if (outDirectory != null) {
+            if (output.givenDirectory().isPresent()) {
+                Path outDirectory = output.givenDirectory().get();
                 List<Path> written;
                 try {
                     written = new ArrayList<>(StudyPlots.write(result, outDirectory));
-                    written.add(HtmlReports.compare(spec, outDirectory, String.valueOf(scenarioFile.getFileName()),
-                            result, written, String.valueOf(scenarioFile.getFileName()),
-                            Files.readString(scenarioFile)));
+                    written.add(HtmlReports.compare(outDirectory, HtmlReports.record(spec, loop.scenario(),
+                            scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
+                            StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
                 } catch (IOException e) {
                     throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
                 }
@@ -137,7 +139,7 @@ public final class CompareCommand implements Callable<Integer> {
         return array;
     }
 
-    private void table(PrintWriter out, StudyResult result, boolean defaultPeriods) {
+    private void table(PrintWriter out, StudyResult result, boolean defaultPeriods, Units units) {
         out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
         out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
                 result.crossoverRadPerSecond(), result.periodsSeconds(),
@@ -145,28 +147,7 @@ public final class CompareCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
                 result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
                 SamplingVerdict.TYPICAL_HIGH);
-        out.printf(Locale.ROOT, "%-34s %8s %7s %-18s %8s %8s %7s %-6s %10s %10s %10s %9s %9s%n", "integral/derivative",
-                "h (s)", "wc*h", "rule of thumb", "PM(deg)", "GM", "Ms", "stable", "overshoot%", "IAE", "load IAE",
-                "|C| dB", "argC deg");
-        for (StudyRow row : result.rows()) {
-            if (row.kind() == StudyRow.Kind.NOT_APPLICABLE) {
-                out.printf(Locale.ROOT, "%-34s %8s %7.3f not applicable: %s%n", row.label(),
-                        row.samplePeriodSeconds(), row.crossoverTimesPeriod(), row.note());
-                continue;
-            }
-            out.printf(Locale.ROOT, "%-34s %8s %7s %-18s %8s %8s %7s %-6s %10s %10s %10s %9s %9s%n", row.label(),
-                    row.kind() == StudyRow.Kind.CONTINUOUS ? "-" : String.valueOf(row.samplePeriodSeconds()),
-                    number("%.3f", row.crossoverTimesPeriod()),
-                    row.verdict() == null ? "-" : row.verdict().description(), number("%.2f", row.phaseMarginDegrees()),
-                    number("%.3f", row.gainMargin()), number("%.3f", row.ms()),
-                    row.stable() == null ? "-" : row.stable() ? "yes" : "NO", number("%.2f", row.overshootPercent()),
-                    number("%.4g", row.iae()), number("%.4g", row.loadIae()), number("%.3f", row.magnitudeErrorDb()),
-                    number("%.2f", row.phaseErrorDegrees()));
-        }
+        out.print(StudyTable.of(result, units).text());
         out.println("continuous row: " + result.rows().get(0).note());
-    }
-
-    private static String number(String format, double value) {
-        return Double.isFinite(value) ? String.format(Locale.ROOT, format, value) : "-";
     }
 }

@@ -7,7 +7,10 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
 import java.util.concurrent.Callable;
+import java.util.stream.Stream;
 
 import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.discrete.DerivativeMethod;
@@ -31,6 +34,7 @@ import org.loopwright.sim.identify.StepTest;
 import org.loopwright.sim.identify.StepTestFile;
 import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.report.ReportRecord;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.sweep.Spread;
 
@@ -171,7 +175,12 @@ public final class DesignCommand implements Callable<Integer> {
             return LoopwrightCommand.BAD_INPUT;
         }
         Files.createDirectories(outDirectory);
-        List<String> files = DesignFiles.write(result, outDirectory, HtmlReports.version(spec));
+        // the report's record: the command line, the input files with their SHA-256, the recommended settings in full
+        List<Path> inputs = Stream.of(stepTest, plantFile).filter(Objects::nonNull).toList();
+        ReportRecord record = ReportRecord.of(BuildVersion.line(), spec.root().commandLine().getParseResult()
+                .originalArgs(), inputs, result.recommended().map(c -> ControllerFile.resolved(c.device()))
+                .orElse(Map.of()));
+        List<String> files = DesignFiles.write(result, outDirectory, record);
         if (json) {
             out.println(Json.pretty(DesignFiles.json(result, files)));
         } else {

@@ -23,6 +23,7 @@ import org.loopwright.sim.design.DesignModel;
 import org.loopwright.sim.design.DesignResult;
 import org.loopwright.sim.design.DesignSpec;
 import org.loopwright.sim.design.DiscretisationCheck;
+import org.loopwright.sim.report.ReportRecord;
 
 /**
  * The outputs of {@code design}: the candidate columns (one list for the text table, the CSV, the JSON
@@ -77,7 +78,7 @@ final class DesignFiles {
      *
      * @return the names written, in order
      */
-    static List<String> write(DesignResult result, Path directory, String version) throws IOException {
+    static List<String> write(DesignResult result, Path directory, ReportRecord record) throws IOException {
         List<String> files = new ArrayList<>();
         if (result.recommended().isPresent()) {
             Candidate c = result.recommended().get();
@@ -106,7 +107,7 @@ final class DesignFiles {
         files.add(JSON);
         files.add(org.loopwright.sim.report.HtmlReport.FILE_NAME);
         Files.writeString(directory.resolve(JSON), Json.pretty(json(result, files)) + "\n", StandardCharsets.UTF_8);
-        DesignReport.write(result, directory, version);
+        DesignReport.write(result, directory, record);
         return files;
     }
 

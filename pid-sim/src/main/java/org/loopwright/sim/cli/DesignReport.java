@@ -15,6 +15,7 @@ import org.loopwright.sim.design.DesignSpec;
 import org.loopwright.sim.design.DiscretisationCheck;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.report.ReportRecord;
 
 /**
  * The design's {@code report.html} (see {@link HtmlReport}): the verdict, the inputs, the candidate
@@ -38,7 +39,7 @@ final class DesignReport {
     private DesignReport() {
     }
 
-    static Path write(DesignResult result, Path directory, String version) throws IOException {
+    static Path write(DesignResult result, Path directory, ReportRecord record) throws IOException {
         List<Path> plots = DesignPlots.write(result, directory);
         DesignModel m = result.model();
         DesignSpec s = result.spec();
@@ -110,7 +111,7 @@ final class DesignReport {
         tables.add(new HtmlTable("Commissioning checklist (common practice)", List.of("step", "what"), CHECKLIST));
         String title = "Design " + result.recommended().map(c -> "of " + c.name()).orElse("without a recommendation")
                 + " for " + m.describe();
-        return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), title, version, paragraphs, tables, plots,
+        return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), title, record, paragraphs, tables, plots,
                 result.recommended().isPresent() ? DesignFiles.SCENARIO : "none (no stable candidate)",
                 result.recommended().map(Candidate::scenarioText).orElse(""));
     }

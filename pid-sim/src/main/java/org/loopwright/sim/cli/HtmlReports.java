@@ -2,18 +2,16 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
-import java.util.Optional;
 
-import org.loopwright.sim.metrics.LimitCycle;
-import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
-import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.report.NumberText;
+import org.loopwright.sim.report.ReportRecord;
+import org.loopwright.sim.report.ResultTable;
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.study.SamplingVerdict;
 import org.loopwright.sim.study.StudyResult;
-import org.loopwright.sim.study.StudyRow;
 
 import picocli.CommandLine.Model.CommandSpec;
 
@@ -23,70 +21,41 @@ final class HtmlReports {
     private HtmlReports() {
     }
 
-    /** The root command's version line, e.g. "loopwright 0.1.0". */
-    static String version(CommandSpec spec) {
-        String[] lines = spec.root().version();
-        return lines.length == 0 ? "loopwright" : lines[0];
+    /**
+     * The record of a report on a scenario: tool version, time, the command line as typed, the
+     * scenario and its controller file with their SHA-256, and the controller settings in full.
+     *
+     * @param spec     the command's spec (for the command line)
+     * @param scenario the scenario as read
+     * @param file     the scenario file, or null for a built-in demo
+     */
+    static ReportRecord record(CommandSpec spec, Scenario scenario, Path file) throws IOException {
+        List<Path> inputs = file == null ? List.of() : ScenarioFile.inputFiles(file);
+        return ReportRecord.of(BuildVersion.line(), arguments(spec), inputs, ScenarioFile.resolvedController(scenario));
     }
 
-    /** The page of one simulation: its metrics, its response plot, its scenario. */
-    static Path simulate(CommandSpec spec, Path directory, String title, String summary, ResponseMetrics m,
-            Optional<LimitCycle> cycle, Path responseSvg, String scenarioName, String scenarioText) throws IOException {
-        List<List<String>> rows = new ArrayList<>();
-        rows.add(row("rise time (10-90 %)", m.riseTimeSeconds(), "s"));
-        rows.add(row("settling time (2 %)", m.settlingTimeSeconds(), "s"));
-        rows.add(row("overshoot", m.overshootPercent(), "%"));
-        rows.add(row("peak time", m.peakTimeSeconds(), "s"));
-        rows.add(row("steady-state error", m.steadyStateError(), ""));
-        rows.add(row("IAE", m.iae(), "·s"));
-        rows.add(row("ISE", m.ise(), "·s"));
-        rows.add(row("ITAE", m.itae(), "·s²"));
-        rows.add(row("total variation of output", m.totalVariation(), ""));
-        rows.add(row("time saturated", 100.0 * m.saturatedFraction(), "%"));
-        rows.add(row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), ""));
-        rows.add(row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s"));
-        HtmlTable table = new HtmlTable("Response metrics (n/a: the figure does not apply)",
-                List.of("figure", "value", "unit"), rows);
-        return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Simulation of " + title, version(spec),
-                List.of(summary), List.of(table), List.of(responseSvg), scenarioName, scenarioText);
+    /** The arguments the command was given, after the tool's name. */
+    private static List<String> arguments(CommandSpec spec) {
+        return spec.root().commandLine().getParseResult().originalArgs();
     }
 
-    private static List<String> row(String name, double value, String unit) {
-        return List.of(name, Double.isFinite(value) ? String.format(Locale.ROOT, "%.6g", value) : "n/a",
-                Double.isFinite(value) ? unit : "");
+    /** The page of one simulation: its metrics, its response plots (the inner loop's too, for a cascade), its scenario. */
+    static Path simulate(Path directory, ReportRecord record, String title, String summary, ResultTable metrics,
+            List<Path> plots, String scenarioName, String scenarioText) throws IOException {
+        return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Simulation of " + title, record,
+                List.of(summary), List.of(metrics.html()), plots, scenarioName, scenarioText);
     }
 
-    /** The page of a discretisation study: its table, its SVG plots, its scenario. */
-    static Path compare(CommandSpec spec, Path directory, String title, StudyResult result, List<Path> plots,
-            String scenarioName, String scenarioText) throws IOException {
-        List<List<String>> rows = new ArrayList<>();
-        for (StudyRow row : result.rows()) {
-            boolean applicable = row.kind() != StudyRow.Kind.NOT_APPLICABLE;
-            rows.add(List.of(row.label(),
-                    row.kind() == StudyRow.Kind.CONTINUOUS ? "-" : String.valueOf(row.samplePeriodSeconds()),
-                    number("%.3f", row.crossoverTimesPeriod()),
-                    applicable ? row.verdict() == null ? "-" : row.verdict().description()
-                            : "not applicable: " + row.note(),
-                    number("%.2f", row.phaseMarginDegrees()), number("%.3f", row.gainMargin()),
-                    number("%.3f", row.ms()), row.stable() == null ? "-" : row.stable() ? "yes" : "NO",
-                    number("%.2f", row.overshootPercent()), number("%.4g", row.iae()), number("%.4g", row.loadIae()),
-                    number("%.3f", row.magnitudeErrorDb()), number("%.2f", row.phaseErrorDegrees())));
-        }
-        HtmlTable table = new HtmlTable("Each discretisation at each sample period against the continuous design",
-                List.of("integral/derivative", "h (s)", "wc*h", "rule of thumb", "PM (deg)", "GM", "Ms", "stable",
-                        "overshoot %", "IAE", "load IAE", "|C| error (dB)", "arg C error (deg)"), rows);
-        String summary = String.format(Locale.ROOT, "Continuous gain crossover omega_c = %.4g rad/s; periods %s s;"
-                + " set-point step %s, load step %s; common practice omega_c*h from %s to %s. Continuous row: %s",
-                result.crossoverRadPerSecond(), result.periodsSeconds(), result.setpointStepSize(),
-                result.loadStepSize(), SamplingVerdict.TYPICAL_LOW, SamplingVerdict.TYPICAL_HIGH,
-                result.rows().get(0).note());
+    /** The page of a discretisation study: its table, its plots, its scenario. */
+    static Path compare(Path directory, ReportRecord record, String title, StudyResult result, ResultTable table,
+            List<Path> plots, String scenarioText) throws IOException {
+        String summary = "Continuous gain crossover ωc = " + NumberText.of(result.crossoverRadPerSecond())
+                + " rad/s; periods " + result.periodsSeconds() + " s; set-point step " + result.setpointStepSize()
+                + ", load step " + result.loadStepSize() + "; common practice ωc·h from " + SamplingVerdict.TYPICAL_LOW
+                + " to " + SamplingVerdict.TYPICAL_HIGH + ". Continuous row: " + result.rows().get(0).note();
         // PNG, not SVG: XChart draws text as paths, so a study's SVGs make a page of 10 MB or more
         List<Path> pngs = plots.stream().filter(p -> p.toString().endsWith(".png")).toList();
-        return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Discretisation study of " + title,
-                version(spec), List.of(summary), List.of(table), pngs, scenarioName, scenarioText);
-    }
-
-    private static String number(String format, double value) {
-        return Double.isFinite(value) ? String.format(Locale.ROOT, format, value) : "-";
+        return HtmlReport.write(directory.resolve(HtmlReport.FILE_NAME), "Discretisation study of " + title, record,
+                List.of(summary), List.of(table.html()), pngs, title, scenarioText);
     }
 }

@@ -12,6 +12,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import org.loopwright.pid.tuning.FopdtModel;
 import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.identify.IdentificationPlot;
 import org.loopwright.sim.identify.IdentifiedModel;
 import org.loopwright.sim.identify.ModelKind;
@@ -22,6 +23,7 @@ import org.loopwright.sim.scenario.PlantBlock;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -43,34 +45,28 @@ public final class IdentifyCommand implements Callable<Integer> {
     private Path file;
 
     @Option(names = "--model", paramLabel = "fopdt|sopdt", defaultValue = "fopdt",
-            description = "First or second order plus dead time (default: fopdt).")
-    private String model;
+            converter = ModelWords.class,
+            description = "First or second order plus dead time (default: ${DEFAULT-VALUE}).")
+    private ModelKind kind;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Where to write the plot identify-<model>.png (default: the current directory).")
-    private Path outDirectory;
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--write-plant", paramLabel = "FILE.yaml",
             description = "Write the fitted model as a plant: block of the scenario format (design --plant reads it).")
     private Path plantOut;
 
-    @Option(names = "--json", description = "Print JSON instead of text.")
-    private boolean json;
+    /** {@code --model} by the words fopdt and sopdt. */
+    static final class ModelWords extends KeywordConverter<ModelKind> {
+        ModelWords() {
+            super(Keywords.byWord(ModelKind.values(), ModelKind::label));
+        }
+    }
 
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        ModelKind kind = switch (model) {
-            case "fopdt" -> ModelKind.FOPDT;
-            case "sopdt" -> ModelKind.SOPDT;
-            default -> null;
-        };
-        if (kind == null) {
-            err.println("--model must be fopdt or sopdt: --model=" + model);
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
-        }
         try {
             StepTest test = StepTestFile.read(file);
             IdentifiedModel fit = StepIdentification.identify(test, kind);
@@ -78,7 +74,7 @@ public final class IdentifyCommand implements Callable<Integer> {
             if (plantOut != null) {
                 writePlant(fit);
             }
-            if (json) {
+            if (output.json()) {
                 out.println(Json.pretty(json(fit)));
             } else {
                 printText(out, fit, plot);
@@ -96,6 +92,7 @@ public final class IdentifyCommand implements Callable<Integer> {
     }
 
     private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) {
+        Path outDirectory = output.directory("identify");
         try {
             Files.createDirectories(outDirectory);
             return IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);

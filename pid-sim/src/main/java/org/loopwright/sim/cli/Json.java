@@ -4,11 +4,15 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import org.loopwright.sim.report.JsonOutput;
 
-/** JSON output of the commands: numbers that are not finite (none, not applicable) become null. */
+/**
+ * JSON trees of the commands that are not records yet, on {@link JsonOutput}'s mapper: numbers that are
+ * not finite (none, not applicable) become null.
+ */
 final class Json {
 
-    private static final ObjectMapper MAPPER = new ObjectMapper();
+    private static final ObjectMapper MAPPER = JsonOutput.mapper();
 
     private Json() {
     }

@@ -9,7 +9,7 @@ import picocli.CommandLine.Command;
  * The command-line harness: {@code java -jar loopwright.jar <command> ...}. Exit codes: 0 success,
  * 1 an internal error, 2 bad input (a file, an option or a value).
  */
-@Command(name = "loopwright", mixinStandardHelpOptions = true, version = "loopwright 0.1.0",
+@Command(name = "loopwright", mixinStandardHelpOptions = true, versionProvider = BuildVersion.class,
         description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
         subcommands = {CommandLine.HelpCommand.class, SimulateCommand.class, ReplayCommand.class,
                 MarginsCommand.class, CompareCommand.class, TuneCommand.class, DesignCommand.class, IdentifyCommand.class,

@@ -37,7 +37,7 @@ import picocli.CommandLine.Spec;
 public final class ReplayCommand implements Callable<Integer> {
 
     /** Where the output goes when --out is not given: this file in the current directory. */
-    public static final String DEFAULT_OUT = "replay-output.csv";
+    public static final String DEFAULT_OUT = "loopwright-replay/replay-output.csv";
 
     @Spec
     private CommandSpec spec;
@@ -51,7 +51,7 @@ public final class ReplayCommand implements Callable<Integer> {
     private Path traceFile;
 
     @Option(names = "--out", paramLabel = "OUT.csv", description = "Where to write the output CSV (default: "
-            + DEFAULT_OUT + " in the current directory).")
+            + DEFAULT_OUT + ").")
     private Path outFile;
 
     @Option(names = "--measured-period",
@@ -97,6 +97,11 @@ public final class ReplayCommand implements Callable<Integer> {
     }
 
     private static void write(ReplayResult result, Path target) {
+        try {
+            Files.createDirectories(target.getParent());
+        } catch (IOException e) {
+            throw InputFileException.whole(target.getParent().toString(), "cannot be created (" + e + ")", e);
+        }
         try (Writer writer = Files.newBufferedWriter(target, StandardCharsets.UTF_8)) {
             result.writeCsv(writer);
         } catch (IOException e) {

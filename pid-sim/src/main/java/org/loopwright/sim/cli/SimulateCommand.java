@@ -4,6 +4,8 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
@@ -13,6 +15,7 @@ import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.metrics.ResponseWindow;
 import org.loopwright.sim.report.MetricsReport;
+import org.loopwright.sim.report.ResultTable;
 import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.report.TrajectoryCsv;
 import org.loopwright.sim.scenario.Scenario;
@@ -21,6 +24,7 @@ import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -28,7 +32,8 @@ import picocli.CommandLine.Model.CommandSpec;
 
 /**
  * {@code simulate [SCENARIO.yaml] [--out DIR] [--json] [--show-demo]}: runs a closed-loop scenario, writes
- * {@code trajectory.csv}, {@code response.png}, {@code response.svg} and {@code report.html} into DIR, and prints the
+ * {@code trajectory.csv}, {@code response.png}, {@code response.svg} (and, for a cascade, {@code inner-loop.png}
+ * and {@code .svg}) and {@code report.html} into DIR, and prints the
  * metrics as a table (or one JSON object with {@code --json}). Without a scenario it runs the
  * built-in water-bath demo and says so (on standard error, so that JSON output stays clean).
  */
@@ -42,12 +47,8 @@ public final class SimulateCommand implements Callable<Integer> {
             description = "The scenario file (YAML; --show-demo prints an example of the format).")
     private Path scenarioFile;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Directory for trajectory.csv and the plots (created if need be; default: ${DEFAULT-VALUE}).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print the metrics as one JSON object instead of a table.")
-    private boolean json;
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--show-demo", description = "Print the built-in demo scenario (an example of the format) and stop.")
     private boolean showDemo;
@@ -85,27 +86,35 @@ public final class SimulateCommand implements Callable<Integer> {
         Optional<LimitCycle> cycle = scenario.onOffController().isPresent()
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();
 
+        Path outDirectory = output.directory("simulate");
         Files.createDirectories(outDirectory);
         TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
         System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(ResponsePlot.response(trajectory, title), outDirectory, "response");
+        ResponsePlot.save(ResponsePlot.response(trajectory, title, scenario.units()), outDirectory, "response");
+        List<Path> plots = new ArrayList<>(List.of(outDirectory.resolve("response.svg")));
+        if (trajectory.hasInnerLoop()) {
+            ResponsePlot.save(ResponsePlot.innerLoop(trajectory, title), outDirectory, "inner-loop");
+            plots.add(outDirectory.resolve("inner-loop.svg"));
+        }
         String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
                 + " (the first setpoint change until the next change or load step); integrals to the end.",
                 trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
                 ResponseWindow.of(scenario).describe());
-        HtmlReports.simulate(spec, outDirectory, title, summary, metrics, cycle, outDirectory.resolve("response.svg"),
-                scenarioFile == null ? "built-in water-bath demo" : title,
+        ResultTable table = MetricsReport.table(metrics, cycle, scenario.units());
+        HtmlReports.simulate(outDirectory, HtmlReports.record(spec, scenario, scenarioFile), title, summary, table,
+                plots, scenarioFile == null ? "built-in water-bath demo" : title,
                 scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
 
-        if (json) {
+        if (output.json()) {
             out.println(MetricsReport.jsonText(metrics, cycle));
         } else {
             out.printf("%s: %d samples every %s s over %s s%n", title, trajectory.length(),
                     scenario.samplePeriodSeconds(), scenario.durationSeconds());
             out.println("Step figures " + ResponseWindow.of(scenario).describe()
                     + " (the first setpoint change until the next change or load step); integrals to the end:");
-            out.print(MetricsReport.table(metrics, cycle));
-            out.println("Wrote trajectory.csv, response.png, response.svg and report.html in " + outDirectory);
+            out.print(table.text());
+            out.println("Wrote trajectory.csv, response.png, response.svg" + (trajectory.hasInnerLoop()
+                    ? ", inner-loop.png, inner-loop.svg" : "") + " and report.html in " + outDirectory);
         }
         out.flush();
         return 0;

@@ -31,6 +31,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -82,12 +83,8 @@ public final class SweepCommand implements Callable<Integer> {
             description = "Threads to run on (default: the number of processors).")
     private Integer threads;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Directory for sweep-runs.csv, the plot and report.html (default: ${DEFAULT-VALUE}).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print the summary as one JSON object instead of a table (no progress bar).")
-    private boolean json;
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
     private boolean noProgress;
@@ -127,6 +124,8 @@ public final class SweepCommand implements Callable<Integer> {
             err.flush();
             return LoopwrightCommand.BAD_INPUT;
         }
+        boolean json = output.json();
+        Path outDirectory = output.directory("sweep");
         SweepResult result;
         try (SweepProgress progress = !json && !noProgress && System.console() != null
                 ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
@@ -137,7 +136,7 @@ public final class SweepCommand implements Callable<Integer> {
         try {
             written = new ArrayList<>(SweepFiles.write(result, outDirectory, title));
             written.add(HtmlReport.write(outDirectory.resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
-                    HtmlReports.version(spec), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
+                    HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
         } catch (IOException e) {
             err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)

@@ -23,7 +23,9 @@ import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.pid.tuning.RuleNotApplicable;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
+import org.loopwright.pid.tuning.ModelRule;
 import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.tuning.TuningCandidate;
@@ -151,8 +153,6 @@ public final class TuneCommand implements Callable<Integer> {
                         + " --closed-loop-time=" + closedLoopTime);
             }
             double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
-            List<TuningRule> rules = rule == null ? Arrays.stream(TuningRule.values())
-                    .filter(r -> r.usesModel() == fromModel).toList() : List.of(parseRule(rule, fromModel));
             List<TuningCandidate> candidates = new ArrayList<>();
             List<RuleNotApplicable> skipped = new ArrayList<>();
             ProcessModel model;
@@ -164,8 +164,18 @@ public final class TuneCommand implements Callable<Integer> {
                 throw new BadInput(inOptionTerms(e));
             }
             ControllerSettings base = fromModel ? baseSettings(model) : null;
-            for (TuningRule r : rules) {
-                TuningResult result = fromModel ? r.tune(model, controllerType, designTime) : r.tune(point, controllerType);
+            List<TuningResult> results = new ArrayList<>();
+            if (fromModel) {
+                for (ModelRule r : rule == null ? ModelRule.values() : new ModelRule[] {modelRule(rule)}) {
+                    results.add(r.tune(model, controllerType, designTime));
+                }
+            } else {
+                for (UltimatePointRule r : rule == null ? UltimatePointRule.values()
+                        : new UltimatePointRule[] {ultimatePointRule(rule)}) {
+                    results.add(r.tune(point, controllerType));
+                }
+            }
+            for (TuningResult result : results) {
                 if (result instanceof TunedGains tuned) {
                     candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model, base, samplePeriod != null)
                             : TuningEvaluation.withoutModel(tuned, samplePeriod != null ? samplePeriod
@@ -270,17 +280,24 @@ public final class TuneCommand implements Callable<Integer> {
         };
     }
 
-    /** The rule named on the command line; ziegler-nichols is the step rule for a model, the ultimate rule otherwise. */
-    static TuningRule parseRule(String label, boolean fromModel) {
-        for (TuningRule r : TuningRule.values()) {
-            if (r.label().equals(label) && r.usesModel() == fromModel) {
+    /** The model rule named by {@code --rule} (ziegler-nichols is the step-response rule here). */
+    static ModelRule modelRule(String label) {
+        return rule(label, ModelRule.values(), " for a model");
+    }
+
+    /** The ultimate-point rule named by {@code --rule}. */
+    static UltimatePointRule ultimatePointRule(String label) {
+        return rule(label, UltimatePointRule.values(), " for an ultimate point");
+    }
+
+    private static <R extends TuningRule> R rule(String label, R[] rules, String what) {
+        for (R r : rules) {
+            if (r.label().equals(label)) {
                 return r;
             }
         }
-        String allowed = Arrays.stream(TuningRule.values()).filter(r -> r.usesModel() == fromModel)
-                .map(TuningRule::label).collect(Collectors.joining(", "));
-        throw new BadInput("--rule must be one of " + allowed + (fromModel ? " for a model" : " for an ultimate point")
-                + ": --rule=" + label);
+        String allowed = Arrays.stream(rules).map(TuningRule::label).collect(Collectors.joining(", "));
+        throw new BadInput("--rule must be one of " + allowed + what + ": --rule=" + label);
     }
 
     /** The model's and the point's field names as the options the user typed. */

@@ -3,6 +3,8 @@ package org.loopwright.sim.config;
 import java.util.Arrays;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.function.BiFunction;
+import java.util.function.Function;
 import java.util.stream.Collectors;
 
 /**
@@ -21,13 +23,14 @@ import java.util.stream.Collectors;
  */
 public final class FileKey<T> {
 
-    /** How a value of one kind is read from a document node and written as YAML text. */
-    private interface Kind<T> {
-        T read(YamlDocument doc, String pointer);
-
-        String text(T value);
-
-        String allowed();
+    /**
+     * How a value of one kind is read from a document node and written as YAML text.
+     *
+     * @param read    reads the value at a pointer, checking it
+     * @param text    writes a value as YAML text
+     * @param allowed what the value must be, as messages say it
+     */
+    private record Kind<T>(BiFunction<YamlDocument, String, T> read, Function<T, String> text, String allowed) {
     }
 
     private final String word;
@@ -44,6 +47,10 @@ public final class FileKey<T> {
         this.required = required;
     }
 
+    private static <T> FileKey<T> required(String word, String field, Kind<T> kind) {
+        return new FileKey<>(word, field, kind, null, true);
+    }
+
     /**
      * A required number.
      *
@@ -53,22 +60,8 @@ public final class FileKey<T> {
      * @return the key
      */
     public static FileKey<Double> number(String word, String field, NumberRule rule) {
-        return new FileKey<>(word, field, new Kind<>() {
-            @Override
-            public Double read(YamlDocument doc, String pointer) {
-                return doc.requiredNumber(pointer, rule);
-            }
-
-            @Override
-            public String text(Double value) {
-                return yamlNumber(value);
-            }
-
-            @Override
-            public String allowed() {
-                return rule.describeNumber();
-            }
-        }, null, true);
+        return required(word, field, new Kind<>((doc, pointer) -> doc.requiredNumber(pointer, rule),
+                FileKey::yamlNumber, rule.describeNumber()));
     }
 
     /**
@@ -80,22 +73,9 @@ public final class FileKey<T> {
      * @return the key
      */
     public static FileKey<double[]> numbers(String word, String field, NumberRule rule) {
-        return new FileKey<>(word, field, new Kind<>() {
-            @Override
-            public double[] read(YamlDocument doc, String pointer) {
-                return doc.numberList(pointer, rule);
-            }
-
-            @Override
-            public String text(double[] value) {
-                return Arrays.stream(value).mapToObj(FileKey::yamlNumber).collect(Collectors.joining(", ", "[", "]"));
-            }
-
-            @Override
-            public String allowed() {
-                return "a list of numbers" + (rule.description().isEmpty() ? "" : " (" + rule.description() + ")");
-            }
-        }, null, true);
+        return required(word, field, new Kind<>((doc, pointer) -> doc.numberList(pointer, rule),
+                value -> Arrays.stream(value).mapToObj(FileKey::yamlNumber).collect(Collectors.joining(", ", "[", "]")),
+                "a list of numbers" + (rule.description().isEmpty() ? "" : " (" + rule.description() + ")")));
     }
 
     /**
@@ -108,22 +88,8 @@ public final class FileKey<T> {
      * @return the key
      */
     public static FileKey<Long> whole(String word, String field, long least, long most) {
-        return new FileKey<>(word, field, new Kind<>() {
-            @Override
-            public Long read(YamlDocument doc, String pointer) {
-                return doc.wholeNumber(pointer, least, most);
-            }
-
-            @Override
-            public String text(Long value) {
-                return value.toString();
-            }
-
-            @Override
-            public String allowed() {
-                return YamlDocument.describeWhole(least, most);
-            }
-        }, null, true);
+        return required(word, field, new Kind<>((doc, pointer) -> doc.wholeNumber(pointer, least, most),
+                String::valueOf, YamlDocument.describeWhole(least, most)));
     }
 
     /**
@@ -136,22 +102,20 @@ public final class FileKey<T> {
      * @return the key
      */
     public static <E> FileKey<E> choice(String word, String field, Keywords<E> words) {
-        return new FileKey<>(word, field, new Kind<>() {
-            @Override
-            public E read(YamlDocument doc, String pointer) {
-                return doc.requiredChoice(pointer, words);
-            }
+        return required(word, field, new Kind<>((doc, pointer) -> doc.requiredChoice(pointer, words), words::word,
+                words.describe()));
+    }
 
-            @Override
-            public String text(E value) {
-                return words.word(value);
-            }
-
-            @Override
-            public String allowed() {
-                return words.describe();
-            }
-        }, null, true);
+    /**
+     * A required non-empty text.
+     *
+     * @param word  the file's key
+     * @param field the Java field it fills
+     * @return the key
+     */
+    public static FileKey<String> text(String word, String field) {
+        return required(word, field, new Kind<>((doc, pointer) -> doc.requiredText(pointer),
+                value -> "\"" + value.replace("\\", "\\\\").replace("\"", "\\\"") + "\"", "a text"));
     }
 
     /**
@@ -164,22 +128,7 @@ public final class FileKey<T> {
      * @return the key
      */
     public static FileKey<String> section(String word, String field, String allowed) {
-        return new FileKey<>(word, field, new Kind<>() {
-            @Override
-            public String read(YamlDocument doc, String pointer) {
-                return pointer;
-            }
-
-            @Override
-            public String text(String value) {
-                return value;
-            }
-
-            @Override
-            public String allowed() {
-                return allowed;
-            }
-        }, null, true);
+        return required(word, field, new Kind<>((doc, pointer) -> pointer, value -> value, allowed));
     }
 
     /**
@@ -234,7 +183,7 @@ public final class FileKey<T> {
      * @return the text
      */
     public String text(T value) {
-        return kind.text(value);
+        return kind.text().apply(value);
     }
 
     /** @return the default as help and README show it: "required", "none" or the value's text */
@@ -242,7 +191,7 @@ public final class FileKey<T> {
         if (required) {
             return "required";
         }
-        return absent == null ? "none" : kind.text(absent);
+        return absent == null ? "none" : kind.text().apply(absent);
     }
 
     /**
@@ -278,7 +227,7 @@ public final class FileKey<T> {
      */
     public T read(YamlDocument doc, String mapping) {
         if (isIn(doc, mapping)) {
-            return kind.read(doc, pointer(mapping));
+            return kind.read().apply(doc, pointer(mapping));
         }
         if (required) {
             throw doc.missing(pointer(mapping), kind.allowed());
@@ -298,7 +247,7 @@ public final class FileKey<T> {
      * @throws InputFileException when the value is not allowed
      */
     public Optional<T> find(YamlDocument doc, String mapping) {
-        return isIn(doc, mapping) ? Optional.of(kind.read(doc, pointer(mapping))) : Optional.empty();
+        return isIn(doc, mapping) ? Optional.of(kind.read().apply(doc, pointer(mapping))) : Optional.empty();
     }
 
     /** Double.toString is the shortest text that reads back to the same double; YAML spells infinity its own way. */

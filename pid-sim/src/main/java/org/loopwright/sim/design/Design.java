@@ -18,7 +18,7 @@ import org.loopwright.pid.tuning.RuleNotApplicable;
 import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
-import org.loopwright.pid.tuning.TuningRule;
+import org.loopwright.pid.tuning.ModelRule;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
@@ -35,7 +35,7 @@ import org.loopwright.sim.tuning.SampledLoop;
  * the sampled loop, in simulation with the device's limits and across plant uncertainty (see
  * {@link DesignExperiment}); then the recommendation.
  *
- * <p>Rules: every model rule of {@link TuningRule}; for a second-order model the rules whose paper
+ * <p>Rules: every model rule of {@link ModelRule}; for a second-order model the rules whose paper
  * covers only first order are applied to its half-rule reduction (Skogestad 2003), as the note says,
  * and still checked on the second-order model. The optimised design for PID holds the derivative
  * time of SIMC's PID rule for the model, or AMIGO's where SIMC gives none (first order); a pure
@@ -98,7 +98,7 @@ public final class Design {
 
     /** The total number of progress steps {@link #run} reports at most: the sweep runs of every candidate. */
     public static int progressSteps(DesignSpec spec) {
-        return spec.runs() * spec.types().size() * (TuningRule.values().length + 1);
+        return spec.runs() * spec.types().size() * (ModelRule.values().length + 1);
     }
 
     /** A candidate before verification. */
@@ -113,13 +113,10 @@ public final class Design {
         ProcessModel m = model.model();
         List<Proposal> proposals = new ArrayList<>();
         for (ControllerType type : spec.types()) {
-            for (TuningRule rule : TuningRule.values()) {
-                if (!rule.usesModel()) {
-                    continue;
-                }
+            for (ModelRule rule : ModelRule.values()) {
                 TuningResult result = rule.tune(m, type);
                 String reduced = "";
-                if (result instanceof RuleNotApplicable && m instanceof SopdtModel second && rule != TuningRule.SIMC) {
+                if (result instanceof RuleNotApplicable && m instanceof SopdtModel second && rule != ModelRule.SIMC) {
                     result = rule.tune(second.halfRule(), type);
                     reduced = "on the half-rule first-order model (Skogestad 2003)";
                 }
@@ -179,11 +176,11 @@ public final class Design {
 
     /** The PID rule whose derivative time the optimised PID holds: SIMC's, else AMIGO's (on the half rule for SOPDT). */
     private static Optional<TunedGains> derivativeSource(ProcessModel m) {
-        if (TuningRule.SIMC.tune(m, ControllerType.PID) instanceof TunedGains simc) {
+        if (ModelRule.SIMC.tune(m, ControllerType.PID) instanceof TunedGains simc) {
             return Optional.of(simc);
         }
         ProcessModel first = m instanceof SopdtModel second ? second.halfRule() : m;
-        return TuningRule.AMIGO.tune(first, ControllerType.PID) instanceof TunedGains amigo ? Optional.of(amigo)
+        return ModelRule.AMIGO.tune(first, ControllerType.PID) instanceof TunedGains amigo ? Optional.of(amigo)
                 : Optional.empty();
     }
 

@@ -78,13 +78,8 @@ public final class LoopAnalysis {
      * @throws InvalidSettingException if the forward-Euler derivative is unstable at this period (h &ge; 2·Tf)
      */
     public static PulseTransferFunction discreteController(ControllerSettings settings, double periodSeconds) {
-        double filterTime = settings.derivativeFilterTimeSeconds();
-        if (settings.parallelGains().derivativeGain() > 0.0
-                && !settings.derivativeMethod().isStable(periodSeconds, filterTime)) {
-            throw new InvalidSettingException("samplePeriodSeconds", periodSeconds,
-                    "must be < 2 * derivativeFilterTimeSeconds for the forward-Euler derivative"
-                            + " (derivativeFilterTimeSeconds=" + filterTime + ")");
-        }
+        settings.derivativeMethod().requireStable(settings.parallelGains().derivativeGain(), periodSeconds,
+                settings.derivativeFilterTimeSeconds());
         return PulseTransferFunction.of(settings.discretePid(periodSeconds));
     }
 

@@ -11,16 +11,23 @@ import java.util.Objects;
 import java.util.regex.Pattern;
 
 /**
- * A self-contained report page, {@value #FILE_NAME}: the title, the tool's version, the safety caution,
- * tables, the plots inlined (SVG files as SVG elements, PNG files as data URIs, for plots whose SVG
+ * A self-contained report page, {@value #FILE_NAME}: the title, the safety caution, the record of how it
+ * was made ({@link ReportRecord}: tool version, date and time, command line, input files with SHA-256,
+ * the controller settings in full), tables, the plots inlined (SVG files as SVG elements, PNG files as data URIs, for plots whose SVG
  * would be too large), and the scenario's text. No scripts and no external files, so the
  * page can be mailed or archived alone. Written as well-formed XHTML (served as HTML5), so any XML
  * parser reads it.
  *
  * <p>The SVG files are XChart's: their XML prolog is dropped and their element ids are prefixed per
- * figure, so the clip paths of one plot do not capture another's.
+ * figure, so the clip paths of one plot do not capture another's. The page ends with an empty sign-off
+ * block (prepared by, checked by, date) for people to fill in on paper, and prints on A4 with its tables
+ * inside the page.
  *
- * <p>Example: {@code HtmlReport.write(dir.resolve("report.html"), "Water bath", "loopwright 0.1.0",
+ * <p>The one report toolkit of the harness: every command's report ({@code simulate}, {@code compare},
+ * {@code sweep}, and new ones) calls {@link #write} with a {@link ReportRecord}, tables made by
+ * {@link ResultTable#html} and plots styled by {@link PlotStyle}.
+ *
+ * <p>Example: {@code HtmlReport.write(dir.resolve("report.html"), "Water bath", record,
  * List.of("Step response of the demo."), List.of(table), List.of(dir.resolve("response.svg")), "water-bath.yaml",
  * scenarioText);}
  */
@@ -40,14 +47,18 @@ public final class HtmlReport {
             body{font-family:sans-serif;max-width:64em;margin:1em auto;padding:0 1em;color:#222;line-height:1.4}
             h1{font-size:1.5em}h2{font-size:1.2em;margin-top:1.5em}
             .caution{border:2px solid #b00;background:#fff4f4;padding:.5em 1em}
-            table{border-collapse:collapse;margin:.5em 0;font-size:.9em}
+            table{border-collapse:collapse;margin:.5em 0;font-size:.85em;max-width:100%}
             caption{text-align:left;font-weight:bold;padding:.3em 0}
-            .wide{overflow-x:auto}
-            th,td{border:1px solid #bbb;padding:.2em .5em;text-align:left;vertical-align:top}
-            td.number{text-align:right;white-space:nowrap}
-            thead th{background:#eee}
+            th,td{border:1px solid #bbb;padding:.2em .4em;text-align:left;vertical-align:top;overflow-wrap:break-word}
+            td.number{text-align:right;white-space:nowrap;font-variant-numeric:tabular-nums}
+            thead th{background:#eee;font-weight:600}
+            td.hash{font-family:monospace;font-size:.9em}
+            table.signoff{width:100%}table.signoff td{height:2.2em}
             figure{margin:1em 0}figure svg,figure img{max-width:100%;height:auto}
-            pre{background:#f6f6f6;padding:.5em;overflow-x:auto}
+            pre{background:#f6f6f6;padding:.5em;white-space:pre-wrap}
+            @page{size:A4;margin:15mm}
+            @media print{body{max-width:none;margin:0;font-size:9pt}table{font-size:8pt}
+            figure,table,.caution{break-inside:avoid}h2{break-after:avoid}}
             """;
 
     /** A cell that is a number, or stands for one that does not apply: right-aligned. */
@@ -62,7 +73,7 @@ public final class HtmlReport {
      *
      * @param file         where to write it (replaced if it exists)
      * @param title        the page's title
-     * @param version      the tool's version, e.g. "loopwright 0.1.0"
+     * @param record       how the report was made: tool version, time, command line, inputs, settings
      * @param paragraphs   short paragraphs of plain text under the title
      * @param tables       the tables, in order
      * @param figures      SVG files to inline, in order
@@ -70,7 +81,7 @@ public final class HtmlReport {
      * @param scenarioText the scenario's text as read
      * @return the file
      */
-    public static Path write(Path file, String title, String version, List<String> paragraphs, List<HtmlTable> tables,
+    public static Path write(Path file, String title, ReportRecord record, List<String> paragraphs, List<HtmlTable> tables,
             List<Path> figures, String scenarioName, String scenarioText) throws IOException {
         List<String> elements = new ArrayList<>();
         for (Path figure : figures) {
@@ -83,21 +94,21 @@ public final class HtmlReport {
                         + "-"));
             }
         }
-        Files.writeString(file, page(title, version, paragraphs, tables, elements, scenarioName, scenarioText),
+        Files.writeString(file, page(title, record, paragraphs, tables, elements, scenarioName, scenarioText),
                 StandardCharsets.UTF_8);
         return file;
     }
 
     /** The page's text, with the figures given as ready XHTML elements. */
-    static String page(String title, String version, List<String> paragraphs, List<HtmlTable> tables,
+    static String page(String title, ReportRecord record, List<String> paragraphs, List<HtmlTable> tables,
             List<String> figureElements, String scenarioName, String scenarioText) {
         StringBuilder html = new StringBuilder(64 * 1024);
         html.append("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n")
                 .append("<meta charset=\"utf-8\"/>\n<title>").append(escape(title)).append("</title>\n<style>")
                 .append(STYLE).append("</style>\n</head>\n<body>\n<h1>").append(escape(title)).append("</h1>\n")
-                .append("<p class=\"version\">Made by ").append(escape(version)).append(".</p>\n")
                 .append("<p class=\"caution\"><strong>Safety.</strong> ").append(escape(SAFETY_CAUTION))
                 .append("</p>\n");
+        record(html, record);
         for (String paragraph : paragraphs) {
             html.append("<p>").append(escape(paragraph)).append("</p>\n");
         }
@@ -111,12 +122,47 @@ public final class HtmlReport {
             html.append("<figure>\n").append(element).append("\n</figure>\n");
         }
         html.append("<h2>Scenario <code>").append(escape(Objects.requireNonNull(scenarioName))).append("</code></h2>\n")
-                .append("<pre>").append(escape(scenarioText)).append("</pre>\n</body>\n</html>\n");
+                .append("<pre>").append(escape(scenarioText)).append("</pre>\n");
+        signOff(html);
+        html.append("</body>\n</html>\n");
         return html.toString();
     }
 
+    private static void record(StringBuilder html, ReportRecord record) {
+        html.append("<h2>Record</h2>\n");
+        table(html, new HtmlTable("How this report was made", List.of("item", "value"), List.of(
+                List.of("tool", record.toolVersion()), List.of("made at", record.madeAtText()),
+                List.of("command line", record.commandLine()))));
+        if (!record.inputs().isEmpty()) {
+            html.append("<div>\n<table>\n<caption>Input files (check a copy with sha256sum)</caption>\n")
+                    .append("<thead><tr><th scope=\"col\">file</th><th scope=\"col\">SHA-256</th></tr></thead>\n<tbody>\n");
+            for (ReportRecord.InputFile input : record.inputs()) {
+                html.append("<tr><td>").append(escape(input.name())).append("</td><td class=\"hash\">")
+                        .append(input.sha256()).append("</td></tr>\n");
+            }
+            html.append("</tbody>\n</table>\n</div>\n");
+        }
+        if (!record.controllerSettings().isEmpty()) {
+            List<List<String>> rows = new ArrayList<>();
+            record.controllerSettings().forEach((key, value) -> rows.add(List.of(key, value.endsWith(".inf")
+                    ? "none (" + value + ")" : value)));
+            table(html, new HtmlTable("Controller settings in full, defaults included (file keys)",
+                    List.of("key", "value"), rows));
+        }
+    }
+
+    private static void signOff(StringBuilder html) {
+        html.append("<h2>Sign-off</h2>\n<table class=\"signoff\">\n<thead><tr><th scope=\"col\">role</th>")
+                .append("<th scope=\"col\">name</th><th scope=\"col\">signature</th><th scope=\"col\">date</th>")
+                .append("</tr></thead>\n<tbody>\n");
+        for (String role : List.of("prepared by", "checked by")) {
+            html.append("<tr><td>").append(role).append("</td><td></td><td></td><td></td></tr>\n");
+        }
+        html.append("</tbody>\n</table>\n");
+    }
+
     private static void table(StringBuilder html, HtmlTable table) {
-        html.append("<div class=\"wide\">\n<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
+        html.append("<div>\n<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
         for (String name : table.header()) {
             html.append("<th scope=\"col\">").append(escape(name)).append("</th>");
         }

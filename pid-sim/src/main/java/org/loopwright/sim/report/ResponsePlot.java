@@ -12,6 +12,7 @@ import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -34,9 +35,16 @@ public final class ResponsePlot {
     private ResponsePlot() {
     }
 
-    /** Setpoint, measurement and controller output against time. */
-    public static XYChart response(Trajectory trajectory, String title) {
-        XYChart chart = chart(title, "time (s)", "process value");
+    /**
+     * Setpoint, measurement and controller output against time, the axes titled in the scenario's units.
+     *
+     * @param trajectory the run
+     * @param title      the plot's title
+     * @param units      the scenario's units
+     * @return the chart
+     */
+    public static XYChart response(Trajectory trajectory, String title, Units units) {
+        XYChart chart = chart(title, "time (s)", Units.axis("process value", units.process()));
         int stride = Math.max(1, (trajectory.length() + MAX_POINTS - 1) / MAX_POINTS);
         List<Double> time = new ArrayList<>();
         List<Double> setpoint = new ArrayList<>();
@@ -54,6 +62,32 @@ public final class ResponsePlot {
         if (!measurement.isEmpty()) {
             line(chart, "measurement", measuredTime, measurement, 0);
         }
+        line(chart, "controller output", time, output, 1);
+        chart.setYAxisGroupTitle(1, Units.axis("controller output", units.output()));
+        PlotStyle.colour(chart, PlotStyle.Palette.fresh());
+        PlotStyle.niceAxes(chart);
+        chart.getStyler().setYAxisGroupPosition(1, Styler.YAxisPosition.Right);
+        return chart;
+    }
+
+    /** A cascade's inner loop: its setpoint and measurement against time, the output it drives on the right. */
+    public static XYChart innerLoop(Trajectory trajectory, String title) {
+        XYChart chart = chart(title + ", inner loop", "time (s)", "inner process value");
+        int stride = Math.max(1, (trajectory.length() + MAX_POINTS - 1) / MAX_POINTS);
+        List<Double> time = new ArrayList<>();
+        List<Double> setpoint = new ArrayList<>();
+        List<Double> measurement = new ArrayList<>();
+        List<Double> output = new ArrayList<>();
+        int last = trajectory.length() - 1;
+        for (int k = 0; k <= last; k = k < last && k + stride > last ? last : k + stride) {
+            // every stride-th sample, and the last
+            time.add(trajectory.time(k));
+            setpoint.add(trajectory.innerSetpoint(k));
+            measurement.add(trajectory.innerMeasurement(k));
+            output.add(trajectory.output(k));
+        }
+        line(chart, "inner setpoint (outer controller output)", time, setpoint, 0);
+        line(chart, "inner measurement", time, measurement, 0);
         line(chart, "controller output", time, output, 1);
         chart.setYAxisGroupTitle(1, "controller output");
         chart.getStyler().setYAxisGroupPosition(1, Styler.YAxisPosition.Right);

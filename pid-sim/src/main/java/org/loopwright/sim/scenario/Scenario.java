@@ -53,6 +53,7 @@ public final class Scenario {
     private final InnerLoop inner;
     private final GainSchedule schedule;
     private final SplitRangeSpec splitRange;
+    private final Units units;
 
     private Scenario(Builder b) {
         plant = Objects.requireNonNull(b.plant, "plant");
@@ -106,6 +107,7 @@ public final class Scenario {
                     + MAX_SAMPLES + " samples at the sample period " + samplePeriodSeconds);
         }
         seed = b.seed;
+        units = Objects.requireNonNull(b.units, "units");
     }
 
     private static <T> List<T> sorted(List<T> items, Comparator<T> order) {
@@ -135,6 +137,7 @@ public final class Scenario {
         b.inner = inner;
         b.schedule = schedule;
         b.splitRange = splitRange;
+        b.units = units;
         return b;
     }
 
@@ -261,6 +264,11 @@ public final class Scenario {
         return durationSeconds;
     }
 
+    /** @return the engineering units the scenario names, for axes, tables and CSV headers */
+    public Units units() {
+        return units;
+    }
+
     /** The seed of every random stream (noise, dropouts, jitter). */
     public long seed() {
         return seed;
@@ -290,6 +298,7 @@ public final class Scenario {
         private InnerLoop inner;
         private GainSchedule schedule;
         private SplitRangeSpec splitRange;
+        private Units units = Units.NONE;
 
         private Builder() {
         }
@@ -366,6 +375,12 @@ public final class Scenario {
         /** The random seed (default 1). */
         public Builder seed(long value) {
             seed = value;
+            return this;
+        }
+
+        /** @param value the units the scenario names (default none) @return this builder */
+        public Builder units(Units value) {
+            units = value;
             return this;
         }
 

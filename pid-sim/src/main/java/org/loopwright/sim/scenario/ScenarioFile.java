@@ -9,7 +9,9 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -73,6 +75,7 @@ import org.loopwright.sim.plant.PlantType;
  *                                          # (windup: actuator-tracking, period a whole multiple)
  * controller: {..., schedule: {variable: measurement, points: [{at: 20, gain: 2.0, integral-time: 30}]}}
  * split-range: {split-at: 50, gap: 0, first: {min: 0, max: 100}, second: {min: 0, max: 100}}
+ * units: {process: "°C", output: "W"}   # shown on axes, table and CSV headers
  * </pre>
  * Required: one of {@code controller} or {@code on-off}, {@code plant} and {@code duration}.
  * Defaults: dead-time 0; dc-motor viscous-friction, load-torque and coulomb-friction 0,
@@ -118,9 +121,15 @@ public final class ScenarioFile {
     public static final FileKey<String> SPLIT_RANGE = FileKey.section("split-range", "splitRange",
             "a split-range mapping {split-at, gap, first, second}").optional();
 
+    /** {@code units}: the engineering units for axes, tables and CSV headers. */
+    public static final FileKey<String> UNITS = FileKey.section("units", "units", "a mapping").optional();
+
     /** Every top-level key, in the order messages list them. */
     public static final List<FileKey<?>> KEYS = List.of(CONTROLLER, ON_OFF, PLANT, INNER, SETPOINT, DISTURBANCES,
-            ACTUATOR, SPLIT_RANGE, SENSOR, DURATION, SEED);
+            ACTUATOR, SPLIT_RANGE, SENSOR, DURATION, SEED, UNITS);
+
+    private static final FileKey<String> PROCESS_UNIT = FileKey.text("process", "process").orElse("");
+    private static final FileKey<String> OUTPUT_UNIT = FileKey.text("output", "output").orElse("");
 
     /** The words of {@code schedule.variable}; external is the load in effect, as a measured disturbance. */
     public static final Keywords<ScheduleVariable> SCHEDULE_VARIABLES = Keywords.of(
@@ -244,6 +253,46 @@ public final class ScenarioFile {
         }
     }
 
+    /**
+     * The files a scenario reads: itself and, when it names one by path, its controller file.
+     *
+     * @param file the scenario file
+     * @return the files, the scenario first
+     * @throws InputFileException when the scenario cannot be read
+     */
+    public static List<Path> inputFiles(Path file) {
+        YamlDocument doc = YamlDocument.read(file);
+        List<Path> files = new ArrayList<>(List.of(file));
+        String pointer = CONTROLLER.pointer("");
+        if (doc.node(pointer).isTextual()) {
+            files.add(file.toAbsolutePath().getParent().resolve(doc.node(pointer).asText()));
+        }
+        return files;
+    }
+
+    /**
+     * The scenario's controller in full, every key with its value, defaults included: a PID
+     * controller's file keys, or the {@code on-off} keys.
+     *
+     * @param scenario the scenario
+     * @return key to value text, in file order
+     */
+    public static Map<String, String> resolvedController(Scenario scenario) {
+        if (scenario.controller().isPresent()) {
+            return ControllerFile.resolved(scenario.controller().get());
+        }
+        OnOffSettings o = scenario.onOffController().orElseThrow();
+        Map<String, String> all = new LinkedHashMap<>();
+        all.put(OFF_OUTPUT.word(), OFF_OUTPUT.text(o.offOutput()));
+        all.put(ON_OUTPUT.word(), ON_OUTPUT.text(o.onOutput()));
+        all.put(HYSTERESIS.word(), HYSTERESIS.text(o.hysteresis()));
+        all.put(MINIMUM_ON.word(), MINIMUM_ON.text(o.minimumOnSeconds()));
+        all.put(MINIMUM_OFF.word(), MINIMUM_OFF.text(o.minimumOffSeconds()));
+        all.put(ON_OFF_ACTION.word(), ON_OFF_ACTION.text(o.action()));
+        all.put(ON_OFF_PERIOD.word(), ON_OFF_PERIOD.text(scenario.samplePeriodSeconds()));
+        return all;
+    }
+
     private static final class Reader {
         private final YamlDocument doc;
         private final Path directory;
@@ -295,6 +344,10 @@ public final class ScenarioFile {
             });
             b.durationSeconds(top.get(DURATION));
             b.seed(top.get(SEED));
+            top.find(UNITS).ifPresent(p -> {
+                FileMapping units = new FileMapping(doc, p, List.of(PROCESS_UNIT, OUTPUT_UNIT), "");
+                b.units(new Units(units.get(PROCESS_UNIT), units.get(OUTPUT_UNIT)));
+            });
             try {
                 return b.build();
             } catch (InvalidSettingException e) {

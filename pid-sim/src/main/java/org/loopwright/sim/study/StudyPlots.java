@@ -15,9 +15,12 @@ import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.loopwright.pid.ControllerSettings;
+import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.frequency.ContinuousController;
 import org.loopwright.sim.frequency.FrequencyResponse;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.report.NumberText;
+import org.loopwright.sim.report.PlotStyle;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -34,6 +37,13 @@ public final class StudyPlots {
     private static final int WIDTH = 900;
     private static final int HEIGHT = 560;
     private static final int POINTS = 200;
+    /**
+     * The Nyquist plot's width; its height adds room for the legend rows below, so that the plot area
+     * shows as many pixels per unit up as across (measured on the rendered PNG).
+     */
+    private static final int NYQUIST_SIZE = 640;
+    private static final int NYQUIST_FRAME_HEIGHT = 16;
+    private static final int NYQUIST_LEGEND_ROW = 20;
     /** A step response is thinned to about this many points (the SVG grows with every point). */
     private static final int MAX_STEP_POINTS = 400;
     private static final double DECADES_AROUND_CROSSOVER = 2.0;
@@ -56,6 +66,14 @@ public final class StudyPlots {
         double high = crossover * Math.pow(10.0, DECADES_AROUND_CROSSOVER);
         ControllerSettings settings = result.settings();
         FrequencyResponse design = new ContinuousController(settings);
+        // one colour per method in every plot; the scenario's own methods and the continuous design
+        // stay coloured when a plot has too many series to tell apart
+        PlotStyle.Palette palette = PlotStyle.Palette.fresh();
+        String own = result.rows().stream().filter(r -> r.kind() == StudyRow.Kind.SAMPLED
+                && r.integralMethod() == settings.integralMethod()
+                && (r.derivativeMethod() == null || r.derivativeMethod() == settings.derivativeMethod()))
+                .map(StudyRow::label).findFirst().orElse("continuous");
+
 
         for (double h : result.periodsSeconds()) {
             String suffix = "-h" + h;
@@ -73,6 +91,10 @@ public final class StudyPlots {
                         Math.min(high, Math.PI / h));
                 addStep(steps, row.label(), row.setpointResponse());
             }
+            for (XYChart chart : List.of(magnitude, phase, steps)) {
+                PlotStyle.colour(chart, palette, "continuous", own);
+            }
+            PlotStyle.niceAxes(steps);
             save(magnitude, directory, "controller-magnitude" + suffix, written);
             save(phase, directory, "controller-phase" + suffix, written);
             save(steps, directory, "step" + suffix, written);
@@ -80,8 +102,11 @@ public final class StudyPlots {
 
         XYChart loopMagnitude = bodeChart("Loop magnitude (" + methods(settings) + ")", "|L| (dB)");
         XYChart loopPhase = bodeChart("Loop phase (" + methods(settings) + ")", "arg L (deg)");
-        XYChart nyquist = chart("Nyquist (" + methods(settings) + "), Ms circle of the continuous design",
-                "Re L", "Im L");
+        int legendRows = result.periodsSeconds().size() + 3;
+        XYChart nyquist = new XYChartBuilder().width(NYQUIST_SIZE).height(NYQUIST_SIZE + NYQUIST_FRAME_HEIGHT
+                + NYQUIST_LEGEND_ROW * legendRows)
+                .title("Nyquist (" + methods(settings) + ")").xAxisTitle("Re L").yAxisTitle("Im L").build();
+        nyquist.getStyler().setMarkerSize(10); // only the −1 point has a marker
         FrequencyResponse continuousLoop = LoopAnalysis.continuousLoop(result.plant(), settings);
         addBode(loopMagnitude, loopPhase, "continuous", continuousLoop, low, high);
         addNyquist(nyquist, "continuous", continuousLoop, low, high);
@@ -96,8 +121,13 @@ public final class StudyPlots {
             addBode(loopMagnitude, loopPhase, "h = " + h + " s", sampled, low, top);
             addNyquist(nyquist, "h = " + h + " s", sampled, low, top);
         }
+        PlotStyle.referenceLine(loopPhase, "−180°", -180.0, low, high);
         addMsCircle(nyquist, result.continuousMargins().sensitivityPeak().value());
-        nyquist.getStyler().setXAxisMin(-NYQUIST_REACH + 1.0).setXAxisMax(1.0).setYAxisMin(-2.0).setYAxisMax(2.0);
+        PlotStyle.criticalPoint(nyquist);
+        for (XYChart chart : List.of(loopMagnitude, loopPhase, nyquist)) {
+            PlotStyle.colour(chart, palette, "continuous");
+        }
+        PlotStyle.equalAspect(nyquist, 1.0 - NYQUIST_REACH / 2.0, 0.0, NYQUIST_REACH);
         save(loopMagnitude, directory, "loop-magnitude", written);
         save(loopPhase, directory, "loop-phase", written);
         save(nyquist, directory, "nyquist", written);
@@ -142,7 +172,8 @@ public final class StudyPlots {
     }
 
     private static String methods(ControllerSettings settings) {
-        return "integral " + settings.integralMethod() + ", derivative " + settings.derivativeMethod();
+        return "integral " + ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) + ", derivative "
+                + ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod());
     }
 
     private static XYChart chart(String title, String xTitle, String yTitle) {
@@ -211,10 +242,9 @@ public final class StudyPlots {
             x[i] = -1.0 + Math.cos(angle) / ms;
             y[i] = Math.sin(angle) / ms;
         }
-        line(chart.addSeries(String.format("Ms circle, Ms = %.3f", ms), x, y));
-        XYSeries critical = chart.addSeries("-1", new double[] {-1.0}, new double[] {0.0});
-        critical.setMarker(SeriesMarkers.CROSS);
-        critical.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        XYSeries circle = chart.addSeries("Ms circle of the continuous design, Ms = " + NumberText.of(ms, 3), x, y);
+        line(circle);
+        circle.setLineColor(PlotStyle.REFERENCE);
     }
 
     private static void addStep(XYChart chart, String name, Trajectory run) {

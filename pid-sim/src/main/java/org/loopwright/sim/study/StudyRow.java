@@ -2,6 +2,7 @@ package org.loopwright.sim.study;
 
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.discrete.IntegralMethod;
+import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -43,12 +44,26 @@ public record StudyRow(Kind kind, IntegralMethod integralMethod, DerivativeMetho
         NOT_APPLICABLE
     }
 
-    /** A short label such as "TUSTIN/BACKWARD_EULER", "continuous", or "TUSTIN/-" without derivative action. */
+    /**
+     * A short label in the controller file's words, such as "tustin/backward-euler", "continuous", or
+     * "tustin/-" without derivative action.
+     */
     public String label() {
         if (kind == Kind.CONTINUOUS) {
             return "continuous";
         }
-        return (integralMethod == null ? "-" : integralMethod.name()) + "/"
-                + (derivativeMethod == null ? "-" : derivativeMethod.name());
+        return label(integralMethod, derivativeMethod);
+    }
+
+    /**
+     * The label of a pair of methods, "tustin/backward-euler"; "-" for a term the controller does not have.
+     *
+     * @param integral   the integral method, or null
+     * @param derivative the derivative method, or null
+     * @return the label
+     */
+    public static String label(IntegralMethod integral, DerivativeMethod derivative) {
+        return (integral == null ? "-" : ControllerFile.INTEGRAL_METHODS.word(integral)) + "/"
+                + (derivative == null ? "-" : ControllerFile.DERIVATIVE_METHODS.word(derivative));
     }
 }

@@ -3,8 +3,6 @@ package org.loopwright.sim.cli;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -24,23 +22,13 @@ import org.loopwright.sim.scenario.ScenarioFile;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 
-import picocli.CommandLine;
 
 class FrequencyCommandsTest {
 
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run run(String... args) {
-        CommandLine cli = LoopwrightCommand.commandLine();
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        cli.setOut(new PrintWriter(out));
-        cli.setErr(new PrintWriter(err));
-        int code = cli.execute(args);
-        return new Run(code, out.toString(), err.toString());
+    private static CommandRun run(String... args) {
+        return CommandRun.of(args);
     }
 
     static String scenario(String name) {
@@ -54,7 +42,7 @@ class FrequencyCommandsTest {
     @Test
     void marginsJsonOfProportionalThirdOrderLoopShowsGainMarginTwo() throws Exception {
         // Analytic: P gain 4 on 1/(s+1)³ has gain margin 2 at ω = √3 (DESIGN.md anchor, Ku = 8).
-        Run run = run("margins", scenario("third-order-p.yaml"), "--json");
+        CommandRun run = run("margins", scenario("third-order-p.yaml"), "--json");
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode root = MAPPER.readTree(run.out());
         JsonNode continuous = root.get("continuous");
@@ -91,7 +79,7 @@ class FrequencyCommandsTest {
 
     @Test
     void marginsJsonAgreesWithTheLibraryForThePumpScenario() throws Exception {
-        Run run = run("margins", scenario("booster-pump.yaml"), "--json");
+        CommandRun run = run("margins", scenario("booster-pump.yaml"), "--json");
         assertThat(run.exitCode()).as(run.err()).isZero();
         Scenario s = ScenarioFile.read(Path.of(scenario("booster-pump.yaml")));
         StabilityMargins c = LoopAnalysis.continuous(s.linearPlant().orElseThrow(), s.controller().orElseThrow());
@@ -109,7 +97,7 @@ class FrequencyCommandsTest {
 
     @Test
     void marginsTableNamesEveryQuantity() {
-        Run run = run("margins", scenario("booster-pump.yaml"));
+        CommandRun run = run("margins", scenario("booster-pump.yaml"));
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out()).contains("gain margin", "phase crossover", "phase margin", "gain crossover", "Ms", "Mt",
                 "delay margin", "closed-loop poles", "stable");
@@ -117,7 +105,7 @@ class FrequencyCommandsTest {
 
     @Test
     void compareJsonHasTheContinuousRowAndEveryMethodPair() throws Exception {
-        Run run = run("compare", scenario("booster-pump.yaml"), "--periods", "0.05,0.2", "--json");
+        CommandRun run = run("compare", scenario("booster-pump.yaml"), "--periods", "0.05,0.2", "--json");
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode rows = MAPPER.readTree(run.out());
         assertThat(rows.size()).isEqualTo(1 + 2 * 15);
@@ -143,7 +131,7 @@ class FrequencyCommandsTest {
     @Test
     void compareWritesItsPlotsIntoTheOutDirectory(@TempDir Path dir) throws Exception {
         Path plots = dir.resolve("plots");
-        Run run = run("compare", scenario("third-order-p.yaml"), "--periods", "0.1", "--out", plots.toString());
+        CommandRun run = run("compare", scenario("third-order-p.yaml"), "--periods", "0.1", "--out", plots.toString());
         assertThat(run.exitCode()).as(run.err()).isZero();
         try (Stream<Path> files = Files.list(plots)) {
             assertThat(files.count()).isEqualTo(2 * (3 + 3) + 1); // PNG and SVG of six plots, and report.html
@@ -153,7 +141,7 @@ class FrequencyCommandsTest {
 
     @Test
     void compareTableUsesDefaultPeriodsFromTheCrossover() {
-        Run run = run("compare", scenario("third-order-p.yaml"));
+        CommandRun run = run("compare", scenario("third-order-p.yaml"));
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1)", "continuous", "finer than needed",
                 "typical", "coarse");
@@ -176,14 +164,14 @@ class FrequencyCommandsTest {
     @ParameterizedTest
     @MethodSource("badInputs")
     void badInputExitsWithTwoAndAClearMessage(String[] args, String message) {
-        Run run = run(args);
+        CommandRun run = run(args);
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
         assertThat(run.err().strip()).isEqualTo(message);
     }
 
     @Test
     void noCommandIsAUsageError() {
-        Run run = run();
+        CommandRun run = run();
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
         assertThat(run.err()).startsWith("a command is required").contains("Usage: loopwright");
         assertThat(run.out()).isEmpty();

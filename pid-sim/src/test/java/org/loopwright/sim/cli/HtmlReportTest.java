@@ -8,7 +8,6 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Set;
 import java.util.stream.Stream;
 
@@ -20,6 +19,8 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.report.NumberText;
+import org.loopwright.sim.report.ReportRecord;
 import org.w3c.dom.Document;
 import org.w3c.dom.Element;
 import org.w3c.dom.Node;
@@ -80,7 +81,28 @@ class HtmlReportTest {
             }
         }
         String text = page.getDocumentElement().getTextContent();
-        assertThat(text).contains(HtmlReport.SAFETY_CAUTION).contains("Made by loopwright 0.1.0.");
+        assertThat(text).contains(HtmlReport.SAFETY_CAUTION).contains(BuildVersion.line());
+        // the empty sign-off block, for people to fill in
+        Element signOff = elements(page, XHTML, "table").stream()
+                .filter(t -> "signoff".equals(t.getAttribute("class"))).findFirst().orElseThrow();
+        assertThat(bodyRowFirstCells(signOff)).containsExactly("prepared by", "checked by");
+    }
+
+    /** A table by its caption's start. */
+    private static Element table(Document page, String caption) {
+        return elements(page, XHTML, "table").stream().filter(t -> !elements(t, XHTML, "caption").isEmpty()
+                && elements(t, XHTML, "caption").get(0).getTextContent().startsWith(caption)).findFirst().orElseThrow();
+    }
+
+    /** The second cell of the row whose first cell is {@code first}. */
+    private static String cell(Element table, String first) {
+        for (Element row : elements(elements(table, XHTML, "tbody").get(0), XHTML, "tr")) {
+            List<Element> cells = elements(row, XHTML, "td");
+            if (cells.get(0).getTextContent().equals(first)) {
+                return cells.get(1).getTextContent();
+            }
+        }
+        throw new AssertionError("no row " + first);
     }
 
     @Test
@@ -97,14 +119,23 @@ class HtmlReportTest {
         Document page = parse(out.resolve("report.html"));
         assertSelfContained(page);
         assertThat(elements(page, XHTML, "title").get(0).getTextContent()).isEqualTo("Simulation of pump.yaml");
-        List<Element> tables = elements(page, XHTML, "table");
-        assertThat(tables).hasSize(1);
-        assertThat(bodyRowFirstCells(tables.get(0))).containsExactly("rise time (10-90 %)", "settling time (2 %)",
+        Element metricsTable = table(page, "Response metrics");
+        assertThat(bodyRowFirstCells(metricsTable)).containsExactly("rise time (10-90 %)", "settling time (2 %)",
                 "overshoot", "peak time", "steady-state error", "IAE", "ISE", "ITAE", "total variation of output",
                 "time saturated", "limit cycle amplitude", "limit cycle period");
-        Element iaeRow = elements(elements(tables.get(0), XHTML, "tbody").get(0), XHTML, "tr").get(5);
+        Element iaeRow = elements(elements(metricsTable, XHTML, "tbody").get(0), XHTML, "tr").get(5);
         assertThat(elements(iaeRow, XHTML, "td").get(1).getTextContent())
-                .isEqualTo(String.format(Locale.ROOT, "%.6g", metrics.get("iae").asDouble()));
+                .isEqualTo(NumberText.of(metrics.get("iae").asDouble()));
+        assertThat(elements(iaeRow, XHTML, "td").get(2).getTextContent()).isEqualTo("bar·s");
+        // the record: the command line, the input file with its SHA-256, the settings in full
+        Element record = table(page, "How this report was made");
+        assertThat(cell(record, "command line")).isEqualTo("loopwright simulate " + scenario + " --out " + out
+                + " --json");
+        assertThat(cell(table(page, "Input files"), scenario.toString())).isEqualTo(ReportRecord.sha256(scenario));
+        Element settings = table(page, "Controller settings in full");
+        assertThat(bodyRowFirstCells(settings)).contains("form", "sample-period", "integral-method", "tracking-time",
+                "fault-policy", "output-kind");
+        assertThat(cell(settings, "integral-method")).isEqualTo("tustin");
         List<Element> figures = elements(page, XHTML, "figure");
         assertThat(figures).hasSize(1);
         assertThat(elements(figures.get(0), SVG, "svg")).hasSize(1);
@@ -122,11 +153,9 @@ class HtmlReportTest {
 
         Document page = parse(dir.resolve("report.html"));
         assertSelfContained(page);
-        List<Element> tables = elements(page, XHTML, "table");
-        assertThat(tables).hasSize(1);
-        List<String> labels = bodyRowFirstCells(tables.get(0));
+        List<String> labels = bodyRowFirstCells(table(page, "Each discretisation"));
         assertThat(labels).hasSize(rows.size()).startsWith("continuous");
-        assertThat(labels).contains("TUSTIN/BACKWARD_EULER");
+        assertThat(labels).contains("tustin/backward-euler");
         long pngFiles;
         try (Stream<Path> files = Files.list(dir)) {
             pngFiles = files.filter(p -> p.toString().endsWith(".png")).count();

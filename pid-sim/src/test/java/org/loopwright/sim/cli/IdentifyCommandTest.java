@@ -107,7 +107,8 @@ class IdentifyCommandTest {
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
         assertThat(run.err().strip()).isEqualTo(file + ": holds no step: column 'input' starts and ends at 30.0000"
                 + " (a step test needs one step in the input)");
-        assertThat(CommandRun.of("identify", file.toString(), "--model", "arx").err().strip())
-                .isEqualTo("--model must be fopdt or sopdt: --model=arx");
+        CommandRun wrongModel = CommandRun.of("identify", file.toString(), "--model", "arx");
+        assertThat(wrongModel.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(wrongModel.err()).startsWith("Invalid value for option '--model': must be one of fopdt, sopdt: arx");
     }
 }

@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -17,7 +16,6 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 
-import picocli.CommandLine;
 
 class ReplayCommandTest {
 
@@ -37,10 +35,10 @@ class ReplayCommandTest {
     private final StringWriter err = new StringWriter();
 
     private int run(String... args) {
-        CommandLine cli = LoopwrightCommand.commandLine();
-        cli.setOut(new PrintWriter(out, true));
-        cli.setErr(new PrintWriter(err, true));
-        return cli.execute(args);
+        CommandRun run = CommandRun.of(args);
+        out.append(run.out());
+        err.append(run.err());
+        return run.exitCode();
     }
 
     private Path file(String name, String text) throws IOException {

@@ -3,7 +3,6 @@ package org.loopwright.sim.cli;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -13,7 +12,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import picocli.CommandLine;
 
 class SimulateCommandTest {
 
@@ -21,10 +19,10 @@ class SimulateCommandTest {
     private final StringWriter err = new StringWriter();
 
     private int run(String... args) {
-        CommandLine cli = LoopwrightCommand.commandLine();
-        cli.setOut(new PrintWriter(out));
-        cli.setErr(new PrintWriter(err));
-        return cli.execute(args);
+        CommandRun run = CommandRun.of(args);
+        out.append(run.out());
+        err.append(run.err());
+        return run.exitCode();
     }
 
     @Test
@@ -57,7 +55,7 @@ class SimulateCommandTest {
         int code = run("simulate", scenario.toString(), "--out", dir.resolve("out").toString());
         assertThat(code).isZero();
         assertThat(out.toString()).contains("rise time (10-90 %)", "settling time (2 %)")
-                .containsPattern("limit cycle amplitude +[0-9.]+\\n").containsPattern("limit cycle period +[0-9.]+ s\\n");
+                .containsPattern("limit cycle amplitude +[0-9.]+  PV\\n").containsPattern("limit cycle period +[0-9.]+  s\\n");
         assertThat(dir.resolve("out/trajectory.csv")).exists();
     }
 

@@ -124,7 +124,7 @@ class ScenarioFileTest {
                                 + " or 'on-off' (an on-off controller mapping)"),
                 Arguments.of(CONTROLLER + plant + "duration: 10\ncolour: red\n",
                         "s.yaml:4:1: unknown key 'colour'; allowed: controller, on-off, plant, inner, setpoint, disturbances,"
-                                + " actuator, split-range, sensor, duration, seed"),
+                                + " actuator, split-range, sensor, duration, seed, units"),
                 Arguments.of(CONTROLLER + plant,
                         "s.yaml:1:1: missing key 'duration' (a number (finite and > 0))"),
                 Arguments.of(CONTROLLER + plant + "duration: -4\n",
@@ -184,5 +184,18 @@ class ScenarioFileTest {
     @MethodSource("badScenarios")
     void badScenariosNameFileLineColumnAndWhatIsAllowed(String text, String message) {
         assertThatThrownBy(() -> parse(text)).isInstanceOf(InputFileException.class).hasMessage(message);
+    }
+
+    @Test
+    void unitsAreReadAndDefaultToNone() {
+        Scenario named = ScenarioFile.read(YamlDocument.parse("s.yaml", CONTROLLER
+                + "plant: {type: first-order, gain: 1, time-constant: 1}\nduration: 5\n"
+                + "units: {process: \"°C\", output: W}\n"), Path.of(""));
+        assertThat(named.units()).isEqualTo(new Units("°C", "W"));
+        assertThat(named.units().processSeconds()).isEqualTo("°C·s");
+        Scenario none = ScenarioFile.read(YamlDocument.parse("s.yaml", CONTROLLER
+                + "plant: {type: first-order, gain: 1, time-constant: 1}\nduration: 5\n"), Path.of(""));
+        assertThat(none.units()).isEqualTo(Units.NONE);
+        assertThat(none.units().processSeconds()).isEqualTo("PV·s");
     }
 }

@@ -9,9 +9,9 @@ import net.jqwik.api.constraints.Scale;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.FopdtModel;
+import org.loopwright.pid.tuning.ModelRule;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
-import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledMargins;
 
@@ -30,7 +30,7 @@ class TunedLoopStabilityProperties {
                                                        @ForAll @DoubleRange(min = 0.05, max = 3) @Scale(3) double ratio,
                                                        @ForAll ControllerType type) {
         FopdtModel model = new FopdtModel(k, t, ratio * t);
-        for (TuningRule rule : TuningRule.values()) {
+        for (ModelRule rule : ModelRule.values()) {
             TuningResult result = rule.tune(model, type);
             if (result instanceof TunedGains tuned) {
                 ControllerSettings settings = TuningEvaluation.settings(tuned,

@@ -5,10 +5,10 @@ import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.Action;
+import org.loopwright.pid.tuning.ModelRule;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.FopdtModel;
 import org.loopwright.pid.tuning.TunedGains;
-import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.sim.frequency.StabilityMargins;
 
 class TuningEvaluationTest {
@@ -20,7 +20,7 @@ class TuningEvaluationTest {
         // 2L·ω = π; its gain crossover at ω = 1/(2L), phase margin 90° − 0.5 rad = 61.35°. Skogestad
         // (2003) quotes GM = 3.14, PM = 61.4°, Ms = 1.59 for this case (from memory).
         FopdtModel model = new FopdtModel(2.0, 5.0, 1.0);
-        TunedGains simc = (TunedGains) TuningRule.SIMC.tune(model, ControllerType.PI);
+        TunedGains simc = (TunedGains) ModelRule.SIMC.tune(model, ControllerType.PI);
 
         TuningCandidate candidate = TuningEvaluation.onModel(simc, model);
 
@@ -37,7 +37,7 @@ class TuningEvaluationTest {
     @Test
     void negativeProcessGainGetsDirectAction() {
         FopdtModel cooler = new FopdtModel(-2.0, 5.0, 1.0);
-        TunedGains simc = (TunedGains) TuningRule.SIMC.tune(cooler, ControllerType.PI);
+        TunedGains simc = (TunedGains) ModelRule.SIMC.tune(cooler, ControllerType.PI);
 
         TuningCandidate candidate = TuningEvaluation.onModel(simc, cooler);
 
