@@ -3,6 +3,7 @@ package org.loopwright.pid;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import org.junit.jupiter.api.Test;
+import org.loopwright.pid.testing.AllocationWindows;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.form.IdealGains;
 
@@ -56,7 +57,7 @@ class AllocationTest {
         }
         long[] bytes = AllocationWindows.measure(() -> sink[0] += run(c, variablePeriod, UPDATES));
         assertThat(sink[0]).isFinite();
-        AllocationWindows.assertNothingAllocated(bytes, UPDATES + " updates");
+        AllocationWindows.assertNothingAllocated(bytes, "update");
     }
 
     @Test

@@ -4,7 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.Action;
-import org.loopwright.pid.AllocationWindows;
+import org.loopwright.pid.testing.AllocationWindows;
 
 /** The on-off update allocates nothing, by the three-window rule of {@link AllocationWindows}. */
 class OnOffAllocationTest {
@@ -24,6 +24,6 @@ class OnOffAllocationTest {
         updates.run();
         long[] bytes = AllocationWindows.measure(updates);
         assertThat(sum[0]).isPositive();
-        AllocationWindows.assertNothingAllocated(bytes, "300000 updates");
+        AllocationWindows.assertNothingAllocated(bytes, "update");
     }
 }

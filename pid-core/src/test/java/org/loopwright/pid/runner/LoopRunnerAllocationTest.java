@@ -6,7 +6,6 @@ import java.lang.management.ManagementFactory;
 import java.time.Duration;
 
 import org.junit.jupiter.api.Test;
-import org.loopwright.pid.AllocationWindows;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.FaultPolicy;
 import org.loopwright.pid.Mode;
@@ -20,8 +19,8 @@ import org.loopwright.pid.testing.AllocationWindows;
 /**
  * A tick allocates nothing: the listener, which runs on the loop thread, reads that thread's
  * allocated bytes ({@link com.sun.management.ThreadMXBean#getCurrentThreadAllocatedBytes()}) after a
- * warm-up and at the ends of three windows of ticks, judged by the rule of {@link AllocationWindows}. The ticks take every path: park and spin, overruns with skips,
- * measured period, failed reads.
+ * warm-up and at the ends of three windows of ticks, judged by the rule of {@link AllocationWindows}.
+ * The ticks take every path: park and spin, overruns with skips, measured period, failed reads.
  */
 class LoopRunnerAllocationTest {
 
@@ -33,7 +32,7 @@ class LoopRunnerAllocationTest {
                 (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
         private final long warmUpTicks;
         private final long windowTicks;
-        private final long[] marks = new long[AllocationWindows.WINDOWS + 1];
+        private final long[] marks = new long[AllocationWindows.COUNT + 1];
         private int marked;
         long ticks;
         LoopRunner runner;
@@ -55,7 +54,7 @@ class LoopRunnerAllocationTest {
         }
 
         long[] bytesPerWindow() {
-            long[] bytes = new long[AllocationWindows.WINDOWS];
+            long[] bytes = new long[AllocationWindows.COUNT];
             for (int w = 0; w < bytes.length; w++) {
                 bytes[w] = marks[w + 1] - marks[w];
             }
@@ -101,7 +100,7 @@ class LoopRunnerAllocationTest {
         assertThat(runner.overrunCount()).isPositive();
         assertThat(runner.skippedTickCount()).isPositive();
         assertThat(runner.failedTickCount()).isPositive();
-        AllocationWindows.assertNothingAllocated(listener.bytesPerWindow(), listener.windowTicks + " ticks");
+        AllocationWindows.assertNothingAllocated(listener.bytesPerWindow(), "tick");
     }
 
     @Test
@@ -116,7 +115,7 @@ class LoopRunnerAllocationTest {
         listener.runner = runner;
         runner.start();
         assertThat(runner.awaitStop(Duration.ofSeconds(240))).isTrue();
-        AllocationWindows.assertNothingAllocated(listener.bytesPerWindow(), listener.windowTicks + " ticks");
+        AllocationWindows.assertNothingAllocated(listener.bytesPerWindow(), "tick");
     }
 
     /** Reads the allocation counter at the ends of three windows after a warm-up, then stops the runner. */

@@ -3,7 +3,7 @@ package org.loopwright.pid.tuning;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import org.junit.jupiter.api.Test;
-import org.loopwright.pid.AllocationWindows;
+import org.loopwright.pid.testing.AllocationWindows;
 
 /** A relay experiment's step allocates nothing, by the three-window rule of {@link AllocationWindows}. */
 class RelayAllocationTest {
@@ -33,7 +33,7 @@ class RelayAllocationTest {
         long[] bytes = AllocationWindows.measure(twenty);
 
         assertThat(samples[0]).isGreaterThan(3 * 20_000L);
-        AllocationWindows.assertNothingAllocated(bytes, "20 relay experiments");
+        AllocationWindows.assertNothingAllocated(bytes, "relay step");
     }
 
     private static long drive(RelayExperiment relay, ThirdOrderLag plant) {
