@@ -73,9 +73,27 @@ public record PulseTransferFunction(PolynomialFunction numerator, PolynomialFunc
     @Override
     public Complex at(double omegaRadPerSecond) {
         double angle = omegaRadPerSecond * periodSeconds;
-        Complex z = new Complex(Math.cos(angle), Math.sin(angle));
+        double re = Math.cos(angle);
+        double im = Math.sin(angle);
         Complex delay = new Complex(Math.cos(-angle * delaySamples), Math.sin(-angle * delaySamples));
-        return numerator.value(z).divide(denominator.value(z)).multiply(delay);
+        return horner(numerator.getCoefficients(), re, im).divide(horner(denominator.getCoefficients(), re, im))
+                .multiply(delay);
+    }
+
+    /**
+     * A polynomial (ascending coefficients) at z = re + j·im by Horner's rule in plain doubles: the
+     * frequency analyses evaluate loops thousands of times, and Hipparchus' generic field evaluation
+     * allocates a complex number per term.
+     */
+    private static Complex horner(double[] ascending, double re, double im) {
+        double sumRe = 0.0;
+        double sumIm = 0.0;
+        for (int i = ascending.length - 1; i >= 0; i--) {
+            double nextRe = sumRe * re - sumIm * im + ascending[i];
+            sumIm = sumRe * im + sumIm * re;
+            sumRe = nextRe;
+        }
+        return new Complex(sumRe, sumIm);
     }
 
     /** Two sampled blocks in series at the same period. */

@@ -105,6 +105,24 @@ class DesignCommandTest {
     }
 
     @Test
+    void readsASecondOrderPlantFileBackToItsTimeConstants(@TempDir Path dir) throws Exception {
+        Path plant = dir.resolve("plant.yaml");
+        Files.writeString(plant, "plant: {type: sopdt, gain: 1.5, time-constants: [4.0, 20.0], dead-time: 2.0}\n");
+
+        CommandRun run = CommandRun.of("design", "--plant", plant.toString(), "--sample-period", "0.5", "--type", "pi",
+                "--runs", "2", "--out", dir.resolve("out").toString(), "--json");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode model = JSON.readTree(run.out()).get("model");
+        // (20s + 1)(4s + 1) = 80s² + 24s + 1: the roots of x² − 24x + 80 are 20 and 4 (exact in doubles)
+        assertThat(model.get("type").asText()).isEqualTo("sopdt");
+        assertThat(model.get("time_constant").asDouble()).isEqualTo(20.0);
+        assertThat(model.get("second_time_constant").asDouble()).isEqualTo(4.0);
+        assertThat(model.get("source").asText()).isEqualTo("plant-file");
+        assertThat(model.get("rmse").isNull()).isTrue();
+    }
+
+    @Test
     void whenNoCandidateMeetsTheConstraintsItSaysSoAndRecommendsTheStableOneWithTheSmallestMs() {
         // a real design, then every candidate judged against a limit none can meet (Ms <= 1.0001)
         DesignModel model = DesignModel.given(new FopdtModel(2.0, 5.0, 1.0), "options");
