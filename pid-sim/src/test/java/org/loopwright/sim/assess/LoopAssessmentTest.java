@@ -15,6 +15,7 @@ import org.loopwright.pid.monitor.LoopCondition;
 import org.loopwright.pid.monitor.LoopMonitor;
 import org.loopwright.pid.monitor.MonitorSettings;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.nonideal.SensorModel;
 import org.loopwright.sim.plant.DcMotorModel;
 import org.loopwright.sim.plant.MotorOutput;
@@ -96,9 +97,9 @@ class LoopAssessmentTest {
     @Test
     void anAggressivePiOscillatesAtItsDominantPolesPeriodWithoutStiction() {
         ControllerSettings unit = pi(1.0, 10.0, H, -100.0, 100.0);
-        double gainMargin = LoopAnalysis.sampled(FOPDT, unit).margins().phaseCrossover().orElseThrow().gainMargin();
+        double gainMargin = LoopAnalysis.sampled(SampledLoop.of(FOPDT, unit)).margins().phaseCrossover().orElseThrow().gainMargin();
         ControllerSettings aggressive = pi(gainMargin / 1.1, 10.0, H, -100.0, 100.0);
-        Complex dominant = LoopAnalysis.sampled(FOPDT, aggressive).closedLoopPoles().stream()
+        Complex dominant = LoopAnalysis.sampled(SampledLoop.of(FOPDT, aggressive)).closedLoopPoles().stream()
                 .filter(p -> p.getImaginary() > 1e-9).max((x, y) -> Double.compare(x.norm(), y.norm())).orElseThrow();
         double polePeriod = 2.0 * Math.PI * H / dominant.getArgument();
 
