@@ -22,8 +22,8 @@ import picocli.CommandLine;
  */
 class BenchmarkSuiteSmokeTest {
 
-    /** 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps. */
-    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2;
+    /** 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures. */
+    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3;
 
     @Test
     void everyBenchmarkAndLoopProducesAFiniteFigure(@TempDir Path out) throws Exception {
