@@ -126,8 +126,9 @@ public final class ControllerSettings {
         fixedPeriod = DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
                 integralMethod, derivativeMethod, samplePeriodSeconds);
         setpointStepLimit = setpointSlewPerSecond * samplePeriodSeconds;
-        // an increment beyond the largest double cannot be told: such a step is limited like a slew
-        largestOutputStep = outputKind == OutputKind.INCREMENT ? Double.MAX_VALUE : Double.POSITIVE_INFINITY;
+        // an increment beyond the largest double cannot be told: such a step is limited like a slew, to half
+        // the largest double so that the rounding of the bounds can never take the increment past it
+        largestOutputStep = outputKind == OutputKind.INCREMENT ? OutputKind.LARGEST_INCREMENT : Double.POSITIVE_INFINITY;
         outputStepLimit = outputStep(samplePeriodSeconds);
         fixedTrackingGain = trackingGain(samplePeriodSeconds);
         proportionalSetpointFactor = sign * (1.0 - proportionalSetpointWeight);

@@ -7,7 +7,10 @@ public enum OutputKind {
     /**
      * The output is the change since the last sample (velocity form), for actuators that integrate
      * their input such as motor-driven valves. The first sample emits 0; a position step is at most
-     * {@link Double#MAX_VALUE}, so that the increment is always finite.
+     * {@link #LARGEST_INCREMENT}, so that the increment is always finite.
      */
-    INCREMENT
+    INCREMENT;
+
+    /** The largest position step of an increment output: half the largest double. */
+    public static final double LARGEST_INCREMENT = Double.MAX_VALUE / 2.0;
 }

@@ -294,13 +294,17 @@ public final class PidController {
     /**
      * A faulty sample never reaches the state; the policy of the latest settings decides the output,
      * which stays within their range. The safe output is applied at once, past the slew limit: it is
-     * a safety action.
+     * a safety action. In manual the operator's output is applied as on a good sample (slew-limited at
+     * the configured period): manual always obeys the operator.
      */
     private double onFault(ControllerSettings s, Fault seen) {
         faultCount++;
         fault = seen;
-        double target = s.faultPolicy() == FaultPolicy.SAFE_OUTPUT ? s.safeOutput() : previousOutput;
-        double step = s.largestOutputStep;
+        // in manual the operator's output stands whatever the inputs: the policy is for automatic and tracking
+        boolean manual = mode == Mode.MANUAL;
+        double target = manual ? manualValue
+                : s.faultPolicy() == FaultPolicy.SAFE_OUTPUT ? s.safeOutput() : previousOutput;
+        double step = manual ? s.outputStepLimit : s.largestOutputStep;
         double output = limit(s, target, Math.max(s.outputMin(), previousOutput - step),
                 Math.min(s.outputMax(), previousOutput + step));
         if (output != previousOutput) {
@@ -366,7 +370,9 @@ public final class PidController {
     /** Moves from towards to by at most maxStep, the short way round on a circular process variable. */
     private static double slew(ControllerSettings s, double from, double to, double maxStep) {
         double distance = wrap(s, to - from);
-        return Math.abs(distance) <= maxStep ? to : from + Math.copySign(maxStep, distance);
+        double stepped = from + Math.copySign(maxStep, distance);
+        // a distance or a step beyond the double range (NaN or infinite) goes to the target, which is finite
+        return Math.abs(distance) > maxStep && Double.isFinite(stepped) ? stepped : to;
     }
 
     /**

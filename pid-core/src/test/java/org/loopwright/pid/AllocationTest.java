@@ -2,16 +2,15 @@ package org.loopwright.pid;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.lang.management.ManagementFactory;
-
 import org.junit.jupiter.api.Test;
+import org.loopwright.pid.testing.AllocationWindows;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.form.IdealGains;
 
 /**
- * The update allocates nothing: bytes allocated by this thread across 10⁶ updates, measured with
- * {@link com.sun.management.ThreadMXBean#getThreadAllocatedBytes(long)} after a warm-up that lets
- * the JIT compile the update. The settings switch on every feature the update can run.
+ * The update allocates nothing: bytes allocated by this thread over three windows of 10⁶ updates
+ * ({@link AllocationWindows}) after a warm-up that lets the JIT compile the update. The settings
+ * switch on every feature the update can run.
  */
 class AllocationTest {
 
@@ -50,28 +49,24 @@ class AllocationTest {
         return sum;
     }
 
-    private static long allocatedBytes(boolean variablePeriod) {
-        com.sun.management.ThreadMXBean threads = (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
-        long thread = Thread.currentThread().getId();
+    private static void assertAllocatesNothing(boolean variablePeriod) {
         PidController c = new PidController(fullFeatured());
-        double sink = 0.0;
+        double[] sink = {0.0};
         for (int warmUp = 0; warmUp < 5; warmUp++) {
-            sink += run(c, variablePeriod, 200_000);
+            sink[0] += run(c, variablePeriod, 200_000);
         }
-        long before = threads.getThreadAllocatedBytes(thread);
-        sink += run(c, variablePeriod, UPDATES);
-        long after = threads.getThreadAllocatedBytes(thread);
-        assertThat(sink).isFinite();
-        return after - before;
+        long[] bytes = AllocationWindows.measure(() -> sink[0] += run(c, variablePeriod, UPDATES));
+        assertThat(sink[0]).isFinite();
+        AllocationWindows.assertNothingAllocated(bytes, "update");
     }
 
     @Test
     void fixedPeriodUpdateAllocatesNothing() {
-        assertThat(allocatedBytes(false)).isZero();
+        assertAllocatesNothing(false);
     }
 
     @Test
     void variablePeriodUpdateAllocatesNothing() {
-        assertThat(allocatedBytes(true)).isZero();
+        assertAllocatesNothing(true);
     }
 }

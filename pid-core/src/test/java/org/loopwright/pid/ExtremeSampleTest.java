@@ -98,28 +98,58 @@ class ExtremeSampleTest {
 
     @Test
     void incrementOutputIsAlwaysFinite() {
-        // a position step of 2e308 cannot be told as an increment: the step is limited to the
-        // largest double, and the position gets there on the next sample
+        // a position step of 2e308 cannot be told as an increment: the step is limited to half the
+        // largest double, and the position gets there over the next samples
+        double most = OutputKind.LARGEST_INCREMENT;
         PidController c = new PidController(ControllerSettings.builder().gains(new ParallelGains(2.0, 0.0, 0.0))
                 .samplePeriodSeconds(0.1).outputRange(-1e308, 1e308).outputKind(OutputKind.INCREMENT).build());
         assertThat(c.update(0.0, 5e307)).isZero();
         assertThat(c.position()).isEqualTo(-1e308);
-        double step = c.update(0.0, -5e307);
-        assertThat(step).isEqualTo(Double.MAX_VALUE);
+        assertThat(c.update(0.0, -5e307)).isEqualTo(most);
         assertThat(c.fault()).isEqualTo(Fault.NONE);
-        assertThat(c.position()).isEqualTo(-1e308 + Double.MAX_VALUE);
-        assertThat(c.update(0.0, -5e307)).isEqualTo(1e308 - (-1e308 + Double.MAX_VALUE));
+        assertThat(c.update(0.0, -5e307)).isEqualTo(most);
+        double position = c.position();
+        assertThat(c.update(0.0, -5e307)).isEqualTo(1e308 - position);
         assertThat(c.position()).isEqualTo(1e308);
     }
 
     @Test
     void safeOutputOnAnIncrementOutputIsAlwaysFinite() {
+        double most = OutputKind.LARGEST_INCREMENT;
         PidController c = new PidController(ControllerSettings.builder().gains(new ParallelGains(2.0, 0.0, 0.0))
                 .samplePeriodSeconds(0.1).outputRange(-1e308, 1e308).outputKind(OutputKind.INCREMENT)
                 .faultPolicy(FaultPolicy.SAFE_OUTPUT, 1e308).build());
         c.update(0.0, 5e307);
-        assertThat(c.update(0.0, Double.NaN)).isEqualTo(Double.MAX_VALUE);
-        assertThat(c.update(0.0, Double.NaN)).isEqualTo(1e308 - (-1e308 + Double.MAX_VALUE));
+        assertThat(c.update(0.0, Double.NaN)).isEqualTo(most);
+        assertThat(c.update(0.0, Double.NaN)).isEqualTo(most);
+        double position = c.position();
+        assertThat(c.update(0.0, Double.NaN)).isEqualTo(1e308 - position);
         assertThat(c.position()).isEqualTo(1e308);
+    }
+
+    @Test
+    void manualObeysTheOperatorOnABadSampleToo() {
+        // the safe output is for automatic and tracking; in manual the operator stays in charge
+        PidController c = new PidController(piOnZeroToHundred().faultPolicy(FaultPolicy.SAFE_OUTPUT, 0.0).build());
+        c.update(50.0, 40.0);
+        c.switchToManual();
+        c.manualOutput(30.0);
+        assertThat(c.update(50.0, Double.NaN)).isEqualTo(30.0);
+        assertThat(c.fault()).isEqualTo(Fault.MEASUREMENT_NOT_FINITE);
+        assertThat(c.faultCount()).isEqualTo(1);
+        c.switchToAutomatic();
+        assertThat(c.update(50.0, Double.NaN)).isZero();
+        assertThat(c.fault()).isEqualTo(Fault.MEASUREMENT_NOT_FINITE);
+    }
+
+    @Test
+    void aCircularSetpointThatJumpsAcrossTheDoubleRangeStaysFinite() {
+        // the wrapped difference of −1e308 and 1e308 is NaN; the ramp goes to the (finite) new setpoint
+        PidController c = new PidController(piOnZeroToHundred().wrapSpan(360.0).build());
+        c.update(1e308, 0.0);
+        c.switchToManual();
+        c.update(-1e308, 0.0);
+        assertThat(c.snapshot().values().previousSetpoint()).isEqualTo(-1e308);
+        assertThat(StateSnapshot.parse(c.snapshot().toText())).isEqualTo(c.snapshot());
     }
 }

@@ -21,7 +21,8 @@ import org.loopwright.pid.form.IdealGains;
  *   <li>the position moves by no more than slew·h on a good sample (a safe output on a fault is a
  *       safety action and may move at once);</li>
  *   <li>a fault leaves the dynamic state exactly as it was (snapshot compared; the fault counter
- *       counts it, and under {@link FaultPolicy#SAFE_OUTPUT} the last output is the safe output);</li>
+ *       counts it, and under {@link FaultPolicy#SAFE_OUTPUT} the last output is the safe output,
+ *       except in manual, where the operator's output stands);</li>
  *   <li>a mode switch is bumpless: the first output after it equals the last one before it (to
  *       tracking, with the tracked value at the last output, as when the actuator is tracked);</li>
  *   <li>a retune or a feedforward switch is bumpless, defined at unchanged inputs (setpoint ramp
@@ -43,9 +44,8 @@ class IndustrialProperties {
                 .setpointWeights(from.wrapSpan() > 0.0 ? 1.0 : rnd.nextDouble(), rnd.nextDouble())
                 .derivativeFilterRatio(2.0 + 18.0 * rnd.nextDouble())
                 .integralMethod(RandomSettings.pick(rnd, IntegralMethod.values()))
-                .derivativeMethod(RandomSettings.pick(rnd, DerivativeMethod.values()))
                 .windupProtection(RandomSettings.pick(rnd, WindupProtection.values()));
-        return RandomSettings.stableDerivative(b).build();
+        return RandomSettings.stableDerivative(b, RandomSettings.pick(rnd, DerivativeMethod.values())).build();
     }
 
     /** The error the settings see, as the controller forms it: action, wrap and deadband. */
@@ -162,7 +162,12 @@ class IndustrialProperties {
             }
             assertThat(c.fault()).isNotEqualTo(Fault.NONE);
             assertThat(c.faultCount()).isEqualTo(faults + 1);
-            double expected = current.faultPolicy() == FaultPolicy.HOLD ? position
+            double slewStep = current.outputSlewPerSecond() * current.samplePeriodSeconds();
+            // manual obeys the operator on a bad sample too, within the range and one slew step
+            double expected = c.mode() == Mode.MANUAL
+                    ? Math.min(Math.max(before.manualValue(), Math.max(current.outputMin(), position - slewStep)),
+                            Math.min(current.outputMax(), position + slewStep))
+                    : current.faultPolicy() == FaultPolicy.HOLD ? position
                     : Math.min(Math.max(current.safeOutput(), current.outputMin()), current.outputMax());
             assertThat(c.position()).isEqualTo(expected);
             if (current.outputKind() == OutputKind.INCREMENT) {

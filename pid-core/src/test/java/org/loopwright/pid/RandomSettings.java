@@ -47,19 +47,18 @@ final class RandomSettings {
                 .derivativeFilterRatio(2.0 + 18.0 * rnd.nextDouble())
                 .setpointWeights(rnd.nextDouble(), rnd.nextDouble())
                 .integralMethod(pick(rnd, IntegralMethod.values()))
-                .derivativeMethod(pick(rnd, DerivativeMethod.values()))
                 .action(pick(rnd, Action.values()));
-        return stableDerivative(b);
+        return stableDerivative(b, pick(rnd, DerivativeMethod.values()));
     }
 
     /** Forward Euler only where h &lt; 2·Tf; elsewhere backward Euler. */
-    static ControllerSettings.Builder stableDerivative(ControllerSettings.Builder b) {
-        try {
-            b.build();
-        } catch (InvalidSettingException unstable) {
-            b.derivativeMethod(DerivativeMethod.BACKWARD_EULER);
-        }
-        return b;
+    static ControllerSettings.Builder stableDerivative(ControllerSettings.Builder b, DerivativeMethod wanted) {
+        // decided from the settings' own filter time, not by catching the validation error: a
+        // validation regression must fail the property, not be replaced quietly by another draw
+        ControllerSettings probe = b.derivativeMethod(DerivativeMethod.BACKWARD_EULER).build();
+        boolean allowed = probe.parallelGains().derivativeGain() == 0.0
+                || wanted.isStable(probe.samplePeriodSeconds(), probe.derivativeFilterTimeSeconds());
+        return b.derivativeMethod(allowed ? wanted : DerivativeMethod.BACKWARD_EULER);
     }
 
     /** Everything an industrial configuration may switch on, at random. */

@@ -3,7 +3,6 @@ package org.loopwright.pid.onoff;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
-import java.lang.management.ManagementFactory;
 import java.util.stream.Stream;
 
 import org.junit.jupiter.api.Test;
@@ -72,23 +71,5 @@ class OnOffControllerTest {
     void invalidSettingsNameFieldValueAndRule(double[] v, String message) {
         assertThatThrownBy(() -> new OnOffSettings(v[0], v[1], v[2], v[3], v[4], Action.REVERSE))
                 .isInstanceOf(InvalidSettingException.class).hasMessage(message);
-    }
-
-    @Test
-    void updateAllocatesNothing() {
-        com.sun.management.ThreadMXBean threads =
-                (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
-        OnOffController c = new OnOffController(HEATER);
-        double sum = 0.0;
-        for (int i = 0; i < 100_000; i++) {
-            sum += c.update(60.0, 60.0 + Math.sin(i * 0.01), i);
-        }
-        long before = threads.getThreadAllocatedBytes(Thread.currentThread().getId());
-        for (int i = 0; i < 1_000_000; i++) {
-            sum += c.update(60.0, 60.0 + Math.sin(i * 0.01), i);
-        }
-        long allocated = threads.getThreadAllocatedBytes(Thread.currentThread().getId()) - before;
-        assertThat(sum).isPositive();
-        assertThat(allocated).isZero();
     }
 }

@@ -19,38 +19,46 @@ import org.loopwright.pid.testing.AllocationWindows;
 /**
  * A tick allocates nothing: the listener, which runs on the loop thread, reads that thread's
  * allocated bytes ({@link com.sun.management.ThreadMXBean#getCurrentThreadAllocatedBytes()}) after a
- * warm-up and again many ticks later. The ticks take every path: park and spin, overruns with skips,
- * measured period, failed reads.
+ * warm-up and at the ends of three windows of ticks, judged by the rule of {@link AllocationWindows}.
+ * The ticks take every path: park and spin, overruns with skips, measured period, failed reads.
  */
 class LoopRunnerAllocationTest {
 
     private static final long PERIOD = 100_000L; // 10 kHz
 
-    /** Reads the allocation counter at the two marks, then stops the runner. */
+    /** Reads the allocation counter after the warm-up and at the end of each window, then stops the runner. */
     private static final class AllocationProbe implements TimingListener {
         private final com.sun.management.ThreadMXBean threads =
                 (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
         private final long warmUpTicks;
-        private final long measuredTicks;
+        private final long windowTicks;
+        private final long[] marks = new long[AllocationWindows.COUNT + 1];
+        private int marked;
         long ticks;
-        long bytesAtWarm;
-        long bytesAtEnd;
         LoopRunner runner;
 
-        AllocationProbe(long warmUpTicks, long measuredTicks) {
+        AllocationProbe(long warmUpTicks, long windowTicks) {
             this.warmUpTicks = warmUpTicks;
-            this.measuredTicks = measuredTicks;
+            this.windowTicks = windowTicks;
         }
 
         @Override
         public void onTick(long scheduledNanos, long startNanos, long endNanos, boolean overrun) {
             ticks++;
-            if (ticks == warmUpTicks) {
-                bytesAtWarm = threads.getCurrentThreadAllocatedBytes();
-            } else if (ticks == warmUpTicks + measuredTicks) {
-                bytesAtEnd = threads.getCurrentThreadAllocatedBytes();
-                runner.stop();
+            if (ticks >= warmUpTicks && (ticks - warmUpTicks) % windowTicks == 0 && marked < marks.length) {
+                marks[marked++] = threads.getCurrentThreadAllocatedBytes();
+                if (marked == marks.length) {
+                    runner.stop();
+                }
             }
+        }
+
+        long[] bytesPerWindow() {
+            long[] bytes = new long[AllocationWindows.COUNT];
+            for (int w = 0; w < bytes.length; w++) {
+                bytes[w] = marks[w + 1] - marks[w];
+            }
+            return bytes;
         }
     }
 
@@ -79,7 +87,7 @@ class LoopRunnerAllocationTest {
             }
             return k % 101 == 0 ? Double.NaN : 55.0 + 0.01 * (k % 50);
         };
-        AllocationProbe listener = new AllocationProbe(50_000, 200_000);
+        AllocationProbe listener = new AllocationProbe(50_000, 70_000);
         LoopRunner runner = new LoopRunner(RunnerSettings.builder().clock(clock)
                 .waitStrategy(WaitStrategy.PARK_THEN_SPIN).spinMarginNanos(20_000).periodMode(PeriodMode.MEASURED)
                 .overrunPolicy(OverrunPolicy.SKIP_MISSED).daemon(true).build(),
@@ -92,14 +100,14 @@ class LoopRunnerAllocationTest {
         assertThat(runner.overrunCount()).isPositive();
         assertThat(runner.skippedTickCount()).isPositive();
         assertThat(runner.failedTickCount()).isPositive();
-        assertThat(listener.bytesAtEnd - listener.bytesAtWarm).isZero();
+        AllocationWindows.assertNothingAllocated(listener.bytesPerWindow(), "tick");
     }
 
     @Test
     void aTickOnTheSystemClockAllocatesNothing() throws InterruptedException {
         // 50 kHz, parking until 10 µs before each deadline: 0.6 s of real time (more when parks overrun)
         long period = 20_000L;
-        AllocationProbe listener = new AllocationProbe(10_000, 20_000);
+        AllocationProbe listener = new AllocationProbe(10_000, 7_000);
         LoopRunner runner = new LoopRunner(RunnerSettings.builder()
                 .waitStrategy(WaitStrategy.PARK_THEN_SPIN).spinMarginNanos(10_000).periodMode(PeriodMode.MEASURED)
                 .daemon(true).build(),
@@ -107,7 +115,7 @@ class LoopRunnerAllocationTest {
         listener.runner = runner;
         runner.start();
         assertThat(runner.awaitStop(Duration.ofSeconds(240))).isTrue();
-        assertThat(listener.bytesAtEnd - listener.bytesAtWarm).isZero();
+        AllocationWindows.assertNothingAllocated(listener.bytesPerWindow(), "tick");
     }
 
     /** Reads the allocation counter at the ends of three windows after a warm-up, then stops the runner. */

@@ -27,6 +27,25 @@ public final class AllocationWindows {
     }
 
     /**
+     * Runs a window of work {@link #COUNT} times on this thread, reading the counter around each.
+     *
+     * @param window one window of work, already warm
+     * @return the bytes charged to this thread in each window
+     */
+    public static long[] measure(Runnable window) {
+        com.sun.management.ThreadMXBean threads =
+                (com.sun.management.ThreadMXBean) java.lang.management.ManagementFactory.getThreadMXBean();
+        long thread = Thread.currentThread().getId();
+        long[] bytes = new long[COUNT];
+        for (int w = 0; w < COUNT; w++) {
+            long before = threads.getThreadAllocatedBytes(thread);
+            window.run();
+            bytes[w] = threads.getThreadAllocatedBytes(thread) - before;
+        }
+        return bytes;
+    }
+
+    /**
      * Asserts the rule above.
      *
      * @param bytesPerWindow bytes charged to the thread in each window

@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.stream.Stream;
 
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
@@ -47,6 +48,23 @@ class SmithTwoPointTest {
         assertThat(model.processGain()).isCloseTo(k, within(1e-3 * Math.abs(k)));
         assertThat(model.timeConstantSeconds()).isCloseTo(t, within(0.005 * t));
         assertThat(model.deadTimeSeconds()).isCloseTo(l, within(0.005 * t));
+    }
+
+    @Test
+    void crossingTimesAreInterpolatedBetweenSamples() {
+        // a response that rises linearly from 0 at t = 1 s to 1 at t = 11 s, sampled each second:
+        // linear interpolation finds the 28.3 % and 63.2 % crossings exactly, at 3.83 s and 7.32 s,
+        // between samples; Smith's rule T = 1.5·(t63 − t28), L = t63 − T − step time (worked by hand)
+        double[] times = new double[21];
+        double[] outputs = new double[21];
+        for (int i = 0; i < times.length; i++) {
+            times[i] = i;
+            outputs[i] = Math.min(1.0, Math.max(0.0, (i - 1.0) / 10.0));
+        }
+        FopdtModel model = SmithTwoPoint.estimate(times, outputs, 0.5, 2.0);
+        assertThat(model.processGain()).isCloseTo(0.5, within(1e-12));
+        assertThat(model.timeConstantSeconds()).isCloseTo(1.5 * (7.32 - 3.83), within(1e-9));
+        assertThat(model.deadTimeSeconds()).isCloseTo(7.32 - 1.5 * (7.32 - 3.83) - 0.5, within(1e-9));
     }
 
     static Stream<Arguments> badData() {
