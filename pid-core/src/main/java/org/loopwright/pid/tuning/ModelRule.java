@@ -169,7 +169,10 @@ public enum ModelRule implements TuningRule {
 
     /**
      * Ziegler–Nichols step-response rule (1942), with a = K·L/T. Recalled from memory:
-     * PI: Kc = 0.9/a, Ti = 3·L; PID: Kc = 1.2/a, Ti = 2·L, Td = L/2. Applies for
+     * PI: Kc = 0.9/a, Ti = 3·L; PID: Kc = 1.2/a, Ti = 2·L, Td = L/2. The PI integral time used is 3·L,
+     * the value the later textbook tables print (e.g. Åström &amp; Hägglund, <i>Advanced PID Control</i>,
+     * 2006, table of the step-response method); the 1942 paper states a reset rate from which
+     * Ti ≈ 3.33·L follows (from memory), so the two differ by 10 %. Applies for
      * 0 &lt; L/T &le; 1: the rule was made for lag-dominant processes and is known to give poorly damped
      * loops when the dead time dominates (common practice).
      */
@@ -186,7 +189,7 @@ public enum ModelRule implements TuningRule {
             IdealGains gains = type == ControllerType.PI
                     ? IdealGains.pi(0.9 / a, 3.0 * l)
                     : new IdealGains(1.2 / a, 2.0 * l, 0.5 * l);
-            return new TunedGains(this, type, gains, "");
+            return new TunedGains(this, type, gains, type == ControllerType.PI ? PI_INTEGRAL_TIME_NOTE : "");
         }
     },
 
@@ -223,6 +226,10 @@ public enum ModelRule implements TuningRule {
     /** Largest L/T for the Ziegler–Nichols step-response and Cohen–Coon rules. */
     public static final double MAX_DEAD_TIME_RATIO = 1.0;
 
+    /** Which Ziegler–Nichols step-response PI integral time is used, and why (shown with every such setting). */
+    private static final String PI_INTEGRAL_TIME_NOTE = "Ti = 3L as the later tables print it; the 1942 paper's"
+            + " reset rate gives about 3.33L";
+
     private final String label;
     private final String citation;
 
@@ -244,6 +251,9 @@ public enum ModelRule implements TuningRule {
     /**
      * Tunes from a model with the rule's default design parameter.
      *
+     * @param model the process model
+     * @param type PI or PID
+     * @return the gains, or why the rule does not apply
      * @see #tune(ProcessModel, ControllerType, double)
      */
     public TuningResult tune(ProcessModel model, ControllerType type) {
@@ -257,6 +267,8 @@ public enum ModelRule implements TuningRule {
      *
      * @param closedLoopTimeSeconds τc for SIMC or λ for lambda tuning, in seconds; NaN for the rule's
      *                              default; ignored by the other rules
+     * @param model the process model
+     * @param type PI or PID
      * @return the gains, or why the rule does not apply
      * @throws InvalidSettingException when closedLoopTimeSeconds is neither NaN nor finite and &gt; 0
      */
@@ -278,6 +290,10 @@ public enum ModelRule implements TuningRule {
     /**
      * The λ that {@link #LAMBDA} uses when none is given: max(T, 1.7·L) for PI, max(T, 0.8·L) for
      * PID (see {@link #LAMBDA}).
+     *
+     * @param model the first-order model
+     * @param type PI or PID
+     * @return λ in seconds
      */
     public static double defaultLambdaSeconds(FopdtModel model, ControllerType type) {
         double ratio = type == ControllerType.PI ? LAMBDA_PI_MIN_RATIO : LAMBDA_PID_MIN_RATIO;

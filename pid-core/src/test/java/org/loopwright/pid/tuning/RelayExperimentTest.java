@@ -96,6 +96,21 @@ class RelayExperimentTest {
         assertThat(predictedGain).isLessThan(KU);
     }
 
+    @Test
+    void ultimateGainUsesTheHysteresisTermOfTheDescribingFunction() {
+        // Ku = 4d/(π·√(a² − ε²)) for a relay of amplitude d and hysteresis ε (the describing function of
+        // a relay with hysteresis; Åström & Hägglund 2006, §6.2): with the measured amplitude a, the
+        // estimate must satisfy it exactly, and differ from the hysteresis-free 4d/(π·a)
+        double epsilon = 0.05;
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().hysteresis(epsilon).build(), 0.0);
+        run(relay, 1.0);
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        double a = relay.oscillationAmplitude();
+        assertThat(relay.ultimateGain())
+                .isCloseTo(4.0 * 1.0 / (Math.PI * Math.sqrt(a * a - epsilon * epsilon)), within(1e-12));
+        assertThat(relay.ultimateGain()).isGreaterThan(4.0 / (Math.PI * a) * (1.0 + 1e-4));
+    }
+
     private static double imaginaryPart(double omega) {
         return (omega * omega * omega - 3.0 * omega) / Math.pow(1.0 + omega * omega, 3);
     }

@@ -163,6 +163,15 @@ class TuningRuleTest {
     }
 
     @Test
+    void zieglerNicholsStepPiSaysWhichIntegralTimeItUses() {
+        // the 1942 paper's reset rate gives Ti ≈ 3.33·L, later tables print 3·L (from memory): the setting
+        // must say that it uses 3·L
+        TunedGains pi = (TunedGains) ModelRule.ZIEGLER_NICHOLS_STEP.tune(A, ControllerType.PI);
+        assertThat(pi.gains().integralTime()).isEqualTo(3.0 * A.deadTimeSeconds());
+        assertThat(pi.note()).contains("Ti = 3L").contains("1942").contains("3.33L");
+    }
+
+    @Test
     void negativeProcessGainTunesOnItsMagnitude() {
         // a cooler: the same magnitude gives the same gains; the controller takes direct action
         TuningResult cooling = ModelRule.SIMC.tune(new FopdtModel(-2.0, 10.0, 1.0), ControllerType.PI);

@@ -1,10 +1,12 @@
 package org.loopwright.sim.cli;
 
+import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -18,7 +20,7 @@ import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.tuning.RelaySimulation;
@@ -42,6 +44,10 @@ import picocli.CommandLine.Spec;
         description = "Relay experiment on a scenario's plant in simulation, then tune from the ultimate point and"
                 + " verify each suggestion on the scenario.")
 public final class AutotuneCommand implements Callable<Integer> {
+
+    /** The relay settings' field names as the options that set them. */
+    private static final Map<String, String> OPTION_OF_FIELD = Map.of("relayAmplitude", "--relay-amplitude",
+            "hysteresis", "--hysteresis", "excursionLimit", "--excursion-limit");
 
     @Spec
     private CommandSpec spec;
@@ -80,7 +86,7 @@ public final class AutotuneCommand implements Callable<Integer> {
     private boolean json;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         try {
@@ -102,6 +108,13 @@ public final class AutotuneCommand implements Callable<Integer> {
                 err.flush();
                 return LoopwrightCommand.BAD_INPUT;
             }
+            if (relay.periodSetBySampling()) {
+                err.println("relay experiment: ultimate gain Ku " + TuningReport.num(relay.ultimateGain())
+                        + ", ultimate period Pu " + TuningReport.num(relay.ultimatePeriodSeconds()) + " s; "
+                        + relay.warnings().get(0));
+                err.flush();
+                return LoopwrightCommand.BAD_INPUT;
+            }
             UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
             ControllerSettings base = scenario.controller().orElseThrow();
             List<TuningCandidate> suggestions = new ArrayList<>();
@@ -116,6 +129,10 @@ public final class AutotuneCommand implements Callable<Integer> {
             TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
                     && c.tuning().type() == writtenType).findFirst().orElseThrow();
             if (controllerOut != null) {
+                if (chosen.stable().orElse(true) == Boolean.FALSE) {
+                    throw new InputException("--write-controller: " + written.label() + " makes the sampled loop"
+                            + " UNSTABLE; no file written", null);
+                }
                 TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
             }
             if (json) {
@@ -141,10 +158,10 @@ public final class AutotuneCommand implements Callable<Integer> {
             }
             out.flush();
             return 0;
-        } catch (InputFileException | InvalidSettingException | TuneCommand.BadInput e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        } catch (InvalidSettingException e) {
+            // the relay settings name their fields; say it with the options the user typed
+            String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
+            throw InputException.option(option, e.value(), e.rule());
         }
     }
 

@@ -11,8 +11,10 @@ import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.study.DiscretisationStudy;
@@ -37,7 +39,7 @@ import picocli.CommandLine.Spec;
  * study of {@link DiscretisationStudy} as a table (or a JSON array of rows), with its plots and
  * {@code report.html} in DIR.
  * Without {@code --periods} the periods are chosen from the continuous crossover ω_c so that ω_c·h is
- * 0.02, 0.1, 0.3 and 1 (see {@link DiscretisationStudy#defaultPeriods(double)}). Exit code 2 for a bad
+ * 0.02, 0.1, 0.3 and 1 (see {@link DiscretisationStudy#defaultPeriods(double, double)}; the scenario's own period is added). Exit code 2 for a bad
  * file, a nonlinear plant, an on-off controller, a bad period or an unwritable DIR.
  */
 @Command(name = "compare", mixinStandardHelpOptions = true,
@@ -67,16 +69,11 @@ public final class CompareCommand implements Callable<Integer> {
         try {
             LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
             if (periods != null) {
-                for (double h : periods) {
-                    if (!Double.isFinite(h) || h <= 0.0) {
-                        err.println("--periods must each be finite and > 0: --periods=" + periods.stream()
-                                .map(String::valueOf).collect(Collectors.joining(",")));
-                        return LoopwrightCommand.BAD_INPUT;
-                    }
-                }
+                checkPeriods(loop);
             }
             List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
-                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())));
+                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
+                    loop.settings().samplePeriodSeconds());
             StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
             boolean json = output.json();
             if (json) {
@@ -101,7 +98,7 @@ public final class CompareCommand implements Callable<Integer> {
             out.flush();
             err.flush();
             return 0;
-        } catch (InputFileException | IllegalArgumentException e) {
+        } catch (InputFileException e) {
             out.flush();
             err.println(e.getMessage());
             err.flush();
@@ -139,11 +136,38 @@ public final class CompareCommand implements Callable<Integer> {
         return array;
     }
 
+    /** Each period finite and positive, and the study's work at it within its stated limits. */
+    private void checkPeriods(LinearLoopFile loop) {
+        String given = periods.stream().map(String::valueOf).collect(Collectors.joining(","));
+        if (periods.size() > DiscretisationStudy.MAX_PERIODS) {
+            throw InputException.option("--periods", given, "must list at most " + DiscretisationStudy.MAX_PERIODS
+                    + " periods");
+        }
+        for (double h : periods) {
+            if (!Double.isFinite(h) || h <= 0.0) {
+                throw InputException.option("--periods", given, "must each be finite and > 0");
+            }
+            double samples = loop.scenario().durationSeconds() / h;
+            if (samples > DiscretisationStudy.MAX_SAMPLES_PER_RUN) {
+                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each give at most %d"
+                        + " samples over the scenario's duration of %s s (h = %s s gives %.3g)",
+                        DiscretisationStudy.MAX_SAMPLES_PER_RUN, loop.scenario().durationSeconds(), h, samples));
+            }
+            double delaySamples = loop.plant().deadTimeSeconds() / h + loop.scenario().sensor().delaySamples();
+            if (delaySamples > SampledLoop.MAX_DELAY_SAMPLES) {
+                throw InputException.option("--periods", given, String.format(Locale.ROOT, "must each keep the loop's"
+                        + " delay (dead time %s s plus %d sensor samples) within %d samples (h = %s s gives %.3g)",
+                        loop.plant().deadTimeSeconds(), loop.scenario().sensor().delaySamples(),
+                        SampledLoop.MAX_DELAY_SAMPLES, h, delaySamples));
+            }
+        }
+    }
+
     private void table(PrintWriter out, StudyResult result, boolean defaultPeriods, Units units) {
         out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
         out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
                 result.crossoverRadPerSecond(), result.periodsSeconds(),
-                defaultPeriods ? " (default: omega_c*h = 0.02, 0.1, 0.3, 1)" : "");
+                defaultPeriods ? " (default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)" : "");
         out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
                 result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
                 SamplingVerdict.TYPICAL_HIGH);

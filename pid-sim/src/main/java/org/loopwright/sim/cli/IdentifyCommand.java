@@ -11,7 +11,6 @@ import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import org.loopwright.pid.tuning.FopdtModel;
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.identify.IdentificationPlot;
 import org.loopwright.sim.identify.IdentifiedModel;
@@ -23,7 +22,6 @@ import org.loopwright.sim.scenario.PlantBlock;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -35,7 +33,9 @@ import picocli.CommandLine.Spec;
  * the file, row and column; data without a step says so).
  */
 @Command(name = "identify", mixinStandardHelpOptions = true,
-        description = "Fit a first- or second-order-plus-dead-time model to a step test (CSV: time,input,output).")
+        description = {"Fit a first- or second-order-plus-dead-time model to a step test (CSV: time,input,output).",
+                "The file is read a row at a time; a record longer than " + 2 * StepTestFile.FIT_ROWS + " rows is"
+                        + " thinned to every k-th row (k a power of two) and the output says so."})
 public final class IdentifyCommand implements Callable<Integer> {
 
     @Spec
@@ -49,13 +49,6 @@ public final class IdentifyCommand implements Callable<Integer> {
             description = "First or second order plus dead time (default: ${DEFAULT-VALUE}).")
     private ModelKind kind;
 
-    @Mixin
-    private OutputOptions output;
-
-    @Option(names = "--write-plant", paramLabel = "FILE.yaml",
-            description = "Write the fitted model as a plant: block of the scenario format (design --plant reads it).")
-    private Path plantOut;
-
     /** {@code --model} by the words fopdt and sopdt. */
     static final class ModelWords extends KeywordConverter<ModelKind> {
         ModelWords() {
@@ -63,51 +56,67 @@ public final class IdentifyCommand implements Callable<Integer> {
         }
     }
 
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
+            description = "Where to write the plot identify-<model>.png (default: the current directory).")
+    private Path outDirectory;
+
+    @Option(names = "--write-plant", paramLabel = "FILE.yaml",
+            description = "Write the fitted model as a plant: block of the scenario format (design --plant reads it).")
+    private Path plantOut;
+
+    @Option(names = "--json", description = "Print JSON instead of text.")
+    private boolean json;
+
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        try {
-            StepTest test = StepTestFile.read(file);
-            IdentifiedModel fit = StepIdentification.identify(test, kind);
-            Path plot = writePlot(test, fit, kind);
+        StepTest test = StepTestFile.read(file);
+        IdentifiedModel fit = StepIdentification.identify(test, kind);
+        Path plot = writePlot(test, fit, kind);
+        if (plantOut != null) {
+            writePlant(fit);
+        }
+        if (json) {
+            ObjectNode node = json(fit);
+            node.put("rows_in_file", test.rowsInFile());
+            node.put("kept_every", test.keptEvery());
+            out.println(Json.pretty(node));
+        } else {
+            if (test.keptEvery() > 1) {
+                out.println(thinningNote(test));
+            }
+            printText(out, fit, plot);
             if (plantOut != null) {
-                writePlant(fit);
+                out.println("Wrote " + plantOut);
             }
-            if (output.json()) {
-                out.println(Json.pretty(json(fit)));
-            } else {
-                printText(out, fit, plot);
-                if (plantOut != null) {
-                    out.println("Wrote " + plantOut);
-                }
-            }
-            out.flush();
-            return 0;
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
         }
+        out.flush();
+        return 0;
     }
 
-    private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) {
-        Path outDirectory = output.directory("identify");
-        try {
-            Files.createDirectories(outDirectory);
-            return IdentificationPlot.writePng(outDirectory.resolve("identify-" + kind.label() + ".png"), test, fit);
-        } catch (IOException e) {
-            throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+    private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) throws IOException {
+        String name = "identify-" + kind.label() + ".png";
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            IdentificationPlot.writePng(stage.directory().resolve(name), test, fit);
+            stage.commit();
         }
+        return outDirectory.resolve(name);
     }
 
-    private void writePlant(IdentifiedModel fit) {
+    private static String thinningNote(StepTest test) {
+        return "Note: " + test.rowsInFile() + " rows are more than the fit takes (" + 2 * StepTestFile.FIT_ROWS
+                + "): fitted on every " + test.keptEvery() + "th row (" + test.length() + " rows, the rows at each"
+                + " change of the input kept), so times are resolved to " + test.keptEvery() + " sample periods";
+    }
+
+    private void writePlant(IdentifiedModel fit) throws IOException {
         String text = String.format(Locale.ROOT, "# %s fitted by identify to %s: RMSE %.4g, R² %.5f%n", fit.kind().label(),
                 file.getFileName(), fit.rmse(), fit.rSquared()) + PlantBlock.yaml(fit.processModel());
-        try {
-            Files.writeString(plantOut, text, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw InputFileException.whole(plantOut.toString(), "cannot be written (" + e + ")", e);
+        Path absolute = plantOut.toAbsolutePath();
+        try (OutputStage stage = OutputStage.in(absolute.getParent(), "--write-plant")) {
+            Files.writeString(stage.directory().resolve(absolute.getFileName().toString()), text,
+                    StandardCharsets.UTF_8);
+            stage.commit();
         }
     }
 

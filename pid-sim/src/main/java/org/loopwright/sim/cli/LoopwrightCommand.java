@@ -1,6 +1,10 @@
 package org.loopwright.sim.cli;
 
-import org.loopwright.sim.config.InputFileException;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+
+import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.config.IoWords;
 
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -34,11 +38,19 @@ public final class LoopwrightCommand implements Runnable {
     /** A command line with this project's exit codes and error handling. */
     public static CommandLine commandLine() {
         CommandLine cli = new CommandLine(new LoopwrightCommand());
-        // commands report their own input errors; what escapes them is either bad input the
-        // libraries found (an IllegalArgumentException, which names the value) or a defect of ours
+        // the one path from bad input to exit 2: commands throw, never catch, their input errors;
+        // an IllegalArgumentException is a value a constructor refused (its message names it), and a
+        // file-system error is a file named on the command line that cannot be read or written
         cli.setExecutionExceptionHandler((ex, cmd, parsed) -> {
-            if (ex instanceof InputFileException || ex instanceof IllegalArgumentException) {
+            if (ex instanceof InputException || ex instanceof IllegalArgumentException) {
                 cmd.getErr().println(ex.getMessage());
+                return BAD_INPUT;
+            }
+            Throwable io = ex instanceof UncheckedIOException unchecked ? unchecked.getCause() : ex;
+            if (io instanceof IOException) {
+                String file = IoWords.file(io);
+                cmd.getErr().println((file == null ? "" : file + ": ") + "cannot be read or written ("
+                        + IoWords.of(io) + ")");
                 return BAD_INPUT;
             }
             cmd.getErr().println("internal error, please report it with the command and its input:");

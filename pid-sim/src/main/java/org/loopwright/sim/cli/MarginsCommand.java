@@ -4,15 +4,17 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.GainCrossing;
+import org.loopwright.sim.frequency.GainRange;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.PhaseCrossing;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.plant.TransferFunction;
@@ -44,6 +46,9 @@ import picocli.CommandLine.Spec;
                 "A cascade (inner key) gives the inner loop alone and the outer loop with the inner loop closed."})
 public final class MarginsCommand implements Callable<Integer> {
 
+    /** What the robustness figures of an unstable loop are. */
+    private static final String NOT_MEANINGFUL = "not meaningful: the closed loop is unstable";
+
     /** The table lists this many phase crossovers at most (JSON lists them all). */
     private static final int LISTED_CROSSINGS = 6;
 
@@ -60,59 +65,69 @@ public final class MarginsCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        LinearLoopFile loop;
-        try {
-            loop = LinearLoopFile.read(scenarioFile, "margins", true);
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
-        }
+        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "margins", true);
         ControllerSettings settings = loop.settings();
         if (loop.scenario().inner().isPresent()) {
             InnerLoop inner = loop.scenario().inner().get();
             TransferFunction innerPlant = inner.plant().linear().orElseThrow();
             ControllerSettings innerSettings = inner.controller();
             StabilityMargins innerContinuous = LoopAnalysis.continuous(innerPlant, innerSettings);
-            SampledMargins innerSampled = LoopAnalysis.sampled(innerPlant, innerSettings);
+            SampledMargins innerSampled = LoopAnalysis.sampled(SampledLoop.of(innerPlant, innerSettings));
             StabilityMargins outerContinuous = CascadeAnalysis.outerContinuous(loop.plant(), settings, innerPlant,
                     innerSettings);
             SampledMargins outerSampled = CascadeAnalysis.outerSampled(loop.plant(), settings, innerPlant,
                     innerSettings);
             if (json) {
                 ObjectNode root = Json.object();
-                root.set("inner", loopNode(innerSettings, innerContinuous, innerSampled));
-                root.set("outer", loopNode(settings, outerContinuous, outerSampled));
+                root.set("inner", loopNode(innerSettings, 0, innerContinuous, innerSampled, Optional.empty()));
+                root.set("outer", loopNode(settings, 0, outerContinuous, outerSampled, Optional.empty()));
                 out.println(Json.pretty(root));
             } else {
                 out.println("Inner loop (inner.controller on inner.plant):");
-                table(out, innerSettings, innerContinuous, innerSampled);
+                table(out, innerSettings, 0, innerContinuous, innerSampled, Optional.empty());
                 out.println();
                 out.println("Outer loop (controller on plant, with the inner loop closed):");
-                table(out, settings, outerContinuous, outerSampled);
+                table(out, settings, 0, outerContinuous, outerSampled, Optional.empty());
             }
             out.flush();
             return 0;
         }
         StabilityMargins continuous = LoopAnalysis.continuous(loop.plant(), settings);
-        SampledMargins sampled = LoopAnalysis.sampled(loop.plant(), settings);
+        SampledLoop sampledLoop = loop.scenario().sampledLoop().orElseThrow();
+        SampledMargins sampled = LoopAnalysis.sampled(sampledLoop);
+        Optional<GainRange> range = LoopAnalysis.stableGainRange(sampledLoop);
         if (json) {
-            out.println(Json.pretty(loopNode(settings, continuous, sampled)));
+            out.println(Json.pretty(loopNode(settings, sampledLoop.sensorDelaySamples(), continuous, sampled, range)));
         } else {
-            table(out, settings, continuous, sampled);
+            table(out, settings, sampledLoop.sensorDelaySamples(), continuous, sampled, range);
         }
         out.flush();
         return 0;
     }
 
     /** {"continuous": {...}, "sampled": {...}} of one loop. */
-    private static ObjectNode loopNode(ControllerSettings settings, StabilityMargins continuous,
-            SampledMargins sampled) {
+    private static ObjectNode loopNode(ControllerSettings settings, int sensorDelaySamples,
+            StabilityMargins continuous, SampledMargins sampled, Optional<GainRange> range) {
         ObjectNode root = Json.object();
         root.set("continuous", margins(continuous));
         ObjectNode sampledNode = margins(sampled.margins());
         sampledNode.put("stable", sampled.stable());
+        sampledNode.put("sensor_delay_samples", sensorDelaySamples);
+        if (!sampled.stable()) {
+            for (String key : List.of("ms", "ms_frequency", "mt", "mt_frequency", "delay_margin")) {
+                sampledNode.putNull(key);
+            }
+            sampledNode.put("note", NOT_MEANINGFUL);
+        }
+        if (range.isPresent()) {
+            ObjectNode r = sampledNode.putObject("stable_gain_range");
+            Json.number(r, "low", range.get().low());
+            Json.number(r, "high", range.get().high());
+        } else {
+            sampledNode.putNull("stable_gain_range");
+        }
+        Json.number(sampledNode, "lower_gain_margin", sampled.stable() && range.isPresent()
+                && range.get().low() > 0.0 ? range.get().low() : Double.NaN);
         Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
         sampledNode.put("sample_period", settings.samplePeriodSeconds());
         sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
@@ -154,13 +169,16 @@ public final class MarginsCommand implements Callable<Integer> {
         return node;
     }
 
-    private void table(PrintWriter out, ControllerSettings settings, StabilityMargins continuous,
-            SampledMargins sampled) {
+    private void table(PrintWriter out, ControllerSettings settings, int sensorDelaySamples,
+            StabilityMargins continuous, SampledMargins sampled, Optional<GainRange> range) {
         StabilityMargins s = sampled.margins();
         out.println("Margins of " + scenarioFile + " (frequencies in rad/s)");
-        out.printf(Locale.ROOT, "sampled: h = %s s, integral %s, derivative %s%n", settings.samplePeriodSeconds(),
-                ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()),
-                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()));
+        out.printf(Locale.ROOT, "sampled: h = %s s, integral %s, derivative %s, sensor delay %d samples%n",
+                settings.samplePeriodSeconds(), ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()),
+                ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()), sensorDelaySamples);
+        if (sensorDelaySamples > 0) {
+            out.println("continuous: the design, without the sensor's delay (it exists only in the sampled loop)");
+        }
         row(out, "", "continuous", "sampled");
         row(out, "gain margin", gainMargin(continuous), gainMargin(s));
         row(out, "phase crossover", frequency(continuous.phaseCrossover().map(PhaseCrossing::frequencyRadPerSecond)
@@ -170,15 +188,28 @@ public final class MarginsCommand implements Callable<Integer> {
         row(out, "gain crossover", frequency(continuous.gainCrossover().map(GainCrossing::frequencyRadPerSecond)
                 .orElse(Double.NaN)), frequency(s.gainCrossover().map(GainCrossing::frequencyRadPerSecond)
                 .orElse(Double.NaN)));
+        boolean stable = sampled.stable();
         row(out, "Ms", peak(continuous.sensitivityPeak().value(), continuous.sensitivityPeak().frequencyRadPerSecond()),
-                peak(s.sensitivityPeak().value(), s.sensitivityPeak().frequencyRadPerSecond()));
+                stable ? peak(s.sensitivityPeak().value(), s.sensitivityPeak().frequencyRadPerSecond())
+                        : NOT_MEANINGFUL);
         row(out, "Mt", peak(continuous.complementaryPeak().value(),
                 continuous.complementaryPeak().frequencyRadPerSecond()),
-                peak(s.complementaryPeak().value(), s.complementaryPeak().frequencyRadPerSecond()));
+                stable ? peak(s.complementaryPeak().value(), s.complementaryPeak().frequencyRadPerSecond())
+                        : NOT_MEANINGFUL);
         row(out, "delay margin", seconds(continuous.delayMarginSeconds().orElse(Double.NaN)),
-                seconds(s.delayMarginSeconds().orElse(Double.NaN)));
+                stable ? seconds(s.delayMarginSeconds().orElse(Double.NaN)) : NOT_MEANINGFUL);
         row(out, "closed-loop poles", "-", String.format(Locale.ROOT, "%s (largest |z| = %.6f)",
-                sampled.stable() ? "stable" : "UNSTABLE", sampled.largestPoleMagnitude()));
+                stable ? "stable" : "UNSTABLE", sampled.largestPoleMagnitude()));
+        row(out, "stable gain range", "-", range.map(r -> String.format(Locale.ROOT, "%s < k < %s times the loop gain%s",
+                r.low() == 0.0 ? "0" : String.format(Locale.ROOT, "%.4g", r.low()),
+                Double.isInfinite(r.high()) ? "inf" : String.format(Locale.ROOT, "%.4g", r.high()),
+                stable && r.low() > 0.0 ? " (lower gain margin " + String.format(Locale.ROOT, "%.4g", r.low()) + ")"
+                        : "")).orElse("none found for 1e-4 < k < 1e4 (or the loop's order is above "
+                                + LoopAnalysis.MAX_GAIN_RANGE_ORDER + ")"));
+        if (!stable) {
+            out.println("UNSTABLE: the sampled closed loop has a pole outside the unit circle; its margins, Ms, Mt"
+                    + " and delay margin say nothing about robustness.");
+        }
         crossings(out, "continuous", continuous);
         crossings(out, "sampled", s);
     }

@@ -2,6 +2,7 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.io.StringReader;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -10,14 +11,12 @@ import java.util.concurrent.Callable;
 
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.replay.Replay;
 import org.loopwright.sim.replay.ReplayDemo;
-import org.loopwright.sim.replay.ReplayResult;
 import org.loopwright.sim.replay.ReplaySummary;
-import org.loopwright.sim.replay.Trace;
-import org.loopwright.sim.replay.TraceFile;
+import org.loopwright.sim.replay.TraceReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -26,8 +25,9 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code replay}: runs a logged trace through a controller file, one update per row, writes the
- * trace's columns plus {@code output, proportional, integral, derivative, status} to a CSV file and
- * prints a summary. With neither {@code --controller} nor {@code --trace} it replays the built-in
+ * trace's columns (a logged {@code output} renamed {@code logged_output}) plus {@code output,
+ * proportional, integral, derivative, status} to a CSV file and prints a summary. The trace is
+ * streamed: a row is read, replayed and written before the next, so memory does not grow with it. With neither {@code --controller} nor {@code --trace} it replays the built-in
  * water bath demo. Exit code 0 on success, 2 with a file:line:column (or file: row, column)
  * message for bad input.
  */
@@ -37,7 +37,7 @@ import picocli.CommandLine.Spec;
 public final class ReplayCommand implements Callable<Integer> {
 
     /** Where the output goes when --out is not given: this file in the current directory. */
-    public static final String DEFAULT_OUT = "loopwright-replay/replay-output.csv";
+    public static final String DEFAULT_OUT = "replay-output.csv";
 
     @Spec
     private CommandSpec spec;
@@ -47,11 +47,12 @@ public final class ReplayCommand implements Callable<Integer> {
 
     @Option(names = "--trace", paramLabel = "TRACE.csv",
             description = "The trace: CSV with columns time,setpoint,measurement and optionally feedforward,"
-                    + " mode (auto|manual|track), manual_output, track_value; other columns are passed through.")
+                    + " mode (auto|manual|track), manual_output, track_value, output (the logged controller output,"
+                    + " written back as logged_output); other columns are passed through.")
     private Path traceFile;
 
     @Option(names = "--out", paramLabel = "OUT.csv", description = "Where to write the output CSV (default: "
-            + DEFAULT_OUT + ").")
+            + DEFAULT_OUT + " in the current directory).")
     private Path outFile;
 
     @Option(names = "--measured-period",
@@ -59,53 +60,51 @@ public final class ReplayCommand implements Callable<Integer> {
                     + " sample period); without it every update uses the configured sample period.")
     private boolean measuredPeriod;
 
+    @Option(names = "--start-from-logged-output",
+            description = {"Start the controller where the logged one was: the first row is replayed in tracking"
+                    + " mode on its logged output column, then the controller goes to automatic bumplessly.",
+                    "Needs an output column in the trace (kept in the result as logged_output)."})
+    private boolean startFromLoggedOutput;
+
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
         if ((controllerFile == null) != (traceFile == null)) {
-            err.println("replay needs both --controller and --trace, or neither for the built-in demo");
-            return LoopwrightCommand.BAD_INPUT;
+            throw new InputException("replay needs both --controller and --trace, or neither for the built-in demo",
+                    null);
         }
-        try {
-            boolean demo = controllerFile == null;
-            String controllerName = demo ? ReplayDemo.CONTROLLER_NAME : controllerFile.toString();
-            String traceName = demo ? ReplayDemo.TRACE_NAME : traceFile.toString();
-            if (demo) {
-                out.println("No --controller or --trace given: replaying the built-in demo, a water bath heater"
-                        + " (invented demo data).");
+        boolean demo = controllerFile == null;
+        String controllerName = demo ? ReplayDemo.CONTROLLER_NAME : controllerFile.toString();
+        String traceName = demo ? ReplayDemo.TRACE_NAME : traceFile.toString();
+        if (demo) {
+            out.println("No --controller or --trace given: replaying the built-in demo, a water bath heater"
+                    + " (invented demo data).");
+        }
+        ControllerSettings settings = demo
+                ? ControllerFile.read(YamlDocument.parse(controllerName, ReplayDemo.controllerText()), "")
+                : ControllerFile.read(controllerFile);
+        Path target = (outFile == null ? Path.of(DEFAULT_OUT) : outFile).toAbsolutePath();
+        if (Files.isDirectory(target)) {
+            throw InputException.option("--out", target, "must name a file, not a directory");
+        }
+        ReplaySummary summary;
+        try (TraceReader trace = demo ? TraceReader.of(traceName, new StringReader(ReplayDemo.traceText()))
+                : TraceReader.open(traceFile);
+                OutputStage stage = OutputStage.in(target.getParent(), "--out")) {
+            try (Writer writer = Files.newBufferedWriter(stage.directory().resolve(target.getFileName().toString()),
+                    StandardCharsets.UTF_8)) {
+                summary = Replay.stream(settings, trace, measuredPeriod, startFromLoggedOutput, writer);
             }
-            ControllerSettings settings = demo
-                    ? ControllerFile.read(YamlDocument.parse(controllerName, ReplayDemo.controllerText()), "")
-                    : ControllerFile.read(controllerFile);
-            Trace trace = demo ? TraceFile.parse(traceName, ReplayDemo.traceText()) : TraceFile.read(traceFile);
-            ReplayResult result = Replay.run(settings, trace, measuredPeriod);
-            Path target = (outFile == null ? Path.of(DEFAULT_OUT) : outFile).toAbsolutePath();
-            write(result, target);
-            out.println("Replayed " + traceName + " through " + controllerName + " ("
-                    + (measuredPeriod ? "measured periods from the time column"
-                            : "fixed period " + settings.samplePeriodSeconds() + " s") + ")");
-            ReplaySummary.of(result).lines().forEach(out::println);
-            out.println("Wrote " + result.rowCount() + " rows to " + target);
-            out.flush();
-            return 0;
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+            stage.commit();
         }
+        out.println("Replayed " + traceName + " through " + controllerName + " ("
+                + (measuredPeriod ? "measured periods from the time column"
+                        : "fixed period " + settings.samplePeriodSeconds() + " s")
+                + (startFromLoggedOutput ? ", started from the logged output" : "") + ")");
+        summary.lines().forEach(out::println);
+        out.println("Wrote " + summary.rows() + " rows to " + target);
+        out.flush();
+        return 0;
     }
 
-    private static void write(ReplayResult result, Path target) {
-        try {
-            Files.createDirectories(target.getParent());
-        } catch (IOException e) {
-            throw InputFileException.whole(target.getParent().toString(), "cannot be created (" + e + ")", e);
-        }
-        try (Writer writer = Files.newBufferedWriter(target, StandardCharsets.UTF_8)) {
-            result.writeCsv(writer);
-        } catch (IOException e) {
-            throw InputFileException.whole(target.toString(), "cannot be written (" + e + ")", e);
-        }
-    }
 }

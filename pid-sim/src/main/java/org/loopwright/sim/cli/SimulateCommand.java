@@ -20,6 +20,7 @@ import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.report.TrajectoryCsv;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.simulate.Divergence;
 import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 
@@ -82,6 +83,10 @@ public final class SimulateCommand implements Callable<Integer> {
             return LoopwrightCommand.BAD_INPUT;
         }
         Trajectory trajectory = Simulation.run(scenario);
+        if (trajectory.diverged()) {
+            err.println(String.format(Locale.ROOT, "DIVERGED: the process output passed the divergence bound at t = %s s"
+                    + " and the run was stopped there (%s).", trajectory.divergedAtSeconds(), Divergence.RULE));
+        }
         ResponseMetrics metrics = ResponseMetrics.of(scenario, trajectory);
         Optional<LimitCycle> cycle = scenario.onOffController().isPresent()
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();

@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
@@ -28,6 +29,7 @@ import org.loopwright.pid.tuning.TuningRule;
 import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.tuning.TuningCandidate;
 import org.loopwright.sim.tuning.TuningEvaluation;
 
@@ -164,6 +166,13 @@ public final class TuneCommand implements Callable<Integer> {
                 throw new BadInput(inOptionTerms(e));
             }
             ControllerSettings base = fromModel ? baseSettings(model) : null;
+            if (fromModel && TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()
+                    > TuningEvaluation.MAX_SAMPLES) {
+                throw new BadInput(String.format(Locale.ROOT, "the model's time constants, --dead-time and"
+                        + " --sample-period must keep the check by simulation within %d samples a run: %.3g s at"
+                        + " h = %s s would be %.3g", TuningEvaluation.MAX_SAMPLES, TuningEvaluation.runSeconds(model),
+                        base.samplePeriodSeconds(), TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()));
+            }
             List<TuningResult> results = new ArrayList<>();
             if (fromModel) {
                 for (ModelRule r : rule == null ? ModelRule.values() : new ModelRule[] {modelRule(rule)}) {
@@ -189,6 +198,10 @@ public final class TuneCommand implements Callable<Integer> {
                 throw new BadInput(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
             }
             if (controllerOut != null) {
+                if (candidates.get(0).stable().orElse(true) == Boolean.FALSE) {
+                    throw new BadInput("--write-controller: " + candidates.get(0).tuning().rule().label()
+                            + " makes the sampled loop UNSTABLE at --sample-period " + samplePeriod + "; no file written");
+                }
                 write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
             }
             if (json) {
@@ -321,11 +334,11 @@ public final class TuneCommand implements Callable<Integer> {
     }
 
     /** Bad input found by the command itself, reported on stderr with exit code 2. */
-    static final class BadInput extends RuntimeException {
+    static final class BadInput extends InputException {
         private static final long serialVersionUID = 1L;
 
         BadInput(String message) {
-            super(message);
+            super(message, null);
         }
     }
 }

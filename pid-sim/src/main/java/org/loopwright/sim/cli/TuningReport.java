@@ -18,6 +18,7 @@ import org.loopwright.sim.frequency.GainCrossing;
 import org.loopwright.sim.frequency.PhaseCrossing;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseState;
 import org.loopwright.sim.tuning.TuningCandidate;
 
 /** Writes tuning candidates as text (one block, or a comparison table) and as JSON, for tune and autotune. */
@@ -48,6 +49,10 @@ final class TuningReport {
             out.println("  margins:  phase margin " + num(phaseMargin(m)) + " deg, gain margin " + num(gainMargin(m))
                     + ", Ms " + num(m.sensitivityPeak().value()) + " (" + loopKind(c) + " on the model)");
         }
+        c.sampled().ifPresent(sm -> out.println(sm.stable()
+                ? "  sampled loop: stable (closed-loop poles at h = " + num(c.settings().samplePeriodSeconds()) + " s)"
+                : "  sampled loop: UNSTABLE at h = " + num(c.settings().samplePeriodSeconds()) + " s (a closed-loop pole"
+                        + " at |z| = " + num(sm.largestPoleMagnitude()) + "): do not use these settings"));
         c.setpointResponse().ifPresent(r -> out.println("  setpoint step: rise time " + num(r.riseTimeSeconds())
                 + " s, settling time " + num(r.settlingTimeSeconds()) + " s, overshoot " + num(r.overshootPercent())
                 + " %, IAE " + num(r.iae())));
@@ -57,10 +62,10 @@ final class TuningReport {
 
     /** Every candidate in one table, then the rules that do not apply and why. */
     static void printTable(PrintWriter out, List<TuningCandidate> candidates, List<RuleNotApplicable> skipped) {
-        String format = "%-16s %-4s %10s %10s %10s %12s %9s %9s %10s %10s %10s%n";
+        String format = "%-16s %-4s %10s %10s %10s %12s %9s %9s %-8s %10s %10s %10s%n";
         String loop = candidates.stream().anyMatch(TuningCandidate::sampledMargins) ? "sampled " : "cont. ";
         out.printf(Locale.ROOT, format, "rule", "type", "gain", "Ti [s]", "Td [s]", loop + "PM", loop + "GM",
-                loop + "Ms", "overshoot%", "settle [s]", "load IAE");
+                loop + "Ms", "stable", "overshoot%", "settle [s]", "load IAE");
         for (TuningCandidate c : candidates) {
             IdealGains i = c.ideal();
             Optional<StabilityMargins> m = c.margins();
@@ -69,8 +74,14 @@ final class TuningReport {
                     c.tuning().type().name().toLowerCase(Locale.ROOT), num(i.gain()), num(i.integralTime()),
                     num(i.derivativeTime()), m.map(x -> num(phaseMargin(x))).orElse("-"),
                     m.map(x -> num(gainMargin(x))).orElse("-"), m.map(x -> num(x.sensitivityPeak().value())).orElse("-"),
-                    r.map(x -> num(x.overshootPercent())).orElse("-"), r.map(x -> num(x.settlingTimeSeconds())).orElse("-"),
+                    c.stable().map(s -> s ? "yes" : "UNSTABLE").orElse("-"),
+                    r.map(x -> step(x, x.overshootPercent())).orElse("-"),
+                    r.map(x -> step(x, x.settlingTimeSeconds())).orElse("-"),
                     c.loadResponse().map(x -> num(x.iae())).orElse("-"));
+        }
+        long unstable = candidates.stream().filter(c -> c.stable().orElse(true) == Boolean.FALSE).count();
+        if (unstable > 0) {
+            out.println("WARNING: " + unstable + " of these settings make the sampled loop UNSTABLE: do not use them.");
         }
         for (RuleNotApplicable s : skipped) {
             out.println("not applicable: " + s.rule().label() + " (" + s.type() + "): " + s.reason());
@@ -122,12 +133,18 @@ final class TuningReport {
         Json.number(node, "phase_margin_deg", m.map(TuningReport::phaseMargin).orElse(Double.NaN));
         Json.number(node, "gain_margin", m.map(TuningReport::gainMargin).orElse(Double.NaN));
         Json.number(node, "ms", m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));
+        if (c.stable().isPresent()) {
+            node.put("stable", c.stable().get());
+        } else {
+            node.putNull("stable");
+        }
         if (c.setpointResponse().isPresent()) {
             ResponseMetrics r = c.setpointResponse().get();
             ObjectNode s = node.putObject("setpoint_step");
             Json.number(s, "rise_time", r.riseTimeSeconds());
             Json.number(s, "settling_time", r.settlingTimeSeconds());
             Json.number(s, "overshoot_percent", r.overshootPercent());
+            s.put("response", r.state().name().toLowerCase(Locale.ROOT).replace('_', '-'));
             Json.number(s, "iae", r.iae());
         } else {
             node.putNull("setpoint_step");
@@ -157,6 +174,12 @@ final class TuningReport {
     /** The smallest gain margin, infinity when the phase never reaches −180°. */
     static double gainMargin(StabilityMargins m) {
         return m.phaseCrossover().map(PhaseCrossing::gainMargin).orElse(Double.POSITIVE_INFINITY);
+    }
+
+    /** A step figure, or why there is none ("not settled", "DIVERGED"). */
+    private static String step(ResponseMetrics r, double value) {
+        return Double.isNaN(value) && r.state() != ResponseState.SETTLED && r.state() != ResponseState.NO_STEP
+                ? r.state().words() : num(value);
     }
 
     static String num(double value) {

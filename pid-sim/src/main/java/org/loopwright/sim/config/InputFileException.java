@@ -7,12 +7,12 @@ package org.loopwright.sim.config;
  * <pre>
  *   bath.yaml:4:1: gain must be finite and &gt;= 0: gain=-2
  *   trace.csv: row 7, column 'measurement': must be a number, blank or nan: measurement=abc
- *   trace.csv: cannot be read: NoSuchFileException
+ *   trace.csv: cannot be read (no such file or directory)
  * </pre>
  * Lines, columns and CSV rows count from 1, as an editor or a spreadsheet shows them (the header
  * of a CSV file is row 1). The command line turns this exception into exit code 2.
  */
-public final class InputFileException extends RuntimeException {
+public final class InputFileException extends InputException {
 
     private static final long serialVersionUID = 1L;
 

@@ -4,9 +4,7 @@ import java.io.IOException;
 import java.io.Reader;
 import java.io.StringReader;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AccessDeniedException;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -53,15 +51,38 @@ public final class InputText {
                         + MAX_FILE_BYTES + " bytes");
             }
             return Files.readString(file, StandardCharsets.UTF_8);
-        } catch (NoSuchFileException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (no such file)", e);
-        } catch (AccessDeniedException e) {
-            throw InputFileException.whole(file.toString(), "cannot be read (permission denied)", e);
         } catch (IOException | RuntimeException e) {
             if (e instanceof InputFileException known) {
                 throw known;
             }
-            throw InputFileException.whole(file.toString(), "cannot be read (" + e + ")", e);
+            throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
+        }
+    }
+
+    /**
+     * A reader of the file's UTF-8 text, for reading a large file a row at a time.
+     *
+     * @throws InputFileException naming the file when it cannot be opened
+     */
+    public static Reader open(Path file) {
+        try {
+            return Files.newBufferedReader(file, StandardCharsets.UTF_8);
+        } catch (IOException | RuntimeException e) {
+            throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
+        }
+    }
+
+    /**
+     * A parser of CSV text in the harness's one dialect, reading rows as they are asked for.
+     *
+     * @param fileName how messages name the source
+     * @throws InputFileException when the text cannot be read
+     */
+    public static CSVParser csvParser(String fileName, Reader reader) {
+        try {
+            return CSVParser.builder().setReader(reader).setFormat(CSV).get();
+        } catch (IOException | RuntimeException e) {
+            throw InputFileException.whole(fileName, "cannot be read (" + IoWords.of(e) + ")", e);
         }
     }
 
@@ -93,7 +114,14 @@ public final class InputText {
         return rows;
     }
 
-    private static List<String> withinLimits(String fileName, long row, List<String> cells) {
+    /**
+     * The cells of a CSV row, checked against {@link #MAX_CELLS_PER_ROW} and {@link #MAX_CELL_CHARS}
+     * (for readers that take a file a row at a time).
+     *
+     * @param row the row's number, the header being row 1
+     * @throws InputFileException naming the row when a limit is passed
+     */
+    public static List<String> withinLimits(String fileName, long row, List<String> cells) {
         if (cells.size() > MAX_CELLS_PER_ROW) {
             throw InputFileException.whole(fileName, "row " + row + " has " + cells.size()
                     + " cells; the limit is " + MAX_CELLS_PER_ROW);

@@ -19,6 +19,8 @@ import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.pid.tuning.ModelRule;
+import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
@@ -27,7 +29,6 @@ import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 import org.loopwright.sim.sweep.Sweep;
 import org.loopwright.sim.sweep.SweepResult;
-import org.loopwright.sim.tuning.SampledLoop;
 
 /**
  * The design procedure: candidates from every published rule that applies to the model, PI and PID
@@ -191,7 +192,8 @@ public final class Design {
         Scenario scenario = DesignExperiment.scenario(text);
         ControllerSettings simulated = scenario.controller().orElseThrow();
         TransferFunction plant = scenario.linearPlant().orElseThrow();
-        SampledMargins margins = SampledLoop.margins(plant, simulated, scenario.sensor().delaySamples());
+        SampledMargins margins = LoopAnalysis.sampled(new SampledLoop(plant, simulated, simulated.samplePeriodSeconds(),
+                scenario.sensor().delaySamples()));
         Optional<Trajectory> run = Optional.empty();
         Optional<ResponseMetrics> metrics = Optional.empty();
         double loadIae = Double.NaN;
@@ -220,8 +222,8 @@ public final class Design {
                 try {
                     ControllerSettings variant = simulated.toBuilder().integralMethod(integral).derivativeMethod(d)
                             .build();
-                    SampledMargins m = SampledLoop.margins(model.transferFunction(), variant,
-                            spec.sensorDelaySamples());
+                    SampledMargins m = LoopAnalysis.sampled(new SampledLoop(model.transferFunction(), variant,
+                            variant.samplePeriodSeconds(), spec.sensorDelaySamples()));
                     rows.add(new DiscretisationCheck(integral, derivative ? d : null, chosen,
                             m.margins().gainCrossover().map(g -> g.phaseMarginDegrees()).orElse(Double.NaN),
                             m.margins().sensitivityPeak().value(), m.stable(), ""));

@@ -85,10 +85,8 @@ public final class DesignPlots {
     }
 
     private static List<Path> loopPlots(Candidate c, Path directory) throws IOException {
-        TransferFunction plant = c.scenario().linearPlant().orElseThrow();
         double h = c.device().samplePeriodSeconds();
-        FrequencyResponse loop = LoopAnalysis.sampledLoop(plant.withDeadTime(plant.deadTimeSeconds()
-                + c.scenario().sensor().delaySamples() * h), c.scenario().controller().orElseThrow(), h);
+        FrequencyResponse loop = LoopAnalysis.sampledLoop(c.scenario().sampledLoop().orElseThrow());
         double crossover = c.margins().margins().gainCrossover().map(g -> g.frequencyRadPerSecond())
                 .orElse(c.margins().margins().sensitivityPeak().frequencyRadPerSecond());
         if (!(crossover > 0.0)) {

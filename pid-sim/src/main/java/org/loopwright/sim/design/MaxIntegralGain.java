@@ -14,9 +14,10 @@ import org.hipparchus.optim.univariate.UnivariateObjectiveFunction;
 import org.hipparchus.optim.univariate.UnivariatePointValuePair;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.plant.TransferFunction;
-import org.loopwright.sim.tuning.SampledLoop;
 
 /**
  * The optimised design: the largest integral gain Ki whose sampled loop is stable (every closed-loop
@@ -95,7 +96,9 @@ public final class MaxIntegralGain {
 
     /** The sampled loop's margins and poles for these gains. */
     public SampledMargins margins(double kp, double ki) {
-        return SampledLoop.margins(plant, settings(kp, ki), sensorDelaySamples);
+        ControllerSettings settings = settings(kp, ki);
+        return LoopAnalysis.sampled(new SampledLoop(plant, settings, settings.samplePeriodSeconds(),
+                sensorDelaySamples));
     }
 
     /** The settings with these gains (parallel form, Kd = Kp·Td). */

@@ -2,6 +2,8 @@ package org.loopwright.sim.frequency;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
 
 import org.hipparchus.complex.Complex;
 import org.loopwright.pid.ControllerSettings;
@@ -15,7 +17,8 @@ import org.loopwright.sim.plant.TransferFunction;
  * <p>The loop is L = σ·C·P with σ = +1 for reverse action and −1 for direct action, so a direct-acting
  * controller on a plant of negative gain gives an ordinary loop. The sampled loop is the discrete
  * controller C(z) from {@link ControllerSettings#discretePid(double)} (the coefficients the running
- * controller uses) in series with the plant's {@link ZeroOrderHoldEquivalent}, evaluated at
+ * controller uses) in series with the plant's {@link ZeroOrderHoldEquivalent} and the sensor's whole
+ * samples of delay z^(−N) — the complete {@link SampledLoop} as the simulation runs it — evaluated at
  * z = e^{jωh} for 0 &lt; ω &le; π/h; no computation delay is assumed (the output is applied at the
  * sample it was computed from).
  *
@@ -41,6 +44,8 @@ public final class LoopAnalysis {
     /** The band ends where |L| has fallen below this (a phase crossover there has a gain margin above 60 dB). */
     private static final double NEGLIGIBLE_LOOP_GAIN = 1e-3;
     private static final int POINTS_PER_DECADE = 200;
+    /** The largest closed-loop order whose stabilising gain range is searched (about 160 pole computations). */
+    public static final int MAX_GAIN_RANGE_ORDER = 200;
 
     private LoopAnalysis() {
     }
@@ -50,21 +55,87 @@ public final class LoopAnalysis {
         return MarginSearch.search(continuousLoop(plant, settings), continuousBand(plant, settings));
     }
 
-    /** The margins and closed-loop poles of the loop sampled at the settings' own period and methods. */
-    public static SampledMargins sampled(TransferFunction plant, ControllerSettings settings) {
-        return sampled(plant, settings, settings.samplePeriodSeconds());
+    /**
+     * The margins and closed-loop poles of the sampled loop: controller, plant and every sample of
+     * sensor delay in it.
+     *
+     * @throws InvalidSettingException if the forward-Euler derivative is unstable at the loop's period
+     */
+    public static SampledMargins sampled(SampledLoop loop) {
+        PulseTransferFunction pulse = sampledLoop(loop);
+        StabilityMargins margins = MarginSearch.search(pulse, sampledBand(loop, pulse));
+        return new SampledMargins(margins, closedLoopPoles(pulse));
     }
 
     /**
-     * The margins and closed-loop poles of the loop sampled at {@code periodSeconds}, with the
-     * settings' integral and derivative methods.
-     *
-     * @throws InvalidSettingException if the forward-Euler derivative is unstable at this period
+     * The range of loop-gain factors k over which the sampled closed loop is stable, from the
+     * closed-loop poles of A(z)·z^d + k·B(z): the interval around k = 1 when the loop is stable, else the
+     * stabilising interval nearest to it; empty when no factor in [10⁻⁴, 10⁴] stabilises the loop, or the
+     * loop's order exceeds {@value #MAX_GAIN_RANGE_ORDER} (each trial costs a pole computation). The ends
+     * are found on a grid of ten factors a decade and refined by bisection to 10⁻⁹ relative.
      */
-    public static SampledMargins sampled(TransferFunction plant, ControllerSettings settings, double periodSeconds) {
-        PulseTransferFunction loop = sampledLoop(plant, settings, periodSeconds);
-        StabilityMargins margins = MarginSearch.search(loop, sampledBand(plant, settings, loop));
-        return new SampledMargins(margins, closedLoopPoles(loop));
+    public static Optional<GainRange> stableGainRange(SampledLoop loop) {
+        PulseTransferFunction pulse = sampledLoop(loop);
+        if (pulse.closedLoopCharacteristic().degree() > MAX_GAIN_RANGE_ORDER) {
+            return Optional.empty();
+        }
+        int decades = 4;
+        int perDecade = 10;
+        int n = 2 * decades * perDecade + 1;
+        double[] factor = new double[n];
+        boolean[] stable = new boolean[n];
+        int nominal = decades * perDecade;
+        for (int i = 0; i < n; i++) {
+            factor[i] = Math.pow(10.0, (double) (i - nominal) / perDecade);
+            stable[i] = stableAt(pulse, factor[i]);
+        }
+        int centre = -1;
+        for (int distance = 0; distance <= nominal && centre < 0; distance++) {
+            if (stable[nominal - distance]) {
+                centre = nominal - distance;
+            } else if (stable[nominal + distance]) {
+                centre = nominal + distance;
+            }
+        }
+        if (centre < 0) {
+            return Optional.empty();
+        }
+        int first = centre;
+        while (first > 0 && stable[first - 1]) {
+            first--;
+        }
+        int last = centre;
+        while (last + 1 < n && stable[last + 1]) {
+            last++;
+        }
+        double low = first == 0 ? 0.0 : boundary(pulse, factor[first - 1], factor[first]);
+        double high = last == n - 1 ? Double.POSITIVE_INFINITY : boundary(pulse, factor[last], factor[last + 1]);
+        return Optional.of(new GainRange(low, high));
+    }
+
+    /** The stability boundary between two factors of which exactly one is stable, by bisection. */
+    private static double boundary(PulseTransferFunction pulse, double a, double b) {
+        boolean stableAtA = stableAt(pulse, a);
+        double lo = a;
+        double hi = b;
+        while (hi - lo > 1e-9 * hi) {
+            double mid = Math.sqrt(lo * hi);
+            if (stableAt(pulse, mid) == stableAtA) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return 0.5 * (lo + hi);
+    }
+
+    private static boolean stableAt(PulseTransferFunction pulse, double factor) {
+        for (Complex pole : closedLoopPoles(pulse.times(factor))) {
+            if (pole.norm() >= 1.0) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /** The continuous loop σ·C(jω)·P(jω). */
@@ -83,12 +154,25 @@ public final class LoopAnalysis {
         return PulseTransferFunction.of(settings.discretePid(periodSeconds));
     }
 
-    /** The sampled loop σ·C(z)·P_zoh(z). */
-    public static PulseTransferFunction sampledLoop(TransferFunction plant, ControllerSettings settings,
-            double periodSeconds) {
-        return discreteController(settings, periodSeconds)
-                .times(ZeroOrderHoldEquivalent.of(plant, periodSeconds))
-                .times(settings.action().sign());
+    /**
+     * The sampled loop σ·C(z)·P_zoh(z)·z^(−N), N the samples of sensor delay.
+     *
+     * @throws IllegalArgumentException if the loop has more than {@link SampledLoop#MAX_DELAY_SAMPLES} of delay
+     */
+    public static PulseTransferFunction sampledLoop(SampledLoop loop) {
+        double h = loop.periodSeconds();
+        if (loop.delaySamples() > SampledLoop.MAX_DELAY_SAMPLES) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "the sampled loop's delay must be at most %d"
+                    + " samples for analysis: dead time %s s and %d sensor samples at h = %s s give %.4g",
+                    SampledLoop.MAX_DELAY_SAMPLES, loop.plant().deadTimeSeconds(), loop.sensorDelaySamples(), h,
+                    loop.delaySamples()));
+        }
+        PulseTransferFunction sensor = new PulseTransferFunction(PulseTransferFunction.constant(1.0),
+                PulseTransferFunction.constant(1.0), loop.sensorDelaySamples(), h);
+        return discreteController(loop.controller(), h)
+                .times(ZeroOrderHoldEquivalent.of(loop.plant(), h))
+                .times(sensor)
+                .times(loop.controller().action().sign());
     }
 
     /** The closed-loop poles of unity negative feedback around {@code loop}: roots of A(z)·z^d + B(z). */
@@ -118,12 +202,11 @@ public final class LoopAnalysis {
         return new FrequencyBand(low, high, POINTS_PER_DECADE, plant.deadTimeSeconds(), false);
     }
 
-    private static FrequencyBand sampledBand(TransferFunction plant, ControllerSettings settings,
-            PulseTransferFunction loop) {
-        double nyquist = loop.nyquistRadPerSecond();
-        double low = Math.min(continuousBand(plant, settings).lowestRadPerSecond(), nyquist * 1e-4);
+    private static FrequencyBand sampledBand(SampledLoop loop, PulseTransferFunction pulse) {
+        double nyquist = pulse.nyquistRadPerSecond();
+        double low = Math.min(continuousBand(loop.plant(), loop.controller()).lowestRadPerSecond(), nyquist * 1e-4);
         // z^(−d) and the hold's fractional delay turn the phase at about (d + 1)·h seconds
-        double delaySeconds = (loop.delaySamples() + 1) * loop.periodSeconds();
+        double delaySeconds = (pulse.delaySamples() + 1) * pulse.periodSeconds();
         return new FrequencyBand(low, nyquist, POINTS_PER_DECADE, delaySeconds, true);
     }
 

@@ -19,6 +19,9 @@ public final class IdentificationPlot {
     private IdentificationPlot() {
     }
 
+    /** The most samples plotted per series. */
+    static final int PLOT_POINTS = 2_000;
+
     /**
      * Writes the plot.
      *
@@ -29,9 +32,15 @@ public final class IdentificationPlot {
      * @throws IOException when the file cannot be written
      */
     public static Path writePng(Path file, StepTest test, IdentifiedModel model) throws IOException {
-        double[] t = test.timesSeconds();
-        double[] fitted = new double[t.length];
-        for (int i = 0; i < t.length; i++) {
+        // every stride-th sample: a marker per sample of a long record costs seconds and shows nothing more
+        int stride = Math.max(1, (test.length() + PLOT_POINTS - 1) / PLOT_POINTS);
+        int n = (test.length() + stride - 1) / stride;
+        double[] t = new double[n];
+        double[] measuredOutput = new double[n];
+        double[] fitted = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = test.timesSeconds()[i * stride];
+            measuredOutput[i] = test.outputs()[i * stride];
             fitted[i] = model.responseAt(t[i]);
         }
         String title = String.format(Locale.ROOT, "%s fit of %s: RMSE %.4g, R² %.4f", model.kind().label(),
@@ -40,7 +49,7 @@ public final class IdentificationPlot {
                 .yAxisTitle("output").build();
         chart.getStyler().setMarkerSize(3);
         chart.getStyler().setXAxisTickMarkSpacingHint(120);
-        XYSeries measured = chart.addSeries("measured output", t, test.outputs());
+        XYSeries measured = chart.addSeries("measured output", t, measuredOutput);
         measured.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
         measured.setMarker(SeriesMarkers.CIRCLE);
         chart.addSeries("fitted " + model.kind().label(), t, fitted).setMarker(SeriesMarkers.NONE);

@@ -8,8 +8,16 @@ package org.loopwright.sim.identify;
  * @param timesSeconds strictly increasing sample times
  * @param inputs       the input at each time
  * @param outputs      the output at each time
+ * @param rowsInFile   the data rows the file had
+ * @param keptEvery    1 when every row was kept; k when a long record was thinned to every k-th row
  */
-public record StepTest(String fileName, double[] timesSeconds, double[] inputs, double[] outputs) {
+public record StepTest(String fileName, double[] timesSeconds, double[] inputs, double[] outputs, long rowsInFile,
+        int keptEvery) {
+
+    /** Every row of a record of this length kept. */
+    public StepTest(String fileName, double[] timesSeconds, double[] inputs, double[] outputs) {
+        this(fileName, timesSeconds, inputs, outputs, timesSeconds.length, 1);
+    }
 
     /** Checks that the three arrays have one length. */
     public StepTest {

@@ -1,10 +1,19 @@
 package org.loopwright.sim.identify;
 
+import java.io.IOException;
+import java.io.Reader;
+import java.io.StringReader;
+import java.io.UncheckedIOException;
 import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.Iterator;
 import java.util.List;
 
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.InputText;
+import org.loopwright.sim.config.IoWords;
 
 /**
  * Reads a step test from CSV (Apache Commons CSV): a header row naming the columns {@code time}
@@ -18,6 +27,11 @@ public final class StepTestFile {
 
     /** The columns a step test must have. */
     public static final List<String> COLUMNS = List.of("time", "input", "output");
+    /**
+     * A record is fitted on at most twice this many rows: a longer one is thinned as it is read (the
+     * fit's work and memory stay bounded; the timing resolution becomes the stride times the period).
+     */
+    public static final int FIT_ROWS = 10_000;
     /** Fewest data rows that can show a step and a response. */
     public static final int MIN_ROWS = 10;
 
@@ -25,12 +39,18 @@ public final class StepTestFile {
     }
 
     /**
-     * Reads a step-test file; messages name it as given.
+     * Reads a step-test file a row at a time; messages name it as given. A record longer than
+     * {@link #FIT_ROWS} rows is thinned as it is read to every k-th row (k a power of two), so memory
+     * stays bounded whatever the file's length.
      *
      * @throws InputFileException when the file cannot be read or a header or cell is not allowed
      */
     public static StepTest read(Path file) {
-        return parse(file.toString(), InputText.read(file));
+        try (Reader reader = InputText.open(file)) {
+            return read(file.toString(), reader);
+        } catch (IOException e) {
+            throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
+        }
     }
 
     /**
@@ -40,42 +60,144 @@ public final class StepTestFile {
      * @throws InputFileException when a header or cell is not allowed
      */
     public static StepTest parse(String fileName, String text) {
-        List<List<String>> rows = InputText.csvRows(fileName, text, COLUMNS);
-        List<String> header = rows.get(0);
-        int[] index = new int[COLUMNS.size()];
-        for (int c = 0; c < index.length; c++) {
-            index[c] = header.indexOf(COLUMNS.get(c));
-            if (index[c] < 0) {
-                throw InputFileException.inRow(fileName, 1, COLUMNS.get(c), "required column is missing; the header has "
-                        + String.join(", ", header) + "; required columns: " + String.join(", ", COLUMNS));
+        return read(fileName, new StringReader(text));
+    }
+
+    private static StepTest read(String fileName, Reader reader) {
+        try (CSVParser parser = InputText.csvParser(fileName, reader)) {
+            Iterator<CSVRecord> records = parser.iterator();
+            if (!records.hasNext()) {
+                throw InputFileException.whole(fileName, "has no header row; required columns: "
+                        + String.join(", ", COLUMNS));
             }
-        }
-        int n = rows.size() - 1;
-        if (n < MIN_ROWS) {
-            throw InputFileException.whole(fileName, "has " + n + " data rows; a step test needs at least " + MIN_ROWS);
-        }
-        double[][] columns = new double[index.length][n];
-        for (int i = 0; i < n; i++) {
-            List<String> row = rows.get(i + 1);
+            List<String> header = InputText.withinLimits(fileName, 1, records.next().toList());
+            int[] index = new int[COLUMNS.size()];
             for (int c = 0; c < index.length; c++) {
-                String name = COLUMNS.get(c);
-                if (index[c] >= row.size()) {
-                    throw InputFileException.inRow(fileName, i + 2, name, "the row has " + row.size()
-                            + " cells; the header has " + header.size() + " columns");
+                index[c] = header.indexOf(COLUMNS.get(c));
+                if (index[c] < 0) {
+                    throw InputFileException.inRow(fileName, 1, COLUMNS.get(c), "required column is missing; the"
+                            + " header has " + String.join(", ", header) + "; required columns: "
+                            + String.join(", ", COLUMNS));
                 }
-                String cell = row.get(index[c]);
-                double value = parse(cell);
-                if (!Double.isFinite(value)) {
-                    throw InputFileException.inRow(fileName, i + 2, name, "must be a finite number: " + name + "=" + cell);
-                }
-                if (c == 0 && i > 0 && value <= columns[0][i - 1]) {
-                    throw InputFileException.inRow(fileName, i + 2, name, "must increase from row to row: time="
-                            + cell + " after " + rows.get(i).get(index[0]));
-                }
-                columns[c][i] = value;
             }
+            Thinned kept = new Thinned();
+            double[] values = new double[index.length];
+            double previousTime = Double.NEGATIVE_INFINITY;
+            String previousCell = "";
+            while (records.hasNext()) {
+                CSVRecord row = records.next();
+                long number = row.getRecordNumber();
+                InputText.withinLimits(fileName, number, row.toList());
+                for (int c = 0; c < index.length; c++) {
+                    String name = COLUMNS.get(c);
+                    if (index[c] >= row.size()) {
+                        throw InputFileException.inRow(fileName, number, name, "the row has " + row.size()
+                                + " cells; the header has " + header.size() + " columns");
+                    }
+                    String cell = row.get(index[c]);
+                    double value = parse(cell);
+                    if (!Double.isFinite(value)) {
+                        throw InputFileException.inRow(fileName, number, name, "must be a finite number: " + name
+                                + "=" + cell);
+                    }
+                    if (c == 0 && value <= previousTime) {
+                        throw InputFileException.inRow(fileName, number, name, "must increase from row to row: time="
+                                + cell + " after " + previousCell);
+                    }
+                    values[c] = value;
+                }
+                previousTime = values[0];
+                previousCell = row.get(index[0]);
+                kept.add(values[0], values[1], values[2]);
+            }
+            if (kept.rows < MIN_ROWS) {
+                throw InputFileException.whole(fileName, "has " + kept.rows + " data rows; a step test needs at least "
+                        + MIN_ROWS);
+            }
+            return kept.toStepTest(fileName);
+        } catch (IOException | UncheckedIOException | IllegalStateException e) {
+            Throwable cause = e.getCause() != null ? e.getCause() : e;
+            throw InputFileException.whole(fileName, "not valid CSV (" + IoWords.of(cause) + ")", e);
         }
-        return new StepTest(fileName, columns[0], columns[1], columns[2]);
+    }
+
+    /**
+     * The rows kept of a record read a row at a time: all of them up to 2·{@link #FIT_ROWS}; beyond,
+     * every other kept row is dropped and the stride doubles, so at most 2·FIT_ROWS are held. A row at
+     * which the input changes, and the row before it, are pinned and never dropped (up to FIT_ROWS/2 of
+     * them), so the step's time stays exact.
+     */
+    private static final class Thinned {
+        double[] time = new double[1024];
+        double[] input = new double[1024];
+        double[] output = new double[1024];
+        boolean[] pinned = new boolean[1024];
+        int size;
+        int pinnedCount;
+        int stride = 1;
+        long rows;
+        double lastTime;
+        double lastInput;
+        double lastOutput;
+        boolean lastKept;
+
+        void add(double t, double u, double y) {
+            long index = rows++;
+            boolean change = index > 0 && u != lastInput && pinnedCount < FIT_ROWS / 2;
+            if (change && !lastKept) {
+                append(lastTime, lastInput, lastOutput, true);
+            }
+            boolean keep = change || index % stride == 0;
+            if (keep) {
+                append(t, u, y, change);
+            }
+            lastTime = t;
+            lastInput = u;
+            lastOutput = y;
+            lastKept = keep;
+        }
+
+        private void append(double t, double u, double y, boolean pin) {
+            if (size == 2 * FIT_ROWS) {
+                compact();
+            }
+            if (size == time.length) {
+                int capacity = Math.min(2 * size, 2 * FIT_ROWS);
+                time = Arrays.copyOf(time, capacity);
+                input = Arrays.copyOf(input, capacity);
+                output = Arrays.copyOf(output, capacity);
+                pinned = Arrays.copyOf(pinned, capacity);
+            }
+            time[size] = t;
+            input[size] = u;
+            output[size] = y;
+            pinned[size] = pin;
+            pinnedCount += pin ? 1 : 0;
+            size++;
+        }
+
+        /** Drops every other row that is not pinned and doubles the stride. */
+        private void compact() {
+            int kept = 0;
+            boolean drop = false;
+            for (int i = 0; i < size; i++) {
+                if (pinned[i] || !drop) {
+                    time[kept] = time[i];
+                    input[kept] = input[i];
+                    output[kept] = output[i];
+                    pinned[kept] = pinned[i];
+                    kept++;
+                }
+                drop = !pinned[i] && !drop;
+            }
+            size = kept;
+            stride *= 2;
+        }
+
+        StepTest toStepTest(String fileName) {
+            return new StepTest(fileName, Arrays.copyOf(time, size), Arrays.copyOf(input, size),
+                    Arrays.copyOf(output, size), rows, stride);
+        }
     }
 
     private static double parse(String cell) {

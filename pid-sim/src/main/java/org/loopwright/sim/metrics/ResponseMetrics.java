@@ -6,29 +6,35 @@ import org.loopwright.sim.simulate.Trajectory;
 /**
  * The figures of merit of a closed-loop response, measured on the true process output (before the
  * sensor's noise and dropouts) over a window that starts at a setpoint change. A figure that does
- * not apply is NaN (written as null in JSON): the step figures when the response does not move,
- * rise time when it never reaches 90 %, settling time when it has not settled by the window's end,
- * peak time when there is no overshoot.
+ * not apply is NaN (written as null in JSON), and {@link #state()} says why: the step figures need a
+ * setpoint change in the window ({@link ResponseState#NO_STEP}) and a response that has settled
+ * ({@link ResponseState#NOT_SETTLED}); a run that diverged ({@link ResponseState#DIVERGED}) has no figures
+ * at all. Rise time is also NaN when the output never reaches 90 %, peak time when there is no overshoot.
  *
  * <p>Definitions (Åström &amp; Murray, <i>Feedback Systems</i>, 2nd ed., 2021, §5.3 for the step
  * figures; the integral criteria as in Åström &amp; Hägglund, <i>Advanced PID Control</i>, 2006, §4.4):
- * with y₀ the output at the window's start and y∞ its value at the window's end,
+ * with y₀ the output at the window's start, r the setpoint at the window's end, Δ = r − y₀ the step
+ * (the setpoint change when the loop starts at rest on its old setpoint) and y∞ the output at the
+ * window's end,
  * <ul>
+ * <li>settled: the output stays within ±2 % of |Δ| around y∞ during the window's last
+ *     {@value #FINAL_SHARE_PERCENT} %;</li>
  * <li>rise time: from reaching y₀ + 10 % to y₀ + 90 % of y∞ − y₀ (linear interpolation between samples);</li>
- * <li>settling time: from the window's start until the output stays within ±2 % of |y∞ − y₀| around y∞
- *     (resolved to the sample); not settled (NaN) when it is still outside the band during the window's
- *     last {@value #FINAL_SHARE_PERCENT} %;</li>
- * <li>overshoot: the largest excursion beyond y∞ in percent of |y∞ − y₀|; peak time: when it occurs;</li>
- * <li>steady-state error: r − y at the window's end;</li>
+ * <li>settling time: from the window's start until the output stays within that band (resolved to the sample);</li>
+ * <li>overshoot: {@value #OVERSHOOT_DEFINITION}; peak time: when that peak occurs. A loop that settles
+ *     away from the setpoint (P control, a limit) is measured against the setpoint too: a response that
+ *     stops short shows 0 %, and its steady-state error says by how much;</li>
+ * <li>steady-state error: r − y∞;</li>
  * <li>IAE, ISE, ITAE: ∫|e|dt, ∫e²dt, ∫(t − t₀)|e|dt with e = r − y, from the window's start to the end of
  *     the run, each sample's error held until the next sample;</li>
- * <li>total variation: Σ|u(k) − u(k−1)| from the window's start; saturated fraction: the share of samples
- *     whose output was limited by the controller's range or the actuator.</li>
+ * <li>total variation: Σ|u(k) − u(k−1)| from the window's first sample k₀ on, the move at k₀ included
+ *     (u before the run's first sample is 0, the output of the loop at rest); saturated fraction: the
+ *     share of samples whose output was limited by the controller's range or the actuator.</li>
  * </ul>
  *
  * @param riseTimeSeconds     10–90 % rise time
  * @param settlingTimeSeconds 2 % settling time
- * @param overshootPercent    overshoot in percent
+ * @param overshootPercent    overshoot in percent of the step
  * @param peakTimeSeconds     time of the overshoot's peak after the window's start
  * @param steadyStateError    r − y at the window's end, process units
  * @param iae                 integral of absolute error, units·s
@@ -36,10 +42,15 @@ import org.loopwright.sim.simulate.Trajectory;
  * @param itae                integral of time-weighted absolute error, units·s²
  * @param totalVariation      total variation of the controller output, output units
  * @param saturatedFraction   share of samples in saturation, 0 to 1
+ * @param state               whether the step figures apply
  */
 public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds, double overshootPercent,
         double peakTimeSeconds, double steadyStateError, double iae, double ise, double itae, double totalVariation,
-        double saturatedFraction) {
+        double saturatedFraction, ResponseState state) {
+
+    /** The definition of overshoot in words, for help texts and reports. */
+    public static final String OVERSHOOT_DEFINITION = "the largest excursion of the output beyond the new setpoint,"
+            + " in percent of the step from the output at the setpoint change to the new setpoint";
 
     /** The share of the step that counts as settled (2 %). */
     public static final double SETTLING_BAND = 0.02;
@@ -65,9 +76,10 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
     public static ResponseMetrics of(Trajectory trajectory, double startSeconds, double endSeconds) {
         int first = firstAtOrAfter(trajectory, startSeconds);
         int n = trajectory.length();
-        if (first >= n) {
+        if (trajectory.diverged() || first >= n) {
             return new ResponseMetrics(Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-                    Double.NaN, Double.NaN, Double.NaN, Double.NaN);
+                    Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                    trajectory.diverged() ? ResponseState.DIVERGED : ResponseState.NO_STEP);
         }
         int last = first;
         while (last + 1 < n && trajectory.time(last + 1) < endSeconds) {
@@ -75,27 +87,34 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
         }
         double t0 = trajectory.time(first);
         double y0 = trajectory.process(first);
-        int tail = Math.max(1, (last - first + 1) * FINAL_SHARE_PERCENT / 100);
+        double target = trajectory.setpoint(last);
         double yEnd = trajectory.process(last);
-        double step = yEnd - y0;
-        double scale = Math.max(Math.abs(y0), Math.abs(yEnd));
-        boolean moved = Math.abs(step) > 1e-9 * Math.max(1.0, scale);
+        double step = target - y0;
+        double scale = Math.max(Math.abs(y0), Math.abs(target));
+        int tail = Math.max(1, (last - first + 1) * FINAL_SHARE_PERCENT / 100);
 
+        ResponseState state = ResponseState.NO_STEP;
         double rise = Double.NaN;
         double settling = Double.NaN;
         double overshoot = Double.NaN;
         double peakTime = Double.NaN;
-        if (moved) {
-            double t10 = crossing(trajectory, first, last, y0 + 0.1 * step, step);
-            double t90 = crossing(trajectory, first, last, y0 + 0.9 * step, step);
-            rise = t90 - t10;
-            settling = settlingTime(trajectory, first, last - tail + 1, last, yEnd,
-                    Math.abs(step) * SETTLING_BAND) - t0;
+        double steadyStateError = target - yEnd;
+        if (Math.abs(step) > 1e-9 * Math.max(1.0, scale)) {
+            settling = settlingTime(trajectory, first, last - tail + 1, last, yEnd, Math.abs(step) * SETTLING_BAND);
+            state = Double.isNaN(settling) ? ResponseState.NOT_SETTLED : ResponseState.SETTLED;
+        }
+        if (state == ResponseState.SETTLED) {
+            settling -= t0;
+            double moved = yEnd - y0;
+            if (Math.abs(moved) > 1e-9 * Math.max(1.0, scale)) {
+                rise = crossing(trajectory, first, last, y0 + 0.9 * moved, moved)
+                        - crossing(trajectory, first, last, y0 + 0.1 * moved, moved);
+            }
             double sign = Math.signum(step);
             double peak = 0.0;
             int peakAt = -1;
             for (int k = first; k <= last; k++) {
-                double beyond = sign * (trajectory.process(k) - yEnd);
+                double beyond = sign * (trajectory.process(k) - target);
                 if (beyond > peak) {
                     peak = beyond;
                     peakAt = k;
@@ -103,8 +122,9 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
             }
             overshoot = 100.0 * peak / Math.abs(step);
             peakTime = peakAt < 0 ? Double.NaN : trajectory.time(peakAt) - t0;
+        } else if (state == ResponseState.NOT_SETTLED) {
+            steadyStateError = Double.NaN;
         }
-        double steadyStateError = trajectory.setpoint(last) - yEnd;
 
         double iae = 0.0;
         double ise = 0.0;
@@ -117,13 +137,13 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
             itae += (trajectory.time(k) - t0) * Math.abs(e) * dt;
         }
         double variation = 0.0;
-        int saturated = trajectory.saturated(first) ? 1 : 0;
-        for (int k = first + 1; k < n; k++) {
-            variation += Math.abs(trajectory.output(k) - trajectory.output(k - 1));
+        int saturated = 0;
+        for (int k = first; k < n; k++) {
+            variation += Math.abs(trajectory.output(k) - (k == 0 ? 0.0 : trajectory.output(k - 1)));
             saturated += trajectory.saturated(k) ? 1 : 0;
         }
         return new ResponseMetrics(rise, settling, overshoot, peakTime, steadyStateError, iae, ise, itae, variation,
-                (double) saturated / (n - first));
+                (double) saturated / (n - first), state);
     }
 
     /**

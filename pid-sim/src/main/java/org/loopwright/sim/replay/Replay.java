@@ -1,8 +1,14 @@
 package org.loopwright.sim.replay;
 
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
+
+import org.apache.commons.csv.CSVFormat;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
+import org.loopwright.sim.config.InputFileException;
 
 /**
  * Runs a logged trace through a controller, one update per row, as the controller would have run
@@ -15,7 +21,12 @@ import org.loopwright.pid.PidController;
  * measured periods h(k) = time(k) − time(k−1) (the configured period for the first row); a period
  * that is not positive is a fault the controller handles by its policy, like a missing sample.
  *
- * <p>Thread-safe: stateless.
+ * <p>Started from the logged output (when the trace has an {@code output} column), the first row is
+ * replayed in tracking mode on that row's logged output, and the controller then goes to automatic
+ * bumplessly: its first output is the logged one, not the 0 of a controller at rest.
+ *
+ * <p>{@link #stream} reads a row, updates, writes a row: memory does not grow with the trace.
+ * Thread-safe: stateless.
  */
 public final class Replay {
 
@@ -23,53 +34,159 @@ public final class Replay {
     }
 
     /**
-     * Replays every row.
+     * Replays every row of a trace held in memory, from a controller at rest.
      *
      * @param measuredPeriod take each row's period from the {@code time} column
      */
     public static ReplayResult run(ControllerSettings settings, Trace trace, boolean measuredPeriod) {
         int rows = trace.rowCount();
         ReplayResult.Columns out = new ReplayResult.Columns(rows);
-        PidController controller = new PidController(settings);
-        controller.feedforwardOn(trace.hasFeedforward());
+        Engine engine = new Engine(settings, measuredPeriod, false, trace.hasFeedforward(), trace.hasTrackValue());
         for (int k = 0; k < rows; k++) {
-            applyInputs(controller, trace, k);
-            double period = measuredPeriod && k > 0
-                    ? trace.timeSeconds(k) - trace.timeSeconds(k - 1) : settings.samplePeriodSeconds();
-            if (measuredPeriod) {
-                controller.update(trace.setpoint(k), trace.measurement(k), period);
-            } else {
-                controller.update(trace.setpoint(k), trace.measurement(k));
-            }
-            out.output[k] = controller.output();
-            out.position[k] = controller.position();
-            out.proportional[k] = controller.proportionalTerm();
-            out.integral[k] = controller.integralTerm();
-            out.derivative[k] = controller.derivativeTerm();
-            out.status[k] = controller.fault();
-            out.periodSeconds[k] = period;
-            out.mode[k] = controller.mode();
+            engine.step(trace.row(k));
+            PidController c = engine.controller;
+            out.output[k] = c.output();
+            out.position[k] = c.position();
+            out.proportional[k] = c.proportionalTerm();
+            out.integral[k] = c.integralTerm();
+            out.derivative[k] = c.derivativeTerm();
+            out.status[k] = c.fault();
+            out.periodSeconds[k] = engine.period;
+            out.mode[k] = c.mode();
         }
         return new ReplayResult(settings, trace, measuredPeriod, out);
     }
 
-    private static void applyInputs(PidController controller, Trace trace, int k) {
-        Mode mode = trace.mode(k);
-        if (mode != null) {
-            switch (mode) {
-                case AUTOMATIC -> controller.switchToAutomatic();
-                case MANUAL -> controller.switchToManual();
-                case TRACKING -> controller.switchToTracking();
+    /**
+     * Replays a trace as it is read: each row is read, replayed and written to {@code out} (the
+     * trace's columns, the logged {@code output} renamed {@code logged_output}, then
+     * {@link TraceFile#OUTPUT_COLUMNS}) before the next is read.
+     *
+     * @param measuredPeriod      take each row's period from the {@code time} column
+     * @param startFromLoggedOutput start the controller from the first row's logged output
+     * @return the summary of the whole replay
+     * @throws InputFileException for a bad row, an empty trace, or a start from a logged output the trace lacks
+     */
+    public static ReplaySummary stream(ControllerSettings settings, TraceReader trace, boolean measuredPeriod,
+            boolean startFromLoggedOutput, Appendable out) throws IOException {
+        if (startFromLoggedOutput && !trace.hasLoggedOutput()) {
+            throw InputFileException.inRow(trace.fileName(), 1, TraceFile.LOGGED_OUTPUT, "is needed to start from the"
+                    + " logged output; the header has " + String.join(", ", trace.header()));
+        }
+        Engine engine = new Engine(settings, measuredPeriod, startFromLoggedOutput, trace.hasFeedforward(),
+                trace.hasTrackValue());
+        ReplaySummary.Accumulator summary = new ReplaySummary.Accumulator(settings, measuredPeriod);
+        CSVFormat format = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
+        printRow(format, out, resultHeader(trace.header()));
+        TraceRow row = new TraceRow();
+        while (trace.next(row)) {
+            engine.step(row);
+            PidController c = engine.controller;
+            summary.add(row.number(), row.timeSeconds(), c.fault(), c.output(), c.position());
+            printResultRow(format, out, row.cells(), c.output(), c.proportionalTerm(), c.integralTerm(),
+                    c.derivativeTerm(), ReplayResult.statusWord(c.fault()));
+        }
+        if (summary.rows() == 0) {
+            throw InputFileException.whole(trace.fileName(), "has a header but no data rows");
+        }
+        return summary.finish();
+    }
+
+    /** The header of a replay's result for a trace with this header. */
+    static List<String> resultHeader(List<String> traceHeader) {
+        List<String> header = new ArrayList<>(traceHeader.size() + TraceFile.OUTPUT_COLUMNS.size());
+        for (String name : traceHeader) {
+            header.add(name.equals(TraceFile.LOGGED_OUTPUT) ? TraceFile.LOGGED_OUTPUT_RENAMED : name);
+        }
+        header.addAll(TraceFile.OUTPUT_COLUMNS);
+        return header;
+    }
+
+    /** One result row: the trace's cells as read, then the replay's columns. Numbers in Java's shortest exact form. */
+    static void printResultRow(CSVFormat format, Appendable out, List<String> cells, double output,
+            double proportional, double integral, double derivative, String status) throws IOException {
+        for (int i = 0; i < cells.size(); i++) {
+            format.print(cells.get(i), out, i == 0);
+        }
+        format.print(Double.toString(output), out, false);
+        format.print(Double.toString(proportional), out, false);
+        format.print(Double.toString(integral), out, false);
+        format.print(Double.toString(derivative), out, false);
+        format.print(status, out, false);
+        format.println(out);
+    }
+
+    /** One record, quoted where RFC 4180 needs it (the format's own printer, without CSVPrinter). */
+    static void printRow(CSVFormat format, Appendable out, List<String> cells) throws IOException {
+        for (int i = 0; i < cells.size(); i++) {
+            format.print(cells.get(i), out, i == 0);
+        }
+        format.println(out);
+    }
+
+    /** The controller and what one row's update needs from the rows before it. */
+    private static final class Engine {
+        final PidController controller;
+        final ControllerSettings settings;
+        final boolean measuredPeriod;
+        final boolean hasTrackValue;
+        final boolean hasFeedforward;
+        boolean startFromLoggedOutput;
+        boolean first = true;
+        double previousTime;
+        double period;
+
+        Engine(ControllerSettings settings, boolean measuredPeriod, boolean startFromLoggedOutput,
+                boolean hasFeedforward, boolean hasTrackValue) {
+            this.controller = new PidController(settings);
+            this.settings = settings;
+            this.measuredPeriod = measuredPeriod;
+            this.startFromLoggedOutput = startFromLoggedOutput;
+            this.hasTrackValue = hasTrackValue;
+            this.hasFeedforward = hasFeedforward;
+            controller.feedforwardOn(hasFeedforward);
+        }
+
+        void step(TraceRow row) {
+            applyInputs(row);
+            boolean fromLogged = startFromLoggedOutput && Double.isFinite(row.loggedOutput())
+                    && (row.mode() == null || row.mode() == Mode.AUTOMATIC);
+            if (fromLogged) {
+                controller.switchToTracking();
+                controller.trackValue(row.loggedOutput());
             }
+            period = measuredPeriod && !first ? row.timeSeconds() - previousTime : settings.samplePeriodSeconds();
+            if (measuredPeriod) {
+                controller.update(row.setpoint(), row.measurement(), period);
+            } else {
+                controller.update(row.setpoint(), row.measurement());
+            }
+            if (fromLogged) {
+                controller.switchToAutomatic();
+                startFromLoggedOutput = false;
+            }
+            previousTime = row.timeSeconds();
+            first = false;
         }
-        // a NaN manual output is refused by the controller, which keeps the last one
-        controller.manualOutput(trace.manualOutput(k));
-        if (trace.hasTrackValue()) {
-            controller.trackValue(trace.trackValue(k));
-            controller.actuatorPosition(trace.trackValue(k));
-        }
-        if (trace.hasFeedforward()) {
-            controller.feedforward(trace.feedforward(k));
+
+        private void applyInputs(TraceRow row) {
+            Mode mode = row.mode();
+            if (mode != null) {
+                switch (mode) {
+                    case AUTOMATIC -> controller.switchToAutomatic();
+                    case MANUAL -> controller.switchToManual();
+                    case TRACKING -> controller.switchToTracking();
+                }
+            }
+            // a NaN manual output is refused by the controller, which keeps the last one
+            controller.manualOutput(row.manualOutput());
+            if (hasTrackValue) {
+                controller.trackValue(row.trackValue());
+                controller.actuatorPosition(row.trackValue());
+            }
+            if (hasFeedforward) {
+                controller.feedforward(row.feedforward());
+            }
         }
     }
 }

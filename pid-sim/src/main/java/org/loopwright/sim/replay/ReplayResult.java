@@ -1,8 +1,6 @@
 package org.loopwright.sim.replay;
 
 import java.io.IOException;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Locale;
 
 import org.apache.commons.csv.CSVFormat;
@@ -124,32 +122,16 @@ public final class ReplayResult {
     }
 
     /**
-     * Writes the trace's columns as read, then {@code output, proportional, integral, derivative,
-     * status}, one row per trace row. Numbers are written in Java's shortest exact form.
+     * Writes the trace's columns as read (its logged {@code output} renamed {@code logged_output}),
+     * then {@code output, proportional, integral, derivative, status}, one row per trace row, as
+     * {@link Replay#stream} does. Numbers are written in Java's shortest exact form.
      */
     public void writeCsv(Appendable out) throws IOException {
-        List<String> header = new ArrayList<>(trace.header());
-        header.addAll(TraceFile.OUTPUT_COLUMNS);
         CSVFormat format = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
-        printRow(format, out, header);
-        List<String> row = new ArrayList<>(header.size());
+        Replay.printRow(format, out, Replay.resultHeader(trace.header()));
         for (int k = 0; k < rowCount(); k++) {
-            row.clear();
-            row.addAll(trace.cells(k));
-            row.add(Double.toString(output(k)));
-            row.add(Double.toString(proportional(k)));
-            row.add(Double.toString(integral(k)));
-            row.add(Double.toString(derivative(k)));
-            row.add(statusWord(status(k)));
-            printRow(format, out, row);
+            Replay.printResultRow(format, out, trace.row(k).cells(), output(k), proportional(k), integral(k),
+                    derivative(k), statusWord(status(k)));
         }
-    }
-
-    /** One record, quoted where RFC 4180 needs it (the format's own printer, without CSVPrinter). */
-    private static void printRow(CSVFormat format, Appendable out, List<String> cells) throws IOException {
-        for (int i = 0; i < cells.size(); i++) {
-            format.print(cells.get(i), out, i == 0);
-        }
-        format.println(out);
     }
 }

@@ -6,11 +6,14 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 
+import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.Fault;
 
 /**
- * The few numbers a person reads after a replay: rows, faults by kind, the output's range and
- * mean, and the time the actuator spent at an output limit (each saturated row counts its period).
+ * The few numbers a person reads after a replay: rows, the time the trace spans, faults by kind, the
+ * output's range and mean, the time the actuator spent at an output limit (each row's output holds
+ * until the next row's time), and the rows at which time runs backwards. Built a row at a time by an
+ * {@link Accumulator}, so a streamed replay needs no memory per row.
  *
  * <p>Thread-safe: immutable.
  */
@@ -25,45 +28,101 @@ public final class ReplaySummary {
     private final double totalSeconds;
     private final double limitMin;
     private final double limitMax;
+    private final long backwardSteps;
+    private final long firstBackwardRow;
+    private final boolean measuredPeriod;
 
-    private ReplaySummary(ReplayResult result) {
-        rows = result.rowCount();
-        limitMin = result.settings().outputMin();
-        limitMax = result.settings().outputMax();
-        Map<Fault, Integer> counts = new EnumMap<>(Fault.class);
-        double min = Double.POSITIVE_INFINITY;
-        double max = Double.NEGATIVE_INFINITY;
-        double sum = 0.0;
-        double saturated = 0.0;
-        double total = 0.0;
-        for (int k = 0; k < rows; k++) {
-            if (result.status(k) != Fault.NONE) {
-                counts.merge(result.status(k), 1, Integer::sum);
+    private ReplaySummary(Accumulator a) {
+        rows = a.rows;
+        faults = Map.copyOf(a.faults);
+        outputMin = a.min;
+        outputMax = a.max;
+        outputMean = a.sum / a.rows;
+        saturatedSeconds = a.saturated;
+        totalSeconds = a.rows == 0 ? 0.0 : a.lastTime - a.firstTime;
+        limitMin = a.limitMin;
+        limitMax = a.limitMax;
+        backwardSteps = a.backwardSteps;
+        firstBackwardRow = a.firstBackwardRow;
+        measuredPeriod = a.measuredPeriod;
+    }
+
+    /** The summary of a replay held in memory. */
+    public static ReplaySummary of(ReplayResult result) {
+        Accumulator a = new Accumulator(result.settings(), result.measuredPeriod());
+        for (int k = 0; k < result.rowCount(); k++) {
+            a.add(k + 2L, result.trace().timeSeconds(k), result.status(k), result.output(k),
+                    result.position(k));
+        }
+        return a.finish();
+    }
+
+    /** Gathers the summary a row at a time. Not thread-safe. */
+    public static final class Accumulator {
+        private final double limitMin;
+        private final double limitMax;
+        private final boolean measuredPeriod;
+        private final Map<Fault, Integer> faults = new EnumMap<>(Fault.class);
+        private int rows;
+        private double min = Double.POSITIVE_INFINITY;
+        private double max = Double.NEGATIVE_INFINITY;
+        private double sum;
+        private double saturated;
+        private double firstTime;
+        private double lastTime;
+        private boolean lastSaturated;
+        private long backwardSteps;
+        private long firstBackwardRow;
+
+        /** An empty summary for a replay of these settings. */
+        public Accumulator(ControllerSettings settings, boolean measuredPeriod) {
+            this.limitMin = settings.outputMin();
+            this.limitMax = settings.outputMax();
+            this.measuredPeriod = measuredPeriod;
+        }
+
+        /**
+         * Adds a replayed row.
+         *
+         * @param rowNumber the row's number in the file (header = 1)
+         * @param time      the row's time, seconds
+         * @param status    the fault seen
+         * @param output    the controller's output
+         * @param position  the actuator position asked for
+         */
+        public void add(long rowNumber, double time, Fault status, double output, double position) {
+            if (rows > 0) {
+                double interval = time - lastTime;
+                if (interval < 0.0) {
+                    if (backwardSteps++ == 0) {
+                        firstBackwardRow = rowNumber;
+                    }
+                } else if (lastSaturated) {
+                    saturated += interval;
+                }
+            } else {
+                firstTime = time;
             }
-            double output = result.output(k);
+            if (status != Fault.NONE) {
+                faults.merge(status, 1, Integer::sum);
+            }
             min = Math.min(min, output);
             max = Math.max(max, output);
             sum += output;
-            double period = result.periodSeconds(k);
-            if (period > 0.0 && period < Double.POSITIVE_INFINITY) {
-                total += period;
-                double position = result.position(k);
-                if (position <= limitMin || position >= limitMax) {
-                    saturated += period;
-                }
-            }
+            lastSaturated = position <= limitMin || position >= limitMax;
+            lastTime = time;
+            rows++;
         }
-        faults = Map.copyOf(counts);
-        outputMin = min;
-        outputMax = max;
-        outputMean = sum / rows;
-        saturatedSeconds = saturated;
-        totalSeconds = total;
-    }
 
-    /** The summary of a replay. */
-    public static ReplaySummary of(ReplayResult result) {
-        return new ReplaySummary(result);
+        /** Rows added so far. */
+        public int rows() {
+            return rows;
+        }
+
+        /** The summary of the rows added. */
+        public ReplaySummary finish() {
+            return new ReplaySummary(this);
+        }
     }
 
     /** Rows replayed. */
@@ -101,7 +160,12 @@ public final class ReplaySummary {
         return saturatedSeconds;
     }
 
-    /** Seconds replayed (the sum of the valid periods). */
+    /** Rows whose time is earlier than the row before's. */
+    public long backwardSteps() {
+        return backwardSteps;
+    }
+
+    /** Seconds the trace spans: the last row's time minus the first's. */
     public double totalSeconds() {
         return totalSeconds;
     }
@@ -109,7 +173,13 @@ public final class ReplaySummary {
     /** The summary as lines of text for a terminal. */
     public List<String> lines() {
         List<String> lines = new ArrayList<>();
-        lines.add("Rows: " + rows + ", " + number(totalSeconds) + " s");
+        lines.add("Rows: " + rows + ", spanning " + number(totalSeconds) + " s (first to last time)");
+        if (backwardSteps > 0) {
+            lines.add("WARNING: time runs backwards at " + backwardSteps + (backwardSteps == 1 ? " row" : " rows")
+                    + " (first at row " + firstBackwardRow + ")" + (measuredPeriod
+                            ? ": those rows' periods are not positive and count as period faults"
+                            : ": the fixed period was used for every row; check the log's clock"));
+        }
         if (faults.isEmpty()) {
             lines.add("Faults: none");
         } else {

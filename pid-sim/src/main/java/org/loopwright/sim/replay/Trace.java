@@ -16,27 +16,19 @@ public final class Trace {
 
     private final String fileName;
     private final List<String> header;
-    private final List<List<String>> cells;
-    private final double[] timeSeconds;
-    private final double[] setpoint;
-    private final double[] measurement;
-    private final double[] feedforward;
-    private final Mode[] mode;
-    private final double[] manualOutput;
-    private final double[] trackValue;
+    private final List<TraceRow> rows;
+    private final boolean hasFeedforward;
+    private final boolean hasTrackValue;
+    private final boolean hasLoggedOutput;
 
-    Trace(String fileName, List<String> header, List<List<String>> cells, double[] timeSeconds, double[] setpoint,
-            double[] measurement, double[] feedforward, Mode[] mode, double[] manualOutput, double[] trackValue) {
+    Trace(String fileName, List<String> header, List<TraceRow> rows, boolean hasFeedforward, boolean hasTrackValue,
+            boolean hasLoggedOutput) {
         this.fileName = fileName;
         this.header = List.copyOf(header);
-        this.cells = List.copyOf(cells);
-        this.timeSeconds = timeSeconds;
-        this.setpoint = setpoint;
-        this.measurement = measurement;
-        this.feedforward = feedforward;
-        this.mode = mode;
-        this.manualOutput = manualOutput;
-        this.trackValue = trackValue;
+        this.rows = List.copyOf(rows);
+        this.hasFeedforward = hasFeedforward;
+        this.hasTrackValue = hasTrackValue;
+        this.hasLoggedOutput = hasLoggedOutput;
     }
 
     /** The file as messages name it. */
@@ -51,56 +43,71 @@ public final class Trace {
 
     /** The number of data rows. */
     public int rowCount() {
-        return timeSeconds.length;
+        return rows.size();
+    }
+
+    /** A data row (from 0), as read. */
+    TraceRow row(int row) {
+        return rows.get(row);
     }
 
     /** The cells of a data row (from 0) as written in the file. */
     public List<String> cells(int row) {
-        return cells.get(row);
+        return List.copyOf(rows.get(row).cells());
     }
 
     /** The {@code time} of a row in seconds. */
     public double timeSeconds(int row) {
-        return timeSeconds[row];
+        return rows.get(row).timeSeconds();
     }
 
     /** The {@code setpoint} of a row; NaN for a missing sample. */
     public double setpoint(int row) {
-        return setpoint[row];
+        return rows.get(row).setpoint();
     }
 
     /** The {@code measurement} of a row; NaN for a missing sample. */
     public double measurement(int row) {
-        return measurement[row];
+        return rows.get(row).measurement();
     }
 
     /** Whether the trace has a {@code feedforward} column (the replay switches feedforward on when it has). */
     public boolean hasFeedforward() {
-        return feedforward != null;
+        return hasFeedforward;
     }
 
     /** The {@code feedforward} of a row; NaN for a missing sample or when the column is absent. */
     public double feedforward(int row) {
-        return feedforward == null ? Double.NaN : feedforward[row];
+        return rows.get(row).feedforward();
     }
 
     /** The {@code mode} of a row, or null when the cell is blank or the column absent (no switch). */
     public Mode mode(int row) {
-        return mode == null ? null : mode[row];
+        return rows.get(row).mode();
     }
 
     /** The {@code manual_output} of a row; NaN when blank or absent (the operator's output stays). */
     public double manualOutput(int row) {
-        return manualOutput == null ? Double.NaN : manualOutput[row];
+        return rows.get(row).manualOutput();
     }
 
     /** Whether the trace has a {@code track_value} column. */
     public boolean hasTrackValue() {
-        return trackValue != null;
+        return hasTrackValue;
     }
 
     /** The {@code track_value} of a row; NaN when blank or absent. */
     public double trackValue(int row) {
-        return trackValue == null ? Double.NaN : trackValue[row];
+        return rows.get(row).trackValue();
+    }
+
+    /** Whether the trace has a logged controller {@code output} column. */
+    public boolean hasLoggedOutput() {
+        return hasLoggedOutput;
+    }
+
+    /** The logged {@code output} of a row; NaN when blank or absent. */
+    public double loggedOutput(int row) {
+        return rows.get(row).loggedOutput();
     }
 }

@@ -2,16 +2,17 @@ package org.loopwright.sim.replay;
 
 import static java.util.Map.entry;
 
+import java.io.IOException;
+import java.io.StringReader;
 import java.nio.file.Path;
-import java.util.HashSet;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.Set;
 import java.util.regex.Pattern;
 
 import org.loopwright.pid.Mode;
 import org.loopwright.sim.config.InputFileException;
-import org.loopwright.sim.config.InputText;
+import org.loopwright.sim.config.IoWords;
 import org.loopwright.sim.config.Keywords;
 
 /**
@@ -28,7 +29,10 @@ import org.loopwright.sim.config.Keywords;
  *       position for actuator-tracking windup protection; blank or {@code nan} when unknown;</li>
  *   <li>any other column is kept and passed through to the output.</li>
  * </ul>
- * A name the replay writes itself ({@link #OUTPUT_COLUMNS}) may not appear in the header.
+ * An {@code output} column is the logged controller's output: it is kept, renamed {@code logged_output}
+ * in the result beside the replayed {@code output}, and can start the replay where the logged controller
+ * was. A name the result would then have twice ({@link #RESERVED_COLUMNS}) may not appear in the header,
+ * so {@code simulate}'s own trajectory.csv replays as it is.
  * Errors name the file, the row (the header is row 1) and the column.
  *
  * <p>Thread-safe: stateless.
@@ -40,6 +44,13 @@ public final class TraceFile {
     /** The columns the replay adds to its output. */
     public static final List<String> OUTPUT_COLUMNS = List.of("output", "proportional", "integral", "derivative",
             "status");
+    /** The optional column of the output the logged controller gave; the replay's result renames it. */
+    public static final String LOGGED_OUTPUT = "output";
+    /** The name the logged output takes in the replay's result, beside the replayed {@code output}. */
+    public static final String LOGGED_OUTPUT_RENAMED = "logged_output";
+    /** Names a trace may not use: the result would have two columns of that name. */
+    public static final List<String> RESERVED_COLUMNS = List.of(LOGGED_OUTPUT_RENAMED, "proportional", "integral",
+            "derivative", "status");
     /** The words of the {@code mode} column. */
     public static final Keywords<Mode> MODES = Keywords.of(entry("auto", Mode.AUTOMATIC), entry("manual", Mode.MANUAL),
             entry("track", Mode.TRACKING));
@@ -48,7 +59,7 @@ public final class TraceFile {
     private static final Pattern DECIMAL = Pattern.compile("[+-]?+(\\d++\\.?+\\d*+|\\.\\d++)([eE][+-]?+\\d++)?+");
 
     /** What a numeric column allows besides finite numbers. */
-    private enum CellRule {
+    enum CellRule {
         FINITE("must be a finite number"),
         SAMPLE("must be a number, or blank, nan or inf for a bad sample"),
         KEEP("must be a finite number, or blank or nan to keep the last one");
@@ -57,6 +68,10 @@ public final class TraceFile {
 
         CellRule(String text) {
             this.text = text;
+        }
+
+        String text() {
+            return text;
         }
 
         boolean accepts(String cell, double value) {
@@ -72,12 +87,17 @@ public final class TraceFile {
     }
 
     /**
-     * Reads a trace file; the file is named in messages as given.
+     * Reads a whole trace file into memory; the file is named in messages as given. For a long trace
+     * read it a row at a time with {@link TraceReader#open(Path)}.
      *
      * @throws InputFileException when the file cannot be read or a header or cell is not allowed
      */
     public static Trace read(Path file) {
-        return parse(file.toString(), InputText.read(file));
+        try (TraceReader reader = TraceReader.open(file)) {
+            return drain(reader);
+        } catch (IOException e) {
+            throw InputFileException.whole(file.toString(), "cannot be read (" + IoWords.of(e) + ")", e);
+        }
     }
 
     /**
@@ -87,102 +107,25 @@ public final class TraceFile {
      * @throws InputFileException when a header or cell is not allowed
      */
     public static Trace parse(String fileName, String text) {
-        List<List<String>> rows = InputText.csvRows(fileName, text, REQUIRED_COLUMNS);
-        List<String> header = rows.get(0);
-        checkHeader(fileName, header);
-        List<List<String>> data = rows.subList(1, rows.size());
-        if (data.isEmpty()) {
-            throw InputFileException.whole(fileName, "has a header but no data rows");
-        }
-        for (int i = 0; i < data.size(); i++) {
-            checkWidth(fileName, header, data.get(i), i + 2);
-        }
-        Columns columns = new Columns(fileName, header, data);
-        double[] time = columns.numbers("time", CellRule.FINITE);
-        double[] setpoint = columns.numbers("setpoint", CellRule.SAMPLE);
-        double[] measurement = columns.numbers("measurement", CellRule.SAMPLE);
-        double[] feedforward = columns.has("feedforward") ? columns.numbers("feedforward", CellRule.SAMPLE) : null;
-        Mode[] mode = columns.has("mode") ? columns.modes() : null;
-        double[] manual = columns.has("manual_output") ? columns.numbers("manual_output", CellRule.KEEP) : null;
-        double[] track = columns.has("track_value") ? columns.numbers("track_value", CellRule.KEEP) : null;
-        return new Trace(fileName, header, data, time, setpoint, measurement, feedforward, mode, manual, track);
-    }
-
-    private static void checkHeader(String fileName, List<String> header) {
-        Set<String> seen = new HashSet<>();
-        for (int i = 0; i < header.size(); i++) {
-            String name = header.get(i);
-            if (name.isEmpty()) {
-                throw InputFileException.inRow(fileName, 1, "#" + (i + 1),
-                        "the header gives this column no name; every column needs one");
-            }
-            if (!seen.add(name)) {
-                throw InputFileException.inRow(fileName, 1, name, "appears twice in the header; each name may appear once");
-            }
-            if (OUTPUT_COLUMNS.contains(name)) {
-                throw InputFileException.inRow(fileName, 1, name, "is a column the replay writes ("
-                        + String.join(", ", OUTPUT_COLUMNS) + "); rename it in the trace");
-            }
-        }
-        for (String required : REQUIRED_COLUMNS) {
-            if (!seen.contains(required)) {
-                throw InputFileException.inRow(fileName, 1, required, "required column is missing; the header has "
-                        + String.join(", ", header) + "; required columns: " + String.join(", ", REQUIRED_COLUMNS));
-            }
+        try (TraceReader reader = TraceReader.of(fileName, new StringReader(text))) {
+            return drain(reader);
+        } catch (IOException e) {
+            throw InputFileException.whole(fileName, "cannot be read (" + IoWords.of(e) + ")", e);
         }
     }
 
-    private static void checkWidth(String fileName, List<String> header, List<String> cells, int row) {
-        if (cells.size() != header.size()) {
-            String column = cells.size() < header.size() ? header.get(cells.size()) : "#" + (header.size() + 1);
-            throw InputFileException.inRow(fileName, row, column, "the row has " + cells.size()
-                    + " cells; the header has " + header.size() + " columns");
+    private static Trace drain(TraceReader reader) {
+        List<TraceRow> rows = new ArrayList<>();
+        TraceRow row = new TraceRow();
+        while (reader.next(row)) {
+            rows.add(row);
+            row = new TraceRow();
         }
-    }
-
-    /** Reads whole columns of the data rows. */
-    private static final class Columns {
-        private final String fileName;
-        private final List<String> header;
-        private final List<List<String>> data;
-
-        Columns(String fileName, List<String> header, List<List<String>> data) {
-            this.fileName = fileName;
-            this.header = header;
-            this.data = data;
+        if (rows.isEmpty()) {
+            throw InputFileException.whole(reader.fileName(), "has a header but no data rows");
         }
-
-        boolean has(String name) {
-            return header.contains(name);
-        }
-
-        double[] numbers(String name, CellRule rule) {
-            int index = header.indexOf(name);
-            double[] values = new double[data.size()];
-            for (int i = 0; i < values.length; i++) {
-                String cell = data.get(i).get(index);
-                double value = parseNumber(cell);
-                if (!rule.accepts(cell, value)) {
-                    throw InputFileException.inRow(fileName, i + 2, name, rule.text + ": " + name + "=" + cell);
-                }
-                values[i] = value;
-            }
-            return values;
-        }
-
-        Mode[] modes() {
-            int index = header.indexOf("mode");
-            Mode[] modes = new Mode[data.size()];
-            for (int i = 0; i < modes.length; i++) {
-                String cell = data.get(i).get(index);
-                if (!cell.isEmpty()) {
-                    final int row = i + 2;
-                    modes[i] = MODES.value(cell).orElseThrow(() -> InputFileException.inRow(fileName, row, "mode",
-                            "must be " + MODES.describe() + ", or blank to keep the mode: mode=" + cell));
-                }
-            }
-            return modes;
-        }
+        return new Trace(reader.fileName(), reader.header(), rows, reader.hasFeedforward(), reader.hasTrackValue(),
+                reader.hasLoggedOutput());
     }
 
     /**

@@ -12,6 +12,7 @@ import org.loopwright.pid.SettingChecks;
 import org.loopwright.pid.multiloop.Cascade;
 import org.loopwright.pid.multiloop.GainSchedule;
 import org.loopwright.pid.onoff.OnOffSettings;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.nonideal.ActuatorModel;
 import org.loopwright.sim.nonideal.SensorModel;
 import org.loopwright.sim.plant.PlantModel;
@@ -237,6 +238,17 @@ public final class Scenario {
     /** The plant as a transfer function, when it is linear. */
     public Optional<TransferFunction> linearPlant() {
         return plant.linear();
+    }
+
+    /**
+     * The linear part of this loop as it runs sampled (plant, PID controller at its period, the
+     * sensor's whole samples of delay), for analysis; empty for a nonlinear plant or an on-off controller.
+     */
+    public Optional<SampledLoop> sampledLoop() {
+        if (controller == null) {
+            return Optional.empty();
+        }
+        return linearPlant().map(p -> new SampledLoop(p, controller, samplePeriodSeconds, sensor.delaySamples()));
     }
 
     /** The setpoint profile, sorted by time. */

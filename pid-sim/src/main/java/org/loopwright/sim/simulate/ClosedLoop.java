@@ -33,6 +33,8 @@ import org.loopwright.sim.scenario.SetpointChange;
  * the sensor reads the outer measurement and the inner measurement is read as it is. A split range
  * spreads the delivered output over two actuators and the plant sees second − first.
  *
+ * <p>A run whose process output diverges (see {@link Divergence}) stops at that sample.
+ *
  * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
  * cached its discretisation after the first samples). Usable from a benchmark:
  * {@code if (!loop.step()) loop.rewind();}.
@@ -58,6 +60,7 @@ public final class ClosedLoop {
     private final double[] loadAt;
     private final double[] loadValue;
 
+    private double divergenceBound;
     private int k;
     private double previousInstant;
     private double previousDelay;
@@ -123,6 +126,14 @@ public final class ClosedLoop {
         double rest = plant.output();
         sensor.reset(rest);
         trajectory.clear();
+        double scale = Math.abs(rest);
+        for (double value : changeValue) {
+            scale = Math.max(scale, Math.abs(value));
+        }
+        for (double value : loadValue) {
+            scale = Math.max(scale, Math.abs(value));
+        }
+        divergenceBound = Divergence.bound(scale);
         k = 0;
         previousInstant = 0.0;
         previousDelay = 0.0;
@@ -139,7 +150,9 @@ public final class ClosedLoop {
     /**
      * One sample: advance the plant to the next sample instant, read, update, deliver, record.
      *
-     * @return false, doing nothing, when every sample of the scenario has been taken
+     * @return false, doing nothing, when every sample of the scenario has been taken; false also when
+     *         the process output at this instant has diverged ({@link Divergence}): the run stops there,
+     *         the sample is not recorded and the trajectory is marked diverged
      */
     public boolean step() {
         if (k >= samples) {
@@ -167,6 +180,11 @@ public final class ClosedLoop {
             }
         }
         double process = plant.output();
+        if (Divergence.beyond(process, divergenceBound)) {
+            trajectory.markDiverged(instant);
+            k = samples;
+            return false;
+        }
         double r = setpointAt(instant);
         double y = sensor.read(process);
         double innerMeasurement = series != null ? series.innerOutput() : Double.NaN;

@@ -27,6 +27,7 @@ public final class Trajectory {
     private final double[] firstActuator;
     private final double[] secondActuator;
     private int length;
+    private double divergedAtSeconds = Double.NaN;
 
     Trajectory(int capacity, boolean innerLoop, boolean splitRange) {
         time = new double[capacity];
@@ -99,6 +100,21 @@ public final class Trajectory {
 
     void clear() {
         length = 0;
+        divergedAtSeconds = Double.NaN;
+    }
+
+    void markDiverged(double instant) {
+        divergedAtSeconds = instant;
+    }
+
+    /** Whether the run was stopped because it diverged (see {@link Divergence}). */
+    public boolean diverged() {
+        return !Double.isNaN(divergedAtSeconds);
+    }
+
+    /** The sample instant at which the run was found diverged, in seconds; NaN when it did not diverge. */
+    public double divergedAtSeconds() {
+        return divergedAtSeconds;
     }
 
     /** The number of samples recorded. */

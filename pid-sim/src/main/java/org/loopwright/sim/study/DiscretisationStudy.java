@@ -17,9 +17,11 @@ import org.loopwright.sim.frequency.ContinuousController;
 import org.loopwright.sim.frequency.GainCrossing;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.PhaseCrossing;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.nonideal.SensorModel;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.Simulation;
@@ -31,9 +33,10 @@ import org.loopwright.sim.simulate.Trajectory;
  * <p>For a scenario with a linear plant and a PID controller, and a list of sample periods, the study
  * makes one row per period and integral × derivative method pair (a method that has no term to act on
  * is left out: a PI controller gets one row per integral method), plus the continuous design as the
- * first, reference row. Each row has the margins (from {@link LoopAnalysis}), the overshoot and IAE of a
- * set-point step and the IAE of a load step (simulated from rest with an ideal actuator and sensor, the
- * controller's own limits kept), the discrete controller's magnitude and phase error against the
+ * first, reference row. Each row has the margins of the scenario's {@link SampledLoop} at that period
+ * (from {@link LoopAnalysis}; the sensor's whole samples of delay included), the overshoot and IAE of a
+ * set-point step and the IAE of a load step (simulated from rest with an ideal actuator and a sensor
+ * that only keeps the scenario's delay, the controller's own limits kept), the discrete controller's magnitude and phase error against the
  * continuous one at the continuous gain crossover ω_c, and ω_c·h with its {@link SamplingVerdict}.
  *
  * <p>The set-point step has the size of the scenario's first set-point entry (1 if it has none or it is
@@ -50,6 +53,10 @@ public final class DiscretisationStudy {
     private static final double[] DEFAULT_CROSSOVER_TIMES_PERIOD = {0.02, 0.1, 0.3, 1.0};
     /** ω_c·h at which the continuous design is simulated. */
     private static final double REFERENCE_CROSSOVER_TIMES_PERIOD = 0.002;
+    /** The most sample periods one study takes. */
+    public static final int MAX_PERIODS = 20;
+    /** The most samples one simulated response of a study may take (the scenario's duration over h). */
+    public static final int MAX_SAMPLES_PER_RUN = 1_000_000;
     /** The reference simulation's period is raised if it would need more samples than this. */
     private static final int MAX_REFERENCE_SAMPLES = 200_000;
 
@@ -59,12 +66,16 @@ public final class DiscretisationStudy {
     /**
      * The periods studied when none are given: ω_c·h = 0.02, 0.1, 0.3 and 1, rounded to two significant
      * digits — finer than needed, inside the common-practice range 0.05–0.3 (see {@link SamplingVerdict}),
-     * at its top, and well above it.
+     * at its top, and well above it — and the scenario's own period, in increasing order.
      */
-    public static List<Double> defaultPeriods(double crossoverRadPerSecond) {
+    public static List<Double> defaultPeriods(double crossoverRadPerSecond, double ownPeriodSeconds) {
         List<Double> periods = new ArrayList<>();
         for (double wh : DEFAULT_CROSSOVER_TIMES_PERIOD) {
             periods.add(twoDigits(wh / crossoverRadPerSecond));
+        }
+        if (!periods.contains(ownPeriodSeconds)) {
+            periods.add(ownPeriodSeconds);
+            Collections.sort(periods);
         }
         return periods;
     }
@@ -97,6 +108,7 @@ public final class DiscretisationStudy {
                 "the discretisation study needs a linear plant (a transfer function): plant=" + scenario.plant()));
         ControllerSettings settings = scenario.controller().orElseThrow(() -> new IllegalArgumentException(
                 "the discretisation study needs a PID controller: controller=on-off"));
+        SampledLoop loop = scenario.sampledLoop().orElseThrow();
         for (double h : periodsSeconds) {
             if (!Double.isFinite(h) || h <= 0.0) {
                 throw new IllegalArgumentException("sample periods must be finite and > 0: periods=" + periodsSeconds);
@@ -107,13 +119,14 @@ public final class DiscretisationStudy {
         double setpointStep = scenario.setpoint().isEmpty() || scenario.setpoint().get(0).value() == 0.0 ? 1.0
                 : scenario.setpoint().get(0).value();
         double loadStep = scenario.disturbances().isEmpty() ? 1.0 : scenario.disturbances().get(0).value();
+        int sensorDelay = loop.sensorDelaySamples();
         Experiments experiments = new Experiments(plant, setpointStep, loadStep, scenario.durationSeconds());
 
         double finest = Collections.min(periodsSeconds);
         double reference = twoDigits(Math.max(Math.min(REFERENCE_CROSSOVER_TIMES_PERIOD / crossover, finest / 10.0),
                 scenario.durationSeconds() / MAX_REFERENCE_SAMPLES));
         List<StudyRow> rows = new ArrayList<>();
-        rows.add(continuousRow(continuous, experiments, settings, reference));
+        rows.add(continuousRow(continuous, experiments, settings, reference, sensorDelay));
         ContinuousController design = new ContinuousController(settings);
         ParallelGains gains = settings.parallelGains();
         List<IntegralMethod> integrals = gains.integralGain() > 0.0 ? Arrays.asList(IntegralMethod.values())
@@ -123,29 +136,31 @@ public final class DiscretisationStudy {
         for (double h : periodsSeconds) {
             for (IntegralMethod integral : integrals) {
                 for (DerivativeMethod derivative : derivatives) {
-                    rows.add(sampledRow(plant, settings, design, crossover, experiments, h, integral, derivative));
+                    rows.add(sampledRow(loop, design, crossover, experiments, h, integral, derivative));
                 }
             }
         }
-        return new StudyResult(plant, settings, continuous, crossover, periodsSeconds, reference, setpointStep,
+        return new StudyResult(loop, continuous, crossover, periodsSeconds, reference, setpointStep,
                 loadStep, rows);
     }
 
     private static StudyRow continuousRow(StabilityMargins margins, Experiments experiments,
-            ControllerSettings settings, double referencePeriod) {
+            ControllerSettings settings, double referencePeriod, int sensorDelaySamples) {
         ControllerSettings fine = settings.toBuilder().samplePeriodSeconds(referencePeriod)
                 .integralMethod(IntegralMethod.TUSTIN).derivativeMethod(DerivativeMethod.TUSTIN).build();
-        Responses responses = experiments.run(fine);
+        Responses responses = experiments.run(fine, 0);
         return new StudyRow(StudyRow.Kind.CONTINUOUS, null, null, Double.NaN,
-                "responses simulated at h=" + referencePeriod + " s with Tustin integral and derivative",
+                "responses simulated at h=" + referencePeriod + " s with Tustin integral and derivative"
+                        + (sensorDelaySamples > 0 ? "; the design, without the sensor's " + sensorDelaySamples
+                                + " samples of delay (every sampled row has them)" : ""),
                 phaseMargin(margins), gainMargin(margins), margins.sensitivityPeak().value(), null,
                 responses.overshootPercent, responses.iae, responses.loadIae, Double.NaN, Double.NaN, Double.NaN,
                 null, responses.setpoint);
     }
 
-    private static StudyRow sampledRow(TransferFunction plant, ControllerSettings settings,
-            ContinuousController design, double crossover, Experiments experiments, double h,
-            IntegralMethod integral, DerivativeMethod derivative) {
+    private static StudyRow sampledRow(SampledLoop loop, ContinuousController design, double crossover,
+            Experiments experiments, double h, IntegralMethod integral, DerivativeMethod derivative) {
+        ControllerSettings settings = loop.controller();
         ControllerSettings variant;
         try {
             variant = settings.toBuilder().samplePeriodSeconds(h)
@@ -161,7 +176,7 @@ public final class DiscretisationStudy {
                     Double.NaN, Double.NaN, null, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
                     crossover * h, null, null);
         }
-        SampledMargins sampled = LoopAnalysis.sampled(plant, variant, h);
+        SampledMargins sampled = LoopAnalysis.sampled(loop.withController(variant).atPeriod(h));
         double magnitudeError = Double.NaN;
         double phaseError = Double.NaN;
         if (crossover < Math.PI / h) {
@@ -169,7 +184,7 @@ public final class DiscretisationStudy {
             magnitudeError = 20.0 * Math.log10(ratio.norm());
             phaseError = Math.toDegrees(ratio.getArgument());
         }
-        Responses responses = experiments.run(variant);
+        Responses responses = experiments.run(variant, loop.sensorDelaySamples());
         StabilityMargins m = sampled.margins();
         return new StudyRow(StudyRow.Kind.SAMPLED, integral, derivative, h, "", phaseMargin(m), gainMargin(m),
                 m.sensitivityPeak().value(), sampled.stable(), responses.overshootPercent, responses.iae,
@@ -188,11 +203,14 @@ public final class DiscretisationStudy {
     /** The two simulated experiments of every row. */
     private record Experiments(TransferFunction plant, double setpointStep, double loadStep, double durationSeconds) {
 
-        Responses run(ControllerSettings settings) {
-            Scenario setpoint = Scenario.setpointStep(plant, settings, setpointStep, durationSeconds);
+        Responses run(ControllerSettings settings, int sensorDelaySamples) {
+            SensorModel sensor = new SensorModel(0.0, 0.0, sensorDelaySamples, 0.0, 0.0);
+            Scenario setpoint = Scenario.setpointStep(plant, settings, setpointStep, durationSeconds).toBuilder()
+                    .sensor(sensor).build();
             Trajectory setpointRun = Simulation.run(setpoint);
             ResponseMetrics metrics = ResponseMetrics.of(setpoint, setpointRun);
-            Trajectory loadRun = Simulation.run(Scenario.loadStep(plant, settings, loadStep, durationSeconds));
+            Trajectory loadRun = Simulation.run(Scenario.loadStep(plant, settings, loadStep, durationSeconds)
+                    .toBuilder().sensor(sensor).build());
             return new Responses(metrics.overshootPercent(), metrics.iae(), ResponseMetrics.loadIae(loadRun, 0.0),
                     setpointRun);
         }

@@ -113,7 +113,7 @@ public final class StudyPlots {
         for (double h : result.periodsSeconds()) {
             FrequencyResponse sampled;
             try {
-                sampled = LoopAnalysis.sampledLoop(result.plant(), settings, h);
+                sampled = LoopAnalysis.sampledLoop(result.loop().atPeriod(h));
             } catch (IllegalArgumentException notApplicable) {
                 continue; // the scenario's own forward-Euler derivative cannot run at this period
             }

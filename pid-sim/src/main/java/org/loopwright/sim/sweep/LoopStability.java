@@ -8,8 +8,13 @@ package org.loopwright.sim.sweep;
 public enum LoopStability {
     /** Every closed-loop pole strictly inside the unit circle, and the simulated output stayed finite. */
     STABLE,
-    /** A closed-loop pole on or outside the unit circle, or the simulated output became infinite or NaN. */
+    /** A closed-loop pole on or outside the unit circle; the simulation did not reach the divergence bound. */
     UNSTABLE,
+    /**
+     * The simulation diverged (see {@link org.loopwright.sim.simulate.Divergence}) and was stopped: the run
+     * is counted, but none of its figures enters the distributions.
+     */
+    DIVERGED,
     /**
      * The poles were not computed (an on-off controller, or more than
      * {@value Sweep#MAX_DELAY_PERIODS} periods of dead time) and the simulated output stayed finite.

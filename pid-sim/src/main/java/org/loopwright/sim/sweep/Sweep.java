@@ -11,9 +11,9 @@ import java.util.concurrent.Future;
 import java.util.function.IntConsumer;
 
 import org.hipparchus.complex.Complex;
-import org.loopwright.pid.ControllerSettings;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.InnerLoop;
@@ -127,12 +127,9 @@ public final class Sweep {
         Scenario drawn = scenario.withPlant(plant);
         Trajectory trajectory = Simulation.run(drawn);
         ResponseMetrics metrics = ResponseMetrics.of(drawn, trajectory);
-        boolean finite = true;
-        for (int k = 0; k < trajectory.length() && finite; k++) {
-            finite = Double.isFinite(trajectory.process(k));
-        }
-        double poleMagnitude = largestPoleMagnitude(drawn, plant);
-        LoopStability stability = !finite || poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
+        double poleMagnitude = largestPoleMagnitude(drawn);
+        LoopStability stability = trajectory.diverged() ? LoopStability.DIVERGED
+                : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
                 : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
         int stride = Math.max(1, (trajectory.length() + PLOT_POINTS - 1) / PLOT_POINTS);
         int count = (trajectory.length() + stride - 1) / stride;
@@ -151,31 +148,25 @@ public final class Sweep {
     }
 
     /**
-     * The largest closed-loop pole magnitude of the sampled linear loop, the sensor's delay counted as
-     * dead time (for a cascade, of the outer loop with the inner loop closed, the inner plant as given);
-     * NaN for an on-off controller, too long a delay, or a controller the analysis rejects.
+     * The largest closed-loop pole magnitude of the sampled linear loop (sensor delay included; for a
+     * cascade, of the outer loop with the inner loop closed, the inner plant as given); NaN for an on-off
+     * controller, too long a delay, or a controller the analysis rejects.
      */
-    private static double largestPoleMagnitude(Scenario drawn, TransferFunction plant) {
-        if (drawn.controller().isEmpty()) {
-            return Double.NaN;
-        }
-        ControllerSettings settings = drawn.controller().get();
-        double h = drawn.samplePeriodSeconds();
-        double delaySeconds = plant.deadTimeSeconds() + drawn.sensor().delaySamples() * h;
-        if (delaySeconds > MAX_DELAY_PERIODS * h) {
+    private static double largestPoleMagnitude(Scenario drawn) {
+        SampledLoop loop = drawn.sampledLoop().orElse(null);
+        if (loop == null || loop.totalDelaySeconds() > MAX_DELAY_PERIODS * loop.periodSeconds()) {
             return Double.NaN;
         }
         try {
             if (drawn.inner().isPresent()) {
                 // a cascade: the outer loop with the inner loop closed, whose poles include the inner loop's
                 InnerLoop inner = drawn.inner().get();
-                return CascadeAnalysis.outerSampled(plant.withDeadTime(delaySeconds), settings,
-                        inner.plant().linear().orElseThrow(), inner.controller()).largestPoleMagnitude();
+                return CascadeAnalysis.outerSampled(loop.plant().withDeadTime(loop.totalDelaySeconds()),
+                        loop.controller(), inner.plant().linear().orElseThrow(), inner.controller())
+                        .largestPoleMagnitude();
             }
-            List<Complex> poles = LoopAnalysis.closedLoopPoles(
-                    LoopAnalysis.sampledLoop(plant.withDeadTime(delaySeconds), settings, h));
             double largest = 0.0;
-            for (Complex pole : poles) {
+            for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(loop))) {
                 largest = Math.max(largest, pole.norm());
             }
             return largest;

@@ -25,7 +25,7 @@ import org.loopwright.sim.report.ResponsePlot;
  * with every run's measurement overlaid, the nominal run in black (XChart). The CSV's columns are
  * {@link #HEADER}: the run's index, its three factors, the plant simulated (coefficients in descending
  * powers of s, separated by spaces; dead time in seconds), the stability verdict
- * ({@code stable}, {@code unstable}, {@code not-assessed}), the largest closed-loop pole magnitude,
+ * ({@code stable}, {@code unstable}, {@code diverged}, {@code not-assessed}), the largest closed-loop pole magnitude,
  * and the response figures (seconds, percent, process units; empty where a figure does not apply).
  */
 public final class SweepFiles {

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.function.ToDoubleFunction;
 
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseState;
 import org.loopwright.sim.scenario.Scenario;
 
 /**
@@ -25,9 +26,15 @@ public record SweepResult(Scenario scenario, Spread spread, long seed, SweepRun 
         runs = List.copyOf(runs);
     }
 
-    /** The share of runs judged {@link LoopStability#UNSTABLE}, 0 to 1. */
+    /** The share of runs judged {@link LoopStability#UNSTABLE} or {@link LoopStability#DIVERGED}, 0 to 1. */
     public double unstableShare() {
-        return (double) runs.stream().filter(r -> r.stability() == LoopStability.UNSTABLE).count() / runs.size();
+        return (double) runs.stream().filter(r -> r.stability() == LoopStability.UNSTABLE
+                || r.stability() == LoopStability.DIVERGED).count() / runs.size();
+    }
+
+    /** The share of runs whose simulation diverged and was stopped, 0 to 1. */
+    public double divergedShare() {
+        return (double) runs.stream().filter(r -> r.stability() == LoopStability.DIVERGED).count() / runs.size();
     }
 
     /** The share of runs whose stability was not assessed, 0 to 1. */
@@ -41,7 +48,7 @@ public record SweepResult(Scenario scenario, Spread spread, long seed, SweepRun 
      */
     public double notSettledShare() {
         long moved = runs.stream().filter(SweepRun::stepFiguresApply).count();
-        long unsettled = runs.stream().filter(r -> r.stepFiguresApply() && !r.settled()).count();
+        long unsettled = runs.stream().filter(r -> r.metrics().state() == ResponseState.NOT_SETTLED).count();
         return moved == 0 ? Double.NaN : (double) unsettled / moved;
     }
 
@@ -70,12 +77,13 @@ public record SweepResult(Scenario scenario, Spread spread, long seed, SweepRun 
     }
 
     /**
-     * The worst run: unstable runs first, then runs that never settled, then the largest IAE (a NaN
+     * The worst run: diverged runs first, then unstable ones, then runs that never settled, then the largest IAE (a NaN
      * IAE counts as the largest); ties go to the lowest index.
      */
     public SweepRun worst() {
-        Comparator<SweepRun> badness = Comparator.<SweepRun>comparingInt(r -> r.stability() == LoopStability.UNSTABLE
-                ? 2 : r.stepFiguresApply() && !r.settled() ? 1 : 0)
+        Comparator<SweepRun> badness = Comparator.<SweepRun>comparingInt(r -> r.stability() == LoopStability.DIVERGED
+                ? 3 : r.stability() == LoopStability.UNSTABLE ? 2 : !r.settled() && r.metrics().state()
+                        == ResponseState.NOT_SETTLED ? 1 : 0)
                 .thenComparingDouble(r -> Double.isNaN(r.metrics().iae()) ? Double.POSITIVE_INFINITY : r.metrics().iae())
                 .thenComparing(Comparator.comparingInt(SweepRun::index).reversed());
         return runs.stream().max(badness).orElseThrow();

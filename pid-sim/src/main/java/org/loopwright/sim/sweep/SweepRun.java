@@ -1,6 +1,7 @@
 package org.loopwright.sim.sweep;
 
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseState;
 import org.loopwright.sim.plant.TransferFunction;
 
 /**
@@ -27,12 +28,12 @@ public record SweepRun(int index, PlantDraw draw, TransferFunction plant, Respon
 
     /** Whether the response settled within the 2 % band (false also when the step figures do not apply). */
     public boolean settled() {
-        return Double.isFinite(metrics.settlingTimeSeconds());
+        return metrics.state() == ResponseState.SETTLED;
     }
 
-    /** Whether the step figures apply (the response moved in the window). */
+    /** Whether the run had a setpoint step to respond to and did not diverge (settled or not). */
     public boolean stepFiguresApply() {
-        return Double.isFinite(metrics.overshootPercent());
+        return metrics.state() == ResponseState.SETTLED || metrics.state() == ResponseState.NOT_SETTLED;
     }
 
     @Override

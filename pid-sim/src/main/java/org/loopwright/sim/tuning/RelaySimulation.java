@@ -50,9 +50,19 @@ public final class RelaySimulation {
      * @param amplitude             a, NaN unless it succeeded
      * @param cycles                complete relay cycles seen
      * @param settings              the relay settings used
+     * @param samplePeriodSeconds   the period the relay ran at
      */
     public record Outcome(RelayStatus status, String message, double ultimateGain, double ultimatePeriodSeconds,
-                          double amplitude, int cycles, RelaySettings settings) {
+                          double amplitude, int cycles, RelaySettings settings, double samplePeriodSeconds) {
+
+        /**
+         * Whether the measured period is within {@value RelaySimulation#MIN_SAMPLES_PER_PERIOD} sample
+         * periods: then it is set by the sampling, not the plant, and no rule may use it.
+         */
+        public boolean periodSetBySampling() {
+            return status == RelayStatus.SUCCEEDED
+                    && ultimatePeriodSeconds < MIN_SAMPLES_PER_PERIOD * samplePeriodSeconds;
+        }
 
         /**
          * Doubts about a successful estimate: an amplitude below twice the hysteresis makes
@@ -61,6 +71,12 @@ public final class RelaySimulation {
          */
         public List<String> warnings() {
             List<String> doubts = new ArrayList<>();
+            if (periodSetBySampling()) {
+                doubts.add(String.format(Locale.ROOT, "the measured period %.4g s is only %.3g sample periods (h = %s s),"
+                        + " fewer than %d: it is set by the sampling, not the plant, so no setting is suggested;"
+                        + " sample faster or add the plant's dead time to the model", ultimatePeriodSeconds,
+                        ultimatePeriodSeconds / samplePeriodSeconds, samplePeriodSeconds, MIN_SAMPLES_PER_PERIOD));
+            }
             if (status == RelayStatus.SUCCEEDED && amplitude < HYSTERESIS_MARGIN * settings.hysteresis()) {
                 doubts.add("the oscillation amplitude " + String.format(Locale.ROOT, "%.4g", amplitude)
                         + " is less than twice the hysteresis " + String.format(Locale.ROOT, "%.4g", settings.hysteresis())
@@ -70,6 +86,15 @@ public final class RelaySimulation {
             return doubts;
         }
     }
+
+    /**
+     * The fewest sample periods a measured relay period may span. Below it the period is quantised to
+     * whole samples (an error up to h/Pu, over 10 %) and the hold's delay of about h/2 is a large part
+     * of the phase lag that makes the loop oscillate: a relay on a lag with no dead time swings at 2 to
+     * 4 samples a cycle whatever the plant's time constant (Åström &amp; Wittenmark, Computer-Controlled
+     * Systems, 3rd ed., §7 on the hold as a delay of h/2; the threshold of ten is common practice).
+     */
+    public static final int MIN_SAMPLES_PER_PERIOD = 10;
 
     /** An amplitude below this multiple of the hysteresis makes the estimate doubtful. */
     public static final double HYSTERESIS_MARGIN = 2.0;
@@ -117,7 +142,7 @@ public final class RelaySimulation {
             output = relay.step(h, sensor.read(plant.output()));
         }
         return new Outcome(relay.status(), relay.message(), relay.ultimateGain(), relay.ultimatePeriodSeconds(),
-                relay.oscillationAmplitude(), relay.completedCycles(), settings);
+                relay.oscillationAmplitude(), relay.completedCycles(), settings, h);
     }
 
     private static double defaultAmplitude(ControllerSettings base, double bias) {

@@ -9,6 +9,7 @@ import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.form.ParallelGains;
 import org.loopwright.pid.form.SeriesGains;
 import org.loopwright.pid.tuning.TunedGains;
+import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 
@@ -21,19 +22,31 @@ import org.loopwright.sim.metrics.ResponseMetrics;
  * @param settings          controller settings carrying the gains (ideal form)
  * @param margins           margins and Ms of the loop on the model
  * @param sampledMargins    whether those are of the sampled loop (true) or of the continuous design (false)
+ * @param sampled           margins and closed-loop poles of the sampled loop the settings will run in (period,
+ *                          methods, sensor delay), whenever there is a linear plant: the stability verdict
  * @param setpointResponse  figures of a unit setpoint step
  * @param loadResponse      figures of a unit load step at the plant input (IAE, peak deviation)
  */
 public record TuningCandidate(TunedGains tuning, ControllerSettings settings, Optional<StabilityMargins> margins,
-                              boolean sampledMargins, Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
+                              boolean sampledMargins, Optional<SampledMargins> sampled,
+                              Optional<ResponseMetrics> setpointResponse, Optional<LoadResponse> loadResponse) {
 
     /** Checks that nothing is null. */
     public TuningCandidate {
         Objects.requireNonNull(tuning, "tuning");
         Objects.requireNonNull(settings, "settings");
         Objects.requireNonNull(margins, "margins");
+        Objects.requireNonNull(sampled, "sampled");
         Objects.requireNonNull(setpointResponse, "setpointResponse");
         Objects.requireNonNull(loadResponse, "loadResponse");
+    }
+
+    /**
+     * Whether the sampled closed loop is stable (every pole inside the unit circle); empty when there
+     * is no plant to judge it on. An unstable candidate must never be offered as a choice.
+     */
+    public Optional<Boolean> stable() {
+        return sampled.map(SampledMargins::stable);
     }
 
     /** The gains in ideal form. */

@@ -1,5 +1,6 @@
 package org.loopwright.sim.tuning;
 
+import java.util.Locale;
 import java.util.Optional;
 
 import org.loopwright.pid.Action;
@@ -10,6 +11,8 @@ import org.loopwright.pid.tuning.ProcessModel;
 import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
+import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
@@ -36,6 +39,12 @@ public final class TuningEvaluation {
     public static final double SAMPLES_PER_LAG = 20.0;
     /** Simulated time, in multiples of the time constants plus L (twice that for an integrating process). */
     public static final double RUN_LENGTH = 20.0;
+    /**
+     * The most samples a check by simulation may take a run: with the rule-of-thumb period the time
+     * constants and the dead time may then differ by a factor of about 2,500; beyond, the work (and the
+     * memory of the trajectory) would grow without bound.
+     */
+    public static final long MAX_SAMPLES = 1_000_000L;
 
     private TuningEvaluation() {
     }
@@ -118,15 +127,24 @@ public final class TuningEvaluation {
      */
     public static TuningCandidate onModel(TunedGains tuning, ProcessModel model, ControllerSettings base,
             boolean sampledMargins) {
+        double samples = runSeconds(model) / base.samplePeriodSeconds();
+        if (samples > MAX_SAMPLES) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "checking the settings on the model would"
+                    + " simulate %.3g samples a run (%s s at h = %s s); the limit is %d: the model's time constants and"
+                    + " dead time are too far apart, or the sample period too short", samples, runSeconds(model),
+                    base.samplePeriodSeconds(), MAX_SAMPLES));
+        }
         ControllerSettings settings = base.toBuilder().gains(tuning.gains()).action(action(model)).build();
         TransferFunction plant = transferFunction(model);
         double duration = runSeconds(model);
         Scenario setpointStep = Scenario.setpointStep(plant, settings, 1.0, duration);
         Trajectory setpointRun = Simulation.run(setpointStep);
         Trajectory loadRun = Simulation.run(Scenario.loadStep(plant, settings, 1.0, duration));
-        StabilityMargins margins = sampledMargins ? LoopAnalysis.sampled(plant, settings).margins()
+        Optional<SampledMargins> sampled = sampled(Optional.of(SampledLoop.of(plant, settings)));
+        StabilityMargins margins = sampledMargins && sampled.isPresent() ? sampled.get().margins()
                 : LoopAnalysis.continuous(plant, settings);
-        return new TuningCandidate(tuning, settings, Optional.of(margins), sampledMargins,
+        return new TuningCandidate(tuning, settings, Optional.of(margins), sampledMargins && sampled.isPresent(),
+                sampled,
                 Optional.of(ResponseMetrics.of(setpointStep, setpointRun)),
                 Optional.of(new TuningCandidate.LoadResponse(ResponseMetrics.loadIae(loadRun, 0.0),
                         ResponseMetrics.peakDeviation(loadRun, 0.0))));
@@ -145,15 +163,23 @@ public final class TuningEvaluation {
         Optional<TuningCandidate.LoadResponse> load = Double.isNaN(loadAt) ? Optional.empty()
                 : Optional.of(new TuningCandidate.LoadResponse(ResponseMetrics.loadIae(trajectory, loadAt),
                         ResponseMetrics.peakDeviation(trajectory, loadAt)));
-        int sensorDelay = run.sensor().delaySamples();
-        return new TuningCandidate(tuning, settings,
-                run.linearPlant().map(plant -> SampledLoop.margins(plant, settings, sensorDelay).margins()), true,
+        Optional<SampledMargins> sampled = sampled(run.sampledLoop());
+        return new TuningCandidate(tuning, settings, sampled.map(SampledMargins::margins), true, sampled,
                 Optional.of(ResponseMetrics.of(run, trajectory)), load);
     }
 
     /** A rule's gains with no model to check them on (tuned from an ultimate point alone). */
     public static TuningCandidate withoutModel(TunedGains tuning, double samplePeriodSeconds) {
         return new TuningCandidate(tuning, settings(tuning, samplePeriodSeconds, Action.REVERSE), Optional.empty(),
-                false, Optional.empty(), Optional.empty());
+                false, Optional.empty(), Optional.empty(), Optional.empty());
+    }
+
+    /** The sampled loop's margins and poles; empty when there is no loop or it is beyond the analysis' limits. */
+    private static Optional<SampledMargins> sampled(Optional<SampledLoop> loop) {
+        try {
+            return loop.map(LoopAnalysis::sampled);
+        } catch (IllegalArgumentException beyondLimits) {
+            return Optional.empty();
+        }
     }
 }

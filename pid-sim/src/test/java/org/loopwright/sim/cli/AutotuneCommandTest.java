@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import java.net.URISyntaxException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -80,6 +81,28 @@ class AutotuneCommandTest {
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out()).contains("WARNING: the oscillation amplitude").contains("has no true ultimate point");
+    }
+
+    /**
+     * A lag with no dead time, 1/(45s + 1) sampled every second: the relay can only oscillate through the
+     * hold's delay, so it swings at a few samples a cycle whatever the 45 s time constant (Åström &amp;
+     * Wittenmark §7: the hold acts as a delay of h/2). Such a period is refused, not tuned from.
+     */
+    @Test
+    void aRelayPeriodSetByTheSamplingIsRefused(@TempDir Path dir) throws Exception {
+        Path file = dir.resolve("tank.yaml");
+        Files.writeString(file, """
+                controller: {form: parallel, proportional-gain: 2.0, integral-gain: 0.05, sample-period: 1.0,
+                             output-min: 0, output-max: 10}
+                plant: {type: first-order, gain: 1.0, time-constant: 45.0}
+                setpoint: [{at: 0, value: 2.0}]
+                duration: 600
+                """);
+        CommandRun run = CommandRun.of("autotune", file.toString());
+        assertThat(run.exitCode()).as(run.out()).isEqualTo(2);
+        assertThat(run.err()).contains("sample periods (h = 1.0 s), fewer than 10: it is set by the sampling")
+                .contains("no setting is suggested");
+        assertThat(run.out()).doesNotContain("ziegler-nichols");
     }
 
     @Test

@@ -83,7 +83,7 @@ class FrequencyCommandsTest {
         assertThat(run.exitCode()).as(run.err()).isZero();
         Scenario s = ScenarioFile.read(Path.of(scenario("booster-pump.yaml")));
         StabilityMargins c = LoopAnalysis.continuous(s.linearPlant().orElseThrow(), s.controller().orElseThrow());
-        SampledMargins d = LoopAnalysis.sampled(s.linearPlant().orElseThrow(), s.controller().orElseThrow());
+        SampledMargins d = LoopAnalysis.sampled(s.sampledLoop().orElseThrow());
         JsonNode root = MAPPER.readTree(run.out());
         assertThat(root.get("continuous").get("phase_margin_deg").asDouble())
                 .isEqualTo(c.gainCrossover().orElseThrow().phaseMarginDegrees());
@@ -143,7 +143,8 @@ class FrequencyCommandsTest {
     void compareTableUsesDefaultPeriodsFromTheCrossover() {
         CommandRun run = run("compare", scenario("third-order-p.yaml"));
         assertThat(run.exitCode()).as(run.err()).isZero();
-        assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1)", "continuous", "finer than needed",
+        assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)",
+                "periods [0.01, 0.016, 0.081, 0.24, 0.81] s", "continuous", "finer than needed",
                 "typical", "coarse");
     }
 

@@ -75,7 +75,7 @@ class ReplayCommandTest {
             assertThat(row[8]).isEqualTo("normal");
         }
         assertThat(out.toString()).isEqualTo("Replayed " + trace + " through " + controller + " (fixed period 0.5 s)\n"
-                + "Rows: 4, 2.000 s\n"
+                + "Rows: 4, spanning 1.500 s (first to last time)\n"
                 + "Faults: none\n"
                 + "Output: min 2.000, max 2.300, mean 2.150\n"
                 + "Time in saturation: none possible (no output limits)\n"
@@ -156,7 +156,7 @@ class ReplayCommandTest {
         Path trace = file("t.csv", "time,setpoint,measurement\n0,1,0\n");
         Path nowhere = dir.resolve("nowhere.yaml");
         assertThat(run("replay", "--controller", nowhere.toString(), "--trace", trace.toString())).isEqualTo(2);
-        assertThat(err.toString().strip()).isEqualTo(nowhere + ": cannot be read (no such file)");
+        assertThat(err.toString().strip()).isEqualTo(nowhere + ": cannot be read (no such file or directory)");
     }
 
     @Test
@@ -165,7 +165,7 @@ class ReplayCommandTest {
         Path trace = file("t.csv", "time,setpoint,measurement\n0,1,0\n");
         assertThat(run("replay", "--controller", controller.toString(), "--trace", trace.toString(),
                 "--out", dir.toString())).isEqualTo(2);
-        assertThat(err.toString()).startsWith(dir.toAbsolutePath() + ": cannot be written (");
+        assertThat(err.toString()).startsWith("--out must name a file, not a directory: --out=" + dir.toAbsolutePath());
     }
 
     @Test

@@ -69,7 +69,10 @@ class SweepCommandTest {
         assertThat(json.get("unstable_share").asDouble()).isEqualTo(beyondBoundary / 40.0);
         assertThat(json.get("worst_run").get("stability").asText()).isEqualTo("unstable");
         assertThat(json.get("nominal_run").get("gain_factor").asDouble()).isEqualTo(1.0);
-        assertThat(json.get("overshoot_percent").get("count").asInt()).isEqualTo(40);
+        // overshoot is a step figure: only the runs that settled have one (issue 10: no figure without settling)
+        long settled = rows.stream().filter(r -> !r.get("settling_time").isEmpty()).count();
+        assertThat(json.get("overshoot_percent").get("count").asLong()).isEqualTo(settled);
+        assertThat(rows.stream().filter(r -> !r.get("overshoot_percent").isEmpty()).count()).isEqualTo(settled);
         assertThat(Files.size(out.resolve("sweep-measurements.png"))).isPositive();
         assertThat(Files.readString(out.resolve("sweep-measurements.svg"))).contains("<svg");
         assertThat(Files.readString(out.resolve("report.html"))).contains("data:image/png;base64,");

@@ -45,6 +45,10 @@ class TuneCommandTest {
         assertThat(node.get("gain_margin").asDouble()).isCloseTo(Math.PI, within(1e-3));
         assertThat(node.get("phase_margin_deg").asDouble()).isCloseTo(90.0 - Math.toDegrees(0.5), within(1e-2));
         assertThat(node.get("ms").asDouble()).isCloseTo(1.59, within(0.01));
+        // without --sample-period the margins are the continuous design's, but the verdict is the sampled
+        // loop's at the rule-of-thumb period h = min(T, L)/20 = 0.05 s, from its closed-loop poles
+        assertThat(node.get("margins_of").asText()).isEqualTo("continuous");
+        assertThat(node.get("stable").asBoolean()).isTrue();
         assertThat(node.get("citation").asText()).contains("Skogestad").contains("2003");
         assertThat(node.get("setpoint_step").get("overshoot_percent").isNumber()).isTrue();
         assertThat(node.get("load_step").get("iae").asDouble()).isPositive();

@@ -295,7 +295,7 @@ class ControllerFileTest {
         Path missing = dir.resolve("nowhere.yaml");
         assertThatThrownBy(() -> ControllerFile.read(missing))
                 .isInstanceOf(InputFileException.class)
-                .hasMessage(missing + ": cannot be read (no such file)");
+                .hasMessage(missing + ": cannot be read (no such file or directory)");
     }
 
     @Test

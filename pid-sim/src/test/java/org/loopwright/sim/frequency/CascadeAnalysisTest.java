@@ -46,7 +46,7 @@ class CascadeAnalysisTest {
     @Test
     void outerMarginsApproachTheOuterLoopAloneAsTheInnerLoopGetsFaster() {
         StabilityMargins alone = LoopAnalysis.continuous(OUTER_PLANT, outer());
-        SampledMargins aloneSampled = LoopAnalysis.sampled(OUTER_PLANT, outer());
+        SampledMargins aloneSampled = LoopAnalysis.sampled(SampledLoop.of(OUTER_PLANT, outer()));
         assertThat(alone.gainCrossover().orElseThrow().phaseMarginDegrees())
                 .isCloseTo(90.0 - Math.toDegrees(0.2), within(1e-6));
         double previousGap = Double.POSITIVE_INFINITY;

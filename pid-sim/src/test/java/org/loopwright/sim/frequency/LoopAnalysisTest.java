@@ -137,9 +137,9 @@ class LoopAnalysisTest {
             ControllerSettings s = ControllerSettings.builder().gains(new ParallelGains(1.2, 0.3, 0.9))
                     .samplePeriodSeconds(h).integralMethod(IntegralMethod.BACKWARD_EULER)
                     .derivativeMethod(DerivativeMethod.TUSTIN).build();
-            SampledMargins sm = LoopAnalysis.sampled(plant, s);
+            SampledMargins sm = LoopAnalysis.sampled(SampledLoop.of(plant, s));
             PhaseCrossing pc = sm.margins().phaseCrossover().orElseThrow();
-            PulseTransferFunction scaled = LoopAnalysis.sampledLoop(plant, s, h).times(pc.gainMargin());
+            PulseTransferFunction scaled = LoopAnalysis.sampledLoop(new SampledLoop(plant, s, h, 0)).times(pc.gainMargin());
             List<Complex> poles = LoopAnalysis.closedLoopPoles(scaled);
             double closest = poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow();
             assertThat(closest).as("h=%s", h).isLessThan(1e-6);
@@ -168,8 +168,8 @@ class LoopAnalysisTest {
             ControllerSettings s = ControllerSettings.builder().gains(new ParallelGains(kp, 0.1, 0))
                     .samplePeriodSeconds(h).build();
             TransferFunction plant = TransferFunction.integrating(gain, deadTime);
-            PhaseCrossing pc = LoopAnalysis.sampled(plant, s).margins().phaseCrossover().orElseThrow();
-            List<Complex> poles = LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(plant, s, h).times(pc.gainMargin()));
+            PhaseCrossing pc = LoopAnalysis.sampled(SampledLoop.of(plant, s)).margins().phaseCrossover().orElseThrow();
+            List<Complex> poles = LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(new SampledLoop(plant, s, h, 0)).times(pc.gainMargin()));
             assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
         }
     }
@@ -182,7 +182,7 @@ class LoopAnalysisTest {
         double h = 0.1;
         TransferFunction plant = new TransferFunction(new double[] {1}, new double[] {2, 3, 1}, 0.25);
         ControllerSettings s = settings(1.5, 0.6, 0.5, h);
-        StabilityMargins m = LoopAnalysis.sampled(plant, s).margins();
+        StabilityMargins m = LoopAnalysis.sampled(SampledLoop.of(plant, s)).margins();
         assertThat(m.gainCrossings()).hasSize(1);
         double delayMargin = m.delayMarginSeconds().orElseThrow();
         int critical = (int) Math.ceil(delayMargin / h);
@@ -190,7 +190,7 @@ class LoopAnalysisTest {
         for (int extra : new int[] {critical - 1, critical}) {
             TransferFunction delayed = new TransferFunction(plant.numerator(), plant.denominator(),
                     plant.deadTimeSeconds() + extra * h);
-            SampledMargins d = LoopAnalysis.sampled(delayed, s);
+            SampledMargins d = LoopAnalysis.sampled(SampledLoop.of(delayed, s));
             assertThat(d.stable()).as("%d extra samples, delay margin %s s", extra, delayMargin)
                     .isEqualTo(extra < critical);
             assertThat(d.margins().gainCrossover().orElseThrow().phaseMarginDegrees()).isCloseTo(
@@ -213,9 +213,9 @@ class LoopAnalysisTest {
         PhaseCrossing pc = LoopAnalysis.continuous(plant, integralOnly).phaseCrossover().orElseThrow();
         assertThat(pc.frequencyRadPerSecond()).isCloseTo(Math.PI / (2 * deadTime), within(1e-10));
         assertThat(pc.gainMargin()).isCloseTo(Math.PI / (2 * deadTime * gain * ki), within(1e-9));
-        PhaseCrossing sampled = LoopAnalysis.sampled(plant, integralOnly).margins().phaseCrossover().orElseThrow();
+        PhaseCrossing sampled = LoopAnalysis.sampled(SampledLoop.of(plant, integralOnly)).margins().phaseCrossover().orElseThrow();
         List<Complex> poles = LoopAnalysis.closedLoopPoles(
-                LoopAnalysis.sampledLoop(plant, integralOnly, 0.5).times(sampled.gainMargin()));
+                LoopAnalysis.sampledLoop(new SampledLoop(plant, integralOnly, 0.5, 0)).times(sampled.gainMargin()));
         assertThat(poles.stream().mapToDouble(p -> Math.abs(p.norm() - 1.0)).min().orElseThrow()).isLessThan(1e-6);
     }
 
@@ -225,7 +225,7 @@ class LoopAnalysisTest {
         // gain K·b/(1+a) = 1 with a = e^{−h/T}, b = 1 − a (Åström & Wittenmark, §3.4 / §2.3 ZOH sampling).
         double h = 0.5;
         TransferFunction plant = new TransferFunction(new double[] {1}, new double[] {1, 1}, 0.0);
-        SampledMargins sm = LoopAnalysis.sampled(plant, settings(2.0, 0, 0, h));
+        SampledMargins sm = LoopAnalysis.sampled(SampledLoop.of(plant, settings(2.0, 0, 0, h)));
         double a = Math.exp(-h);
         PhaseCrossing pc = sm.margins().phaseCrossover().orElseThrow();
         assertThat(pc.frequencyRadPerSecond()).isCloseTo(Math.PI / h, within(1e-12));
@@ -244,7 +244,7 @@ class LoopAnalysisTest {
         double[] periods = {0.1, 0.01, 0.001};
         double[][] errors = new double[periods.length][];
         for (int i = 0; i < periods.length; i++) {
-            StabilityMargins d = LoopAnalysis.sampled(plant, base, periods[i]).margins();
+            StabilityMargins d = LoopAnalysis.sampled(new SampledLoop(plant, base, periods[i], 0)).margins();
             errors[i] = new double[] {
                 Math.abs(d.gainCrossover().orElseThrow().phaseMarginDegrees() - c.gainCrossover().orElseThrow().phaseMarginDegrees()),
                 Math.abs(d.phaseCrossover().orElseThrow().gainMargin() / c.phaseCrossover().orElseThrow().gainMargin() - 1),
@@ -274,7 +274,7 @@ class LoopAnalysisTest {
         GainCrossing c = LoopAnalysis.continuous(plant, pi).gainCrossover().orElseThrow();
         for (double wh : new double[] {0.05, 0.1, 0.2}) {
             double h = wh / c.frequencyRadPerSecond();
-            GainCrossing d = LoopAnalysis.sampled(plant, pi, h).margins().gainCrossover().orElseThrow();
+            GainCrossing d = LoopAnalysis.sampled(new SampledLoop(plant, pi, h, 0)).margins().gainCrossover().orElseThrow();
             double lossRadians = Math.toRadians(c.phaseMarginDegrees() - d.phaseMarginDegrees());
             assertThat(lossRadians).as("ωc·h=%s", wh).isCloseTo(wh / 2.0, within(0.1 * wh / 2.0));
         }

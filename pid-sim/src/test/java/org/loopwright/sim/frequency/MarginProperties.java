@@ -39,9 +39,9 @@ class MarginProperties {
         ControllerSettings settings = ControllerSettings.builder()
                 .gains(new ParallelGains(kp, kp / (integralTimeRatio * lagSeconds), 0.0)).samplePeriodSeconds(h)
                 .integralMethod(integral).derivativeMethod(derivative).build();
-        SampledMargins sampled = LoopAnalysis.sampled(plant, settings);
+        SampledMargins sampled = LoopAnalysis.sampled(SampledLoop.of(plant, settings));
         for (PhaseCrossing crossing : sampled.margins().phaseCrossings()) {
-            PulseTransferFunction scaled = LoopAnalysis.sampledLoop(plant, settings, h).times(crossing.gainMargin());
+            PulseTransferFunction scaled = LoopAnalysis.sampledLoop(new SampledLoop(plant, settings, h, 0)).times(crossing.gainMargin());
             List<Complex> poles = LoopAnalysis.closedLoopPoles(scaled);
             Complex expected = new Complex(Math.cos(crossing.frequencyRadPerSecond() * h),
                     Math.sin(crossing.frequencyRadPerSecond() * h));

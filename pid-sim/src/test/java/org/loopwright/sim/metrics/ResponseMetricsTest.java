@@ -94,4 +94,63 @@ class ResponseMetricsTest {
         assertThat(ResponseWindow.of(stepped)).isEqualTo(new ResponseWindow(10.0, 40.5));
         assertThat(ResponseWindow.of(stepped).describe()).isEqualTo("from 10 s to 40.5 s");
     }
+
+    /**
+     * P control Kp on an integrator 1/s sampled at h gives y(k+1) = y(k) + a·(r − y(k)), a = Kp·h
+     * (the zero-order hold is exact for an integrator): the error is multiplied by 1 − a each sample
+     * (Åström &amp; Wittenmark, Computer-Controlled Systems, 3rd ed., §3.2). With a = 2.05 it alternates
+     * and grows by 1.05 a sample: 1.05^200 ≈ 1.7e4, far from the divergence bound but never settled, so no
+     * overshoot is claimed (the window's last sample used to be taken as the final value, giving 0 %).
+     * With a = 2.5 it grows by 1.5 a sample and passes 10⁶ within 35 samples: the run diverged.
+     */
+    @Test
+    void growingOscillationIsNotSettledAndOnePastTheBoundDiverged() {
+        TransferFunction integrator = TransferFunction.integrating(1.0, 0.0);
+        Scenario growing = Scenario.setpointStep(integrator, pi(20.5, Double.POSITIVE_INFINITY, 0.1), 1.0, 20.0);
+        ResponseMetrics m = ResponseMetrics.of(growing, Simulation.run(growing));
+        assertThat(m.state()).isEqualTo(ResponseState.NOT_SETTLED);
+        assertThat(m.overshootPercent()).isNaN();
+        assertThat(m.settlingTimeSeconds()).isNaN();
+        assertThat(m.steadyStateError()).isNaN();
+
+        Scenario diverging = Scenario.setpointStep(integrator, pi(25.0, Double.POSITIVE_INFINITY, 0.1), 1.0, 100.0);
+        Trajectory t = Simulation.run(diverging);
+        assertThat(t.diverged()).isTrue();
+        // |e(k)| = 1.5^k passes 1e6 (the bound for a unit setpoint) at k = ceil(ln 1e6 / ln 1.5) = 35
+        assertThat(t.length()).isEqualTo(35);
+        assertThat(t.divergedAtSeconds()).isCloseTo(3.5, within(1e-9));
+        ResponseMetrics d = ResponseMetrics.of(diverging, t);
+        assertThat(d.state()).isEqualTo(ResponseState.DIVERGED);
+        assertThat(d.iae()).isNaN();
+        assertThat(d.overshootPercent()).isNaN();
+    }
+
+    /**
+     * Overshoot is taken against the new setpoint: P control Kp on the integrator with a = Kp·h = 1.5
+     * gives e(k) = (−0.5)^k, so y(1) = 1.5 on a unit step: 50 % overshoot at t = h, and the loop settles
+     * on the setpoint (Åström &amp; Wittenmark §3.2, as above).
+     */
+    @Test
+    void overshootIsThePeakBeyondTheNewSetpointOverTheStep() {
+        Scenario s = Scenario.setpointStep(TransferFunction.integrating(1.0, 0.0),
+                pi(15.0, Double.POSITIVE_INFINITY, 0.1), 2.0, 10.0);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(ResponseState.SETTLED);
+        assertThat(m.overshootPercent()).isCloseTo(50.0, within(1e-9));
+        assertThat(m.peakTimeSeconds()).isCloseTo(0.1, within(1e-12));
+    }
+
+    /**
+     * Total variation counts the move at the window's first sample: P control Kp = 2 on 1/(s + 1) at
+     * h = 0.1 starts at u(0) = 2 (a move of 2 from the loop at rest) and then falls monotonically to
+     * Kp/(1 + Kp) = 2/3 (the sampled pole a − Kp(1 − a) = 0.7285 is positive, so no ringing), giving
+     * Σ|Δu| = 2 + (2 − 2/3) (analytic; the steady state of P control on a unit-gain first-order plant).
+     */
+    @Test
+    void totalVariationCountsTheMoveAtTheWindowsFirstSample() {
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 1.0),
+                pi(2.0, Double.POSITIVE_INFINITY, 0.1), 1.0, 30.0);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.totalVariation()).isCloseTo(2.0 + (2.0 - 2.0 / 3.0), within(1e-9));
+    }
 }

@@ -126,13 +126,15 @@ class ReplayTest {
         assertThat(summary.outputMin()).isEqualTo(5.0);
         assertThat(summary.outputMax()).isEqualTo(10.0);
         assertThat(summary.outputMean()).isEqualTo(8.75);
-        assertThat(summary.saturatedSeconds()).isEqualTo(1.5);
-        assertThat(summary.totalSeconds()).isEqualTo(2.0);
+        // the trace spans 0 to 1.5 s (issue 10: it used to count the first row's period too, 2 s); each
+        // output holds until the next row's time, so the rows at 0 and 1 s are 1 s at the limit
+        assertThat(summary.saturatedSeconds()).isEqualTo(1.0);
+        assertThat(summary.totalSeconds()).isEqualTo(1.5);
         assertThat(summary.lines()).containsExactly(
-                "Rows: 4, 2.000 s",
+                "Rows: 4, spanning 1.500 s (first to last time)",
                 "Faults: 1 row (measurement-not-finite 1)",
                 "Output: min 5.000, max 10.000, mean 8.750",
-                "Time in saturation: 1.500 s of 2.000 s (75.0 %) at output-min 0.000 or output-max 10.000");
+                "Time in saturation: 1.000 s of 1.500 s (66.7 %) at output-min 0.000 or output-max 10.000");
         StringBuilder csv = new StringBuilder();
         result.writeCsv(csv);
         assertThat(csv.toString()).isEqualTo("""

@@ -72,9 +72,9 @@ class TraceFileTest {
                         "log.csv: row 1, column 'time': appears twice in the header; each name may appear once"),
                 Arguments.of("time,,setpoint,measurement\n0,1,2,3\n",
                         "log.csv: row 1, column '#2': the header gives this column no name; every column needs one"),
-                Arguments.of("time,setpoint,measurement,output\n0,1,2,3\n",
-                        "log.csv: row 1, column 'output': is a column the replay writes (output, proportional,"
-                                + " integral, derivative, status); rename it in the trace"),
+                Arguments.of("time,setpoint,measurement,logged_output\n0,1,2,3\n",
+                        "log.csv: row 1, column 'logged_output': is a column the replay writes (logged_output,"
+                                + " proportional, integral, derivative, status); rename it in the trace"),
                 Arguments.of(header + "0,1,2\n0.5,1\n",
                         "log.csv: row 3, column 'measurement': the row has 2 cells; the header has 3 columns"),
                 Arguments.of(header + "0,1,2,9\n",

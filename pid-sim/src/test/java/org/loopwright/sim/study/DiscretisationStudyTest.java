@@ -115,12 +115,14 @@ class DiscretisationStudyTest {
     }
 
     @Test
-    void defaultPeriodsSpanTheRuleOfThumbAroundTheCrossover() {
+    void defaultPeriodsSpanTheRuleOfThumbAroundTheCrossoverAndIncludeTheScenariosOwn() {
         // common practice (SamplingVerdict): ω_c·h ≈ 0.05–0.3; the defaults sit at 0.02, 0.1, 0.3, 1.
         double crossover = 0.37;
-        List<Double> periods = DiscretisationStudy.defaultPeriods(crossover);
+        List<Double> periods = DiscretisationStudy.defaultPeriods(crossover, 0.27);
         double[] expected = {0.02, 0.1, 0.3, 1.0};
         assertThat(periods).hasSize(4);
+        // issue 10, item 15: the scenario's own period is among the defaults (and is not repeated)
+        assertThat(DiscretisationStudy.defaultPeriods(crossover, 0.5)).containsExactly(0.054, 0.27, 0.5, 0.81, 2.7);
         for (int i = 0; i < 4; i++) {
             assertThat(periods.get(i) * crossover).isCloseTo(expected[i], within(0.05 * expected[i]));
         }

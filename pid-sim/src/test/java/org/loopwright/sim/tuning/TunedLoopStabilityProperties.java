@@ -13,6 +13,7 @@ import org.loopwright.pid.tuning.ModelRule;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.TuningResult;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 
 /**
@@ -35,7 +36,7 @@ class TunedLoopStabilityProperties {
             if (result instanceof TunedGains tuned) {
                 ControllerSettings settings = TuningEvaluation.settings(tuned,
                         TuningEvaluation.samplePeriodSeconds(model), org.loopwright.pid.Action.REVERSE);
-                SampledMargins sampled = LoopAnalysis.sampled(TuningEvaluation.transferFunction(model), settings);
+                SampledMargins sampled = LoopAnalysis.sampled(SampledLoop.of(TuningEvaluation.transferFunction(model), settings));
                 assertThat(sampled.stable()).as("%s %s on %s: largest pole %s", rule, type, model,
                         sampled.largestPoleMagnitude()).isTrue();
             }
