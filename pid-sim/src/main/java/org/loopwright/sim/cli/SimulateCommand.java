@@ -41,7 +41,11 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "simulate", mixinStandardHelpOptions = true,
         description = {"Simulate a controller on a plant model and report the response.",
             "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
-            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention)."})
+            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention).",
+            "The first row says whether the response settled, did not settle or DIVERGED.",
+            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures are given only once the",
+            "output has settled (2 %% band), else 'not settled'.",
+            "Divergence: " + Divergence.RULE + "; such a run is stopped there and reported DIVERGED."})
 public final class SimulateCommand implements Callable<Integer> {
 
     @Parameters(index = "0", arity = "0..1", paramLabel = "SCENARIO.yaml",
