@@ -88,11 +88,13 @@ public final class CompareCommand implements Callable<Integer> {
             if (output.givenDirectory().isPresent()) {
                 Path outDirectory = output.givenDirectory().get();
                 List<Path> written;
-                try {
-                    written = new ArrayList<>(StudyPlots.write(result, outDirectory));
-                    written.add(HtmlReports.compare(outDirectory, HtmlReports.record(spec, loop.scenario(),
+                // staged, then moved: a run that fails half way leaves no half-written file behind
+                try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+                    written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
+                    written.add(HtmlReports.compare(stage.directory(), HtmlReports.record(spec, loop.scenario(),
                             scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
                             StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
+                    stage.commit();
                 } catch (IOException e) {
                     throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
                 }

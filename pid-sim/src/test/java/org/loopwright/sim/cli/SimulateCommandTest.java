@@ -7,6 +7,7 @@ import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.stream.Stream;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -42,6 +43,10 @@ class SimulateCommandTest {
         assertThat(csv).hasSize(7201 + 1);
         assertThat(Files.size(dir.resolve("response.png"))).isPositive();
         assertThat(Files.readString(dir.resolve("response.svg"))).contains("<svg");
+        // written into a staging folder, then moved: nothing of the stage is left
+        try (Stream<Path> files = Files.list(dir)) {
+            assertThat(files.map(p -> p.getFileName().toString())).noneMatch(name -> name.startsWith(".loopwright"));
+        }
     }
 
     /**
