@@ -7,7 +7,7 @@ public enum Action {
     /** e = y − r: the output rises when the measurement rises above the setpoint (a cooler). */
     DIRECT;
 
-    /** +1 for reverse action, −1 for direct action. */
+    /** {@return +1 for reverse action, −1 for direct action} */
     public double sign() {
         return this == REVERSE ? 1.0 : -1.0;
     }

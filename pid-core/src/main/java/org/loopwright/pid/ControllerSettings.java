@@ -151,13 +151,17 @@ public final class ControllerSettings {
         return Math.min(periodSeconds / trackingTimeSeconds, 1.0);
     }
 
-    /** A builder with the defaults: reverse action, b = 1, c = 0, N = 10, Tustin integral,
-     * backward-Euler derivative, unlimited output, back-calculation, hold on faults. */
+    /**
+     * A builder with the defaults: reverse action, b = 1, c = 0, N = 10, Tustin integral,
+     * backward-Euler derivative, unlimited output, back-calculation, hold on faults.
+     *
+     * @return a new builder holding those defaults; it still needs the gains and the sample period
+     */
     public static Builder builder() {
         return new Builder();
     }
 
-    /** A builder that starts from these settings, for a retune that changes a few of them. */
+    /** {@return a builder that starts from these settings, for a retune that changes a few of them} */
     public Builder toBuilder() {
         Builder b = new Builder();
         b.gains = gains;
@@ -216,117 +220,125 @@ public final class ControllerSettings {
         return derivativeTime > 0.0 ? Math.sqrt(integralTime * derivativeTime) : integralTime;
     }
 
-    /** The gains as given, in their own form. */
+    /** {@return the gains as given, in their own form} */
     public PidGains gains() {
         return gains;
     }
 
-    /** The gains as the controller runs them. */
+    /** {@return the gains as the controller runs them} */
     public ParallelGains parallelGains() {
         return gains.toParallel();
     }
 
-    /** The sample period h in seconds for the fixed-period update. */
+    /** {@return the sample period h in seconds for the fixed-period update} */
     public double samplePeriodSeconds() {
         return samplePeriodSeconds;
     }
 
-    /** Setpoint weight b of the proportional term, 0–1. */
+    /** {@return setpoint weight b of the proportional term, 0–1} */
     public double proportionalSetpointWeight() {
         return proportionalSetpointWeight;
     }
 
-    /** Setpoint weight c of the derivative term, 0–1; 0 is derivative on measurement. */
+    /** {@return setpoint weight c of the derivative term, 0–1; 0 is derivative on measurement} */
     public double derivativeSetpointWeight() {
         return derivativeSetpointWeight;
     }
 
-    /** The derivative filter ratio N (used when no filter time is given). */
+    /** {@return the derivative filter ratio N (used when no filter time is given)} */
     public double derivativeFilterRatio() {
         return derivativeFilterRatio;
     }
 
-    /** The derivative filter time Tf in seconds as resolved (0 when there is no derivative action). */
+    /** {@return the derivative filter time Tf in seconds as resolved (0 when there is no derivative action)} */
     public double derivativeFilterTimeSeconds() {
         return derivativeFilterTimeSeconds;
     }
 
-    /** How the integral is discretised. */
+    /** {@return how the integral is discretised} */
     public IntegralMethod integralMethod() {
         return integralMethod;
     }
 
-    /** How the filtered derivative is discretised. */
+    /** {@return how the filtered derivative is discretised} */
     public DerivativeMethod derivativeMethod() {
         return derivativeMethod;
     }
 
-    /** Direct or reverse action. */
+    /** {@return direct or reverse action} */
     public Action action() {
         return action;
     }
 
-    /** Lowest output (may be −∞). */
+    /** {@return lowest output (may be −∞)} */
     public double outputMin() {
         return outputMin;
     }
 
-    /** Highest output (may be +∞). */
+    /** {@return highest output (may be +∞)} */
     public double outputMax() {
         return outputMax;
     }
 
-    /** The windup protection scheme. */
+    /** {@return the windup protection scheme} */
     public WindupProtection windupProtection() {
         return windupProtection;
     }
 
-    /** Tracking time Tt in seconds for back-calculation, as resolved. */
+    /** {@return tracking time Tt in seconds for back-calculation, as resolved} */
     public double trackingTimeSeconds() {
         return trackingTimeSeconds;
     }
 
-    /** Largest output change per second (+∞ for none). */
+    /** {@return largest output change per second (+∞ for none)} */
     public double outputSlewPerSecond() {
         return outputSlewPerSecond;
     }
 
-    /** Largest setpoint change per second seen by the law (+∞ for none). */
+    /** {@return largest setpoint change per second seen by the law (+∞ for none)} */
     public double setpointSlewPerSecond() {
         return setpointSlewPerSecond;
     }
 
-    /** What to output on a faulty sample. */
+    /** {@return what to output on a faulty sample} */
     public FaultPolicy faultPolicy() {
         return faultPolicy;
     }
 
-    /** The output for {@link FaultPolicy#SAFE_OUTPUT}, clamped to the range when used. */
+    /** {@return the output for {@link FaultPolicy#SAFE_OUTPUT}, clamped to the range when used} */
     public double safeOutput() {
         return safeOutput;
     }
 
-    /** Errors smaller than this are treated as zero; larger ones are reduced by it (no step at its edge). */
+    /**
+     * {@return the error deadband: errors smaller than this are treated as zero; larger ones are reduced by it (no
+     * step at its edge)}
+     */
     public double errorDeadband() {
         return errorDeadband;
     }
 
-    /** The span of a circular process variable (360 for degrees), or 0 for an ordinary one. */
+    /** {@return the span of a circular process variable (360 for degrees), or 0 for an ordinary one} */
     public double wrapSpan() {
         return wrapSpan;
     }
 
-    /** Position or increment output. */
+    /** {@return position or increment output} */
     public OutputKind outputKind() {
         return outputKind;
     }
 
-    /** The difference-equation coefficients at the configured sample period. */
+    /** {@return the difference-equation coefficients at the configured sample period} */
     public DiscretePid discretePid() {
         return fixedPeriod;
     }
 
-    /** The difference-equation coefficients at another sample period, as the variable-period update uses them. */
+    /**
+     * The difference-equation coefficients at another sample period, as the variable-period update uses them.
+     *
+     * @param periodSeconds the sample period h of this update in seconds, finite and &gt; 0
+     * @return the coefficients P, I and D use at that period
+     */
     public DiscretePid discretePid(double periodSeconds) {
         SettingChecks.positive("periodSeconds", periodSeconds);
         return DiscretePid.of(proportionalGain, integralGain, derivativeGain, filterTimeSeconds,
@@ -359,107 +371,196 @@ public final class ControllerSettings {
         private Builder() {
         }
 
-        /** The gains, in any form (required). */
+        /**
+         * The gains, in any form (required).
+         *
+         * @param value the gains in ideal, parallel or series form
+         * @return this builder
+         */
         public Builder gains(PidGains value) {
             gains = value;
             return this;
         }
 
-        /** The sample period h in seconds (required, &gt; 0). */
+        /**
+         * The sample period h in seconds (required, &gt; 0).
+         *
+         * @param value the sample period h in seconds, finite and &gt; 0
+         * @return this builder
+         */
         public Builder samplePeriodSeconds(double value) {
             samplePeriodSeconds = value;
             return this;
         }
 
-        /** Setpoint weights b (proportional) and c (derivative), each 0–1. */
+        /**
+         * Setpoint weights b (proportional) and c (derivative), each 0–1.
+         *
+         * @param proportional b, the share of the setpoint in the proportional term, 0–1 (default 1)
+         * @param derivative c, the share of the setpoint in the derivative term, 0–1 (default 0)
+         * @return this builder
+         */
         public Builder setpointWeights(double proportional, double derivative) {
             proportionalSetpointWeight = proportional;
             derivativeSetpointWeight = derivative;
             return this;
         }
 
-        /** Derivative filter as N: Tf = Td/N (ideal Td). */
+        /**
+         * Derivative filter as N: Tf = Td/N (ideal Td).
+         *
+         * @param value N, &gt; 0 (default 10); replaces a filter time given before
+         * @return this builder
+         */
         public Builder derivativeFilterRatio(double value) {
             derivativeFilterRatio = value;
             derivativeFilterTimeSeconds = Double.NaN;
             return this;
         }
 
-        /** Derivative filter as a time constant Tf in seconds. */
+        /**
+         * Derivative filter as a time constant Tf in seconds.
+         *
+         * @param value Tf in seconds, &gt; 0; when given it wins over N
+         * @return this builder
+         */
         public Builder derivativeFilterTimeSeconds(double value) {
             derivativeFilterTimeSeconds = value;
             return this;
         }
 
-        /** Integral discretisation. */
+        /**
+         * Integral discretisation.
+         *
+         * @param value the rule for the integral increment (default Tustin)
+         * @return this builder
+         */
         public Builder integralMethod(IntegralMethod value) {
             integralMethod = value;
             return this;
         }
 
-        /** Derivative discretisation. */
+        /**
+         * Derivative discretisation.
+         *
+         * @param value the rule for the filtered derivative (default backward Euler)
+         * @return this builder
+         */
         public Builder derivativeMethod(DerivativeMethod value) {
             derivativeMethod = value;
             return this;
         }
 
-        /** Direct or reverse action. */
+        /**
+         * Direct or reverse action.
+         *
+         * @param value reverse (output rises when the measurement is below the setpoint, default) or direct
+         * @return this builder
+         */
         public Builder action(Action value) {
             action = value;
             return this;
         }
 
-        /** Output range; use infinities for an unlimited side. */
+        /**
+         * Output range; use infinities for an unlimited side.
+         *
+         * @param min the lowest output, a number or −∞, &le; max
+         * @param max the highest output, a number or +∞, &ge; min
+         * @return this builder
+         */
         public Builder outputRange(double min, double max) {
             outputMin = min;
             outputMax = max;
             return this;
         }
 
-        /** Windup protection scheme. */
+        /**
+         * Windup protection scheme.
+         *
+         * @param value how the integral is kept from winding up while the output is limited (default back-calculation)
+         * @return this builder
+         */
         public Builder windupProtection(WindupProtection value) {
             windupProtection = value;
             return this;
         }
 
-        /** Tracking time Tt in seconds for back-calculation (default √(Ti·Td), or Ti for PI). */
+        /**
+         * Tracking time Tt in seconds for back-calculation (default √(Ti·Td), or Ti for PI).
+         *
+         * @param value Tt in seconds, &gt; 0
+         * @return this builder
+         */
         public Builder trackingTimeSeconds(double value) {
             trackingTimeSeconds = value;
             return this;
         }
 
-        /** Output slew limit in units per second (+∞ for none). */
+        /**
+         * Output slew limit in units per second (+∞ for none).
+         *
+         * @param value the largest output change per second in output units, &gt; 0, or +∞ for none
+         * @return this builder
+         */
         public Builder outputSlewPerSecond(double value) {
             outputSlewPerSecond = value;
             return this;
         }
 
-        /** Setpoint slew limit in units per second (+∞ for none). */
+        /**
+         * Setpoint slew limit in units per second (+∞ for none).
+         *
+         * @param value the largest setpoint change per second in process units, &gt; 0, or +∞ for none
+         * @return this builder
+         */
         public Builder setpointSlewPerSecond(double value) {
             setpointSlewPerSecond = value;
             return this;
         }
 
-        /** What to output on a faulty sample; the safe output is used by {@link FaultPolicy#SAFE_OUTPUT}. */
+        /**
+         * What to output on a faulty sample; the safe output is used by {@link FaultPolicy#SAFE_OUTPUT}.
+         *
+         * @param policy what to output on a faulty sample (default hold)
+         * @param safeOutputValue the output for {@link FaultPolicy#SAFE_OUTPUT}, finite; clamped to the output range
+         *         when used
+         * @return this builder
+         */
         public Builder faultPolicy(FaultPolicy policy, double safeOutputValue) {
             faultPolicy = policy;
             safeOutput = safeOutputValue;
             return this;
         }
 
-        /** Error deadband (0 for none). */
+        /**
+         * Error deadband (0 for none).
+         *
+         * @param value the deadband in process units, &ge; 0
+         * @return this builder
+         */
         public Builder errorDeadband(double value) {
             errorDeadband = value;
             return this;
         }
 
-        /** Circular process variable of this span (360 for degrees); 0 for an ordinary one. */
+        /**
+         * Circular process variable of this span (360 for degrees); 0 for an ordinary one.
+         *
+         * @param value the span in process units, &ge; 0; a span &gt; 0 needs a proportional setpoint weight of 1
+         * @return this builder
+         */
         public Builder wrapSpan(double value) {
             wrapSpan = value;
             return this;
         }
 
-        /** Position or increment output. */
+        /**
+         * Position or increment output.
+         *
+         * @param value position (the output itself, default) or increment (the change since the last update)
+         * @return this builder
+         */
         public Builder outputKind(OutputKind value) {
             outputKind = value;
             return this;
@@ -468,6 +569,7 @@ public final class ControllerSettings {
         /**
          * Validates and freezes the settings.
          *
+         * @return the immutable settings
          * @throws InvalidSettingException naming the field, the value and what is allowed
          */
         public ControllerSettings build() {

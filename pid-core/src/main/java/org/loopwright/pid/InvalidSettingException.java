@@ -10,8 +10,10 @@ public final class InvalidSettingException extends IllegalArgumentException {
 
     private static final long serialVersionUID = 1L;
 
+    /** The setting's name as in the builder. */
     private final String field;
     private final transient Object value;
+    /** What is allowed, phrased to follow the field name. */
     private final String rule;
 
     /**
@@ -26,17 +28,17 @@ public final class InvalidSettingException extends IllegalArgumentException {
         this.rule = rule;
     }
 
-    /** The setting's name as in the builder. */
+    /** {@return the setting's name as in the builder} */
     public String field() {
         return field;
     }
 
-    /** The rejected value. */
+    /** {@return the rejected value} */
     public Object value() {
         return value;
     }
 
-    /** What is allowed. */
+    /** {@return what is allowed} */
     public String rule() {
         return rule;
     }

@@ -82,7 +82,11 @@ public final class PidController {
     private Fault fault = Fault.NONE;
     private long faultCount;
 
-    /** A controller in automatic mode with every state zero. */
+    /**
+     * A controller in automatic mode with every state zero.
+     *
+     * @param settings the settings the first update uses
+     */
     public PidController(ControllerSettings settings) {
         this.published = Objects.requireNonNull(settings, "settings");
         this.active = settings;
@@ -391,13 +395,15 @@ public final class PidController {
     /**
      * Publishes new settings; the next update adopts them whole and rebalances the integral so the
      * output does not step. Safe to call from any thread.
+     *
+     * @param settings the new settings, adopted at the next update
      */
     public void retune(ControllerSettings settings) {
         published = Objects.requireNonNull(settings, "settings");
         LOG.debug("retune published: {}", settings.gains());
     }
 
-    /** The settings the next update will use. */
+    /** {@return the settings the next update will use} */
     public ControllerSettings settings() {
         return published;
     }
@@ -420,7 +426,7 @@ public final class PidController {
         mode = Mode.AUTOMATIC;
     }
 
-    /** The current mode. */
+    /** {@return the current mode} */
     public Mode mode() {
         return mode;
     }
@@ -428,6 +434,7 @@ public final class PidController {
     /**
      * Sets the operator's output for manual mode.
      *
+     * @param value the output to hold in manual mode, finite
      * @return false, and nothing changes, when the value is not finite
      */
     public boolean manualOutput(double value) {
@@ -438,22 +445,38 @@ public final class PidController {
         return true;
     }
 
-    /** Sets the external value that tracking mode follows; a non-finite one holds the output. */
+    /**
+     * Sets the external value that tracking mode follows; a non-finite one holds the output.
+     *
+     * @param value the value the output follows in tracking mode, in output units
+     */
     public void trackValue(double value) {
         trackValue = value;
     }
 
-    /** Sets the actuator's measured position for {@link WindupProtection#ACTUATOR_TRACKING}. */
+    /**
+     * Sets the actuator's measured position for {@link WindupProtection#ACTUATOR_TRACKING}.
+     *
+     * @param value the actuator's measured position, in output units
+     */
     public void actuatorPosition(double value) {
         actuatorPosition = value;
     }
 
-    /** Sets the feedforward input, added to the output before the limits while feedforward is on. */
+    /**
+     * Sets the feedforward input, added to the output before the limits while feedforward is on.
+     *
+     * @param value the feedforward term in output units
+     */
     public void feedforward(double value) {
         feedforward = value;
     }
 
-    /** Switches the feedforward on or off; either switch is bumpless. */
+    /**
+     * Switches the feedforward on or off; either switch is bumpless.
+     *
+     * @param on true to add the feedforward input to the output, false to leave it out
+     */
     public void feedforwardOn(boolean on) {
         feedforwardOn = on;
     }
@@ -483,12 +506,12 @@ public final class PidController {
         faultCount = 0;
     }
 
-    /** The value the last update returned. */
+    /** {@return the value the last update returned} */
     public double output() {
         return emitted;
     }
 
-    /** The actuator position the last update asked for (equal to {@link #output()} for position output). */
+    /** {@return the actuator position the last update asked for (equal to {@link #output()} for position output)} */
     public double position() {
         return previousOutput;
     }
@@ -496,42 +519,44 @@ public final class PidController {
     /**
      * Whether the range or the slew limit cut the output of the last good automatic sample (false
      * outside automatic). A cascade reads it to stop the outer loop pushing a saturated inner loop.
+     *
+     * @return true when the last good automatic output was cut by the range or the slew limit
      */
     public boolean outputLimited() {
         return outputLimited;
     }
 
-    /** The proportional contribution of the last good sample. */
+    /** {@return the proportional contribution of the last good sample} */
     public double proportionalTerm() {
         return proportionalTerm;
     }
 
-    /** The integral contribution of the last good sample. */
+    /** {@return the integral contribution of the last good sample} */
     public double integralTerm() {
         return integralTerm;
     }
 
-    /** The derivative contribution of the last good sample. */
+    /** {@return the derivative contribution of the last good sample} */
     public double derivativeTerm() {
         return derivativeTerm;
     }
 
-    /** The feedforward contribution of the last good sample. */
+    /** {@return the feedforward contribution of the last good sample} */
     public double feedforwardTerm() {
         return feedforwardTerm;
     }
 
-    /** The fault of the last sample, {@link Fault#NONE} when it was good. */
+    /** {@return the fault of the last sample, {@link Fault#NONE} when it was good} */
     public Fault fault() {
         return fault;
     }
 
-    /** Faulty samples seen since construction or the last reset. */
+    /** {@return faulty samples seen since construction or the last reset} */
     public long faultCount() {
         return faultCount;
     }
 
-    /** A copy of the whole dynamic state, for a warm restart. */
+    /** {@return a copy of the whole dynamic state, for a warm restart} */
     public StateSnapshot snapshot() {
         ControllerSettings s = active;
         return new StateSnapshot(new StateSnapshot.Values(s.action(), s.outputKind(), s.outputMin(), s.outputMax(),
@@ -543,6 +568,8 @@ public final class PidController {
     /**
      * Copies the whole dynamic state into a holder without allocating (for a snapshot taken on the
      * loop thread; the holder makes the {@link StateSnapshot} on the reader's thread).
+     *
+     * @param into the holder to overwrite; a later capture overwrites it again
      */
     public void captureState(StateCapture into) {
         into.write(active, mode, started, integral, derivativeState, previousError, previousSetpoint,
@@ -554,6 +581,7 @@ public final class PidController {
      * Restores a snapshot; the next automatic output equals the snapshot's last output (bumpless
      * restart), even when the gains have changed since.
      *
+     * @param snapshot a snapshot taken from a controller with the same action, output kind, output range and wrap span
      * @throws IllegalArgumentException when the snapshot was taken with a different action, output
      *                                  kind, output range or wrap span
      */

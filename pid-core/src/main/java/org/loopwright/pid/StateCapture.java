@@ -40,7 +40,7 @@ public final class StateCapture {
     public StateCapture() {
     }
 
-    /** How many captures have been written into this holder; 0 until the first. */
+    /** {@return how many captures have been written into this holder; 0 until the first} */
     public long captureCount() {
         return captureCount;
     }
@@ -48,6 +48,7 @@ public final class StateCapture {
     /**
      * The last capture as an immutable snapshot (allocated on the calling thread).
      *
+     * @return a new snapshot of the last capture
      * @throws IllegalStateException when nothing has been captured yet
      */
     public StateSnapshot toSnapshot() {

@@ -68,7 +68,7 @@ public final class StateSnapshot {
         }
     }
 
-    /** The text form described in the class comment. */
+    /** {@return the text form described in the class comment} */
     public String toText() {
         StringBuilder text = new StringBuilder();
         fields().forEach((key, value) -> text.append(key).append('=').append(value).append('\n'));
@@ -124,6 +124,8 @@ public final class StateSnapshot {
     /**
      * Reads the text form.
      *
+     * @param text the text form, as {@link #toText()} writes it
+     * @return the snapshot the text describes
      * @throws IllegalArgumentException naming the line and key of the first problem
      */
     public static StateSnapshot parse(String text) {

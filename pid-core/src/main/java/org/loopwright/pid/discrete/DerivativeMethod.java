@@ -57,7 +57,13 @@ public enum DerivativeMethod {
         }
     }
 
-    /** The pole of the recursion (weight of D(k−1)); needs Tf &gt; 0. */
+    /**
+     * The pole of the recursion (weight of D(k−1)); needs Tf &gt; 0.
+     *
+     * @param periodSeconds the sample period h in seconds, &gt; 0
+     * @param filterTimeSeconds the derivative filter time Tf in seconds, &gt; 0
+     * @return ad, the weight of D(k−1)
+     */
     public double pole(double periodSeconds, double filterTimeSeconds) {
         return switch (this) {
             case BACKWARD_EULER -> filterTimeSeconds / (filterTimeSeconds + periodSeconds);
@@ -67,7 +73,14 @@ public enum DerivativeMethod {
         };
     }
 
-    /** The gain of the recursion (weight of v(k) − v(k−1)); needs Tf &gt; 0. */
+    /**
+     * The gain of the recursion (weight of v(k) − v(k−1)); needs Tf &gt; 0.
+     *
+     * @param derivativeGain Kd in output units times seconds per unit of error, &ge; 0
+     * @param periodSeconds the sample period h in seconds, &gt; 0
+     * @param filterTimeSeconds the derivative filter time Tf in seconds, &gt; 0
+     * @return bd, the weight of v(k) − v(k−1)
+     */
     public double gain(double derivativeGain, double periodSeconds, double filterTimeSeconds) {
         return switch (this) {
             case BACKWARD_EULER -> derivativeGain / (filterTimeSeconds + periodSeconds);

@@ -24,6 +24,15 @@ public record DiscretePid(double periodSeconds, double proportionalGain, double 
     /**
      * Coefficients for parallel gains, a derivative filter time and the chosen methods.
      * No derivative action (Kd = 0) gives a zero pole and gain, whatever the filter.
+     *
+     * @param proportionalGain Kp
+     * @param integralGain Ki in 1/s
+     * @param derivativeGain Kd in s
+     * @param filterTimeSeconds the derivative filter time Tf in seconds (&gt; 0 when Kd &gt; 0)
+     * @param integral how the integral is discretised
+     * @param derivative how the filtered derivative is discretised
+     * @param periodSeconds the sample period h in seconds, &gt; 0
+     * @return the coefficients at that period
      */
     public static DiscretePid of(double proportionalGain, double integralGain, double derivativeGain,
             double filterTimeSeconds, IntegralMethod integral, DerivativeMethod derivative, double periodSeconds) {

@@ -13,7 +13,13 @@ public enum IntegralMethod {
     /** h·(e(k−1) + e(k))/2: the trapezoid. */
     TUSTIN;
 
-    /** Weight of the current error e(k) in the integral increment. */
+    /**
+     * Weight of the current error e(k) in the integral increment.
+     *
+     * @param integralGain Ki in 1/s
+     * @param periodSeconds the sample period h in seconds
+     * @return b0, the factor on e(k)
+     */
     public double weightOnCurrent(double integralGain, double periodSeconds) {
         return switch (this) {
             case FORWARD_EULER -> 0.0;
@@ -22,7 +28,13 @@ public enum IntegralMethod {
         };
     }
 
-    /** Weight of the previous error e(k−1) in the integral increment. */
+    /**
+     * Weight of the previous error e(k−1) in the integral increment.
+     *
+     * @param integralGain Ki in 1/s
+     * @param periodSeconds the sample period h in seconds
+     * @return b1, the factor on e(k−1)
+     */
     public double weightOnPrevious(double integralGain, double periodSeconds) {
         return switch (this) {
             case FORWARD_EULER -> integralGain * periodSeconds;

@@ -21,14 +21,26 @@ public record IdealGains(double gain, double integralTime, double derivativeTime
      */
     private static final double ROUNDING = 1e-12;
 
-    /** Validates every value; see the record description for the allowed ranges. */
+    /**
+     * Validates every value; see the record description for the allowed ranges.
+     *
+     * @param gain Kc, finite and &ge; 0
+     * @param integralTime Ti in seconds, &gt; 0, or {@link Double#POSITIVE_INFINITY}
+     * @param derivativeTime Td in seconds, finite and &ge; 0
+     */
     public IdealGains {
         SettingChecks.nonNegative("gain", gain);
         SettingChecks.positiveOrInfinite("integralTime", integralTime, "no integral action");
         SettingChecks.nonNegative("derivativeTime", derivativeTime);
     }
 
-    /** PI or P-only gains: no derivative action. */
+    /**
+     * PI or P-only gains: no derivative action.
+     *
+     * @param gain Kc, finite and &ge; 0
+     * @param integralTime Ti in seconds, &gt; 0, or {@link Double#POSITIVE_INFINITY} for P only
+     * @return the gains with Td = 0
+     */
     public static IdealGains pi(double gain, double integralTime) {
         return new IdealGains(gain, integralTime, 0.0);
     }
@@ -50,6 +62,7 @@ public record IdealGains(double gain, double integralTime, double derivativeTime
      * (Åström &amp; Hägglund 2006, eq. 3.10): with s = √(1 − 4·Td/Ti),
      * Kc' = Kc·(1 + s)/2, Ti' = Ti·(1 + s)/2, Td' = Ti·(1 − s)/2.
      *
+     * @return the series gains Kc', Ti', Td'
      * @throws InvalidSettingException naming Ti and Td when Ti &lt; 4·Td (beyond rounding)
      */
     public SeriesGains toSeries() {

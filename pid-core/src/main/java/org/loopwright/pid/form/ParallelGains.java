@@ -16,7 +16,13 @@ import org.loopwright.pid.SettingChecks;
 public record ParallelGains(double proportionalGain, double integralGain, double derivativeGain)
         implements PidGains {
 
-    /** Validates every gain; see the record description for the allowed ranges. */
+    /**
+     * Validates every gain; see the record description for the allowed ranges.
+     *
+     * @param proportionalGain Kp, finite and &ge; 0
+     * @param integralGain Ki in 1/s, finite and &ge; 0
+     * @param derivativeGain Kd in s, finite and &ge; 0
+     */
     public ParallelGains {
         SettingChecks.nonNegative("proportionalGain", proportionalGain);
         SettingChecks.nonNegative("integralGain", integralGain);
@@ -36,6 +42,7 @@ public record ParallelGains(double proportionalGain, double integralGain, double
     /**
      * The ideal equivalent Kc = Kp, Ti = Kp/Ki, Td = Kd/Kp (Åström &amp; Hägglund 2006, §3.4).
      *
+     * @return the ideal gains Kc, Ti, Td
      * @throws InvalidSettingException when Kp = 0 and Ki or Kd is not, which no ideal form can express
      */
     public IdealGains toIdeal() {

@@ -6,13 +6,13 @@ package org.loopwright.pid.form;
  */
 public sealed interface PidGains permits ParallelGains, IdealGains, SeriesGains {
 
-    /** The form these gains are written in. */
+    /** {@return the form these gains are written in} */
     ControllerForm form();
 
-    /** The exact parallel equivalent. */
+    /** {@return the exact parallel equivalent} */
     ParallelGains toParallel();
 
-    /** Whether the gains contain integral action. */
+    /** {@return whether the gains contain integral action} */
     default boolean hasIntegralAction() {
         return toParallel().integralGain() > 0.0;
     }

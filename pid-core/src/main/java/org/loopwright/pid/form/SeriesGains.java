@@ -13,7 +13,13 @@ import org.loopwright.pid.SettingChecks;
  */
 public record SeriesGains(double gain, double integralTime, double derivativeTime) implements PidGains {
 
-    /** Validates every value; see the record description for the allowed ranges. */
+    /**
+     * Validates every value; see the record description for the allowed ranges.
+     *
+     * @param gain Kc', finite and &ge; 0
+     * @param integralTime Ti' in seconds, &gt; 0, or {@link Double#POSITIVE_INFINITY}
+     * @param derivativeTime Td' in seconds, finite and &ge; 0
+     */
     public SeriesGains {
         SettingChecks.nonNegative("gain", gain);
         SettingChecks.positiveOrInfinite("integralTime", integralTime, "no integral action");
@@ -28,6 +34,8 @@ public record SeriesGains(double gain, double integralTime, double derivativeTim
     /**
      * The ideal equivalent, which always exists (Åström &amp; Hägglund 2006, eq. 3.9):
      * Kc = Kc'·(1 + Td'/Ti'), Ti = Ti' + Td', Td = Ti'·Td'/(Ti' + Td').
+     *
+     * @return the ideal gains Kc, Ti, Td
      */
     public IdealGains toIdeal() {
         if (Double.isInfinite(integralTime)) {

@@ -13,7 +13,7 @@ public enum LoopCondition {
     /** The measurement's noise is large against the amplitude the loop may oscillate with. */
     NOISE;
 
-    /** The condition's name in reports: lower case, words joined by '-' ("frozen-measurement"). */
+    /** {@return the condition's name in reports: lower case, words joined by '-' ("frozen-measurement")} */
     public String label() {
         return name().toLowerCase(java.util.Locale.ROOT).replace('_', '-');
     }

@@ -144,7 +144,7 @@ public final class LoopMonitor {
         return Double.isFinite(limit) ? 1e-9 * Math.max(1.0, Math.abs(limit)) : 0.0;
     }
 
-    /** The settings this monitor was built with. */
+    /** {@return the settings this monitor was built with} */
     public MonitorSettings settings() {
         return settings;
     }
@@ -313,12 +313,17 @@ public final class LoopMonitor {
         return differences == 0 ? Double.NaN : NOISE_FROM_MEAN_ABS_DIFF * meanAbsDifference;
     }
 
-    /** The condition's status after the last sample; any thread. */
+    /**
+     * The condition's status after the last sample; any thread.
+     *
+     * @param condition the condition to read
+     * @return ok, warn or alarm for that condition
+     */
     public ConditionStatus status(LoopCondition condition) {
         return MonitorSummary.statusOf(statusWord.getAcquire(), condition);
     }
 
-    /** The worst status of all conditions after the last sample; any thread. */
+    /** {@return the worst status of all conditions after the last sample} Any thread may call it. */
     public ConditionStatus worst() {
         int word = statusWord.getAcquire();
         ConditionStatus worst = ConditionStatus.OK;
@@ -334,6 +339,7 @@ public final class LoopMonitor {
     /**
      * Copies the figures of the last whole sample into {@code into}; any thread, no allocation.
      *
+     * @param into the holder to overwrite
      * @return {@code into}
      */
     public MonitorSummary readSummary(MonitorSummary into) {

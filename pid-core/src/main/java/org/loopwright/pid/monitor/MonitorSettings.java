@@ -166,107 +166,107 @@ public final class MonitorSettings {
         return value;
     }
 
-    /** A builder: the three required values unset (NaN), every other at its default. */
+    /** {@return a builder: the three required values unset (NaN), every other at its default} */
     public static Builder builder() {
         return new Builder();
     }
 
-    /** h, the period at which the monitor is fed, in seconds. */
+    /** {@return h, the period at which the monitor is fed, in seconds} */
     public double samplePeriodSeconds() {
         return samplePeriodSeconds;
     }
 
-    /** T, the loop's time scale: the ultimate period if known, else the integral time (seconds). */
+    /** {@return T, the loop's time scale: the ultimate period if known, else the integral time (seconds)} */
     public double timeScaleSeconds() {
         return timeScaleSeconds;
     }
 
-    /** a, the largest oscillation amplitude of the error that is acceptable (measurement units). */
+    /** {@return a, the largest oscillation amplitude of the error that is acceptable (measurement units)} */
     public double acceptableAmplitude() {
         return acceptableAmplitude;
     }
 
-    /** The IAE of one excursion that counts as a load disturbance: a·T/π (measurement units · s). */
+    /** {@return the IAE of one excursion that counts as a load disturbance: a·T/π (measurement units · s)} */
     public double iaeLimit() {
         return acceptableAmplitude * timeScaleSeconds / Math.PI;
     }
 
-    /** The time over which load disturbances are counted, with exponential forgetting (seconds). */
+    /** {@return the time over which load disturbances are counted, with exponential forgetting (seconds)} */
     public double supervisionTimeSeconds() {
         return supervisionTimeSeconds;
     }
 
-    /** Count of load disturbances within the supervision time that raises a warning. */
+    /** {@return count of load disturbances within the supervision time that raises a warning} */
     public double oscillationWarnEvents() {
         return oscillationWarnEvents;
     }
 
-    /** Count of load disturbances within the supervision time that means oscillation. */
+    /** {@return count of load disturbances within the supervision time that means oscillation} */
     public double oscillationAlarmEvents() {
         return oscillationAlarmEvents;
     }
 
-    /** The controller's action, which fixes the sign of a sluggish recovery in the idle index. */
+    /** {@return the controller's action, which fixes the sign of a sluggish recovery in the idle index} */
     public Action action() {
         return action;
     }
 
-    /** Idle index that raises a warning. */
+    /** {@return idle index that raises a warning} */
     public double idleIndexWarn() {
         return idleIndexWarn;
     }
 
-    /** Idle index that means sluggish. */
+    /** {@return idle index that means sluggish} */
     public double idleIndexAlarm() {
         return idleIndexAlarm;
     }
 
-    /** The controller's lower output limit, or -Infinity. */
+    /** {@return the controller's lower output limit, or -Infinity} */
     public double outputMin() {
         return outputMin;
     }
 
-    /** The controller's upper output limit, or +Infinity. */
+    /** {@return the controller's upper output limit, or +Infinity} */
     public double outputMax() {
         return outputMax;
     }
 
-    /** Time constant of the running share of samples at an output limit (seconds). */
+    /** {@return time constant of the running share of samples at an output limit (seconds)} */
     public double saturationWindowSeconds() {
         return saturationWindowSeconds;
     }
 
-    /** Share of samples at a limit that raises a warning. */
+    /** {@return share of samples at a limit that raises a warning} */
     public double saturationWarnShare() {
         return saturationWarnShare;
     }
 
-    /** Share of samples at a limit that raises an alarm. */
+    /** {@return share of samples at a limit that raises an alarm} */
     public double saturationAlarmShare() {
         return saturationAlarmShare;
     }
 
-    /** N: samples with an unchanged measurement (while the output moves) that mean frozen. */
+    /** {@return N: samples with an unchanged measurement (while the output moves) that mean frozen} */
     public int frozenSamples() {
         return frozenSamples;
     }
 
-    /** A measurement change no larger than this counts as no change (measurement units). */
+    /** {@return a measurement change no larger than this counts as no change (measurement units)} */
     public double quantisationStep() {
         return quantisationStep;
     }
 
-    /** How far the output must move (max − min) while the measurement is unchanged (output units). */
+    /** {@return how far the output must move (max − min) while the measurement is unchanged (output units)} */
     public double frozenOutputMove() {
         return frozenOutputMove;
     }
 
-    /** Time constant of the running noise estimate (seconds). */
+    /** {@return time constant of the running noise estimate (seconds)} */
     public double noiseWindowSeconds() {
         return noiseWindowSeconds;
     }
 
-    /** Noise standard deviation that raises a warning (default a/2, our choice). */
+    /** {@return noise standard deviation that raises a warning (default a/2, our choice)} */
     public double noiseWarn() {
         return noiseWarn;
     }
@@ -274,6 +274,8 @@ public final class MonitorSettings {
     /**
      * Noise standard deviation that raises an alarm (default a: noise as large as the acceptable
      * oscillation hides the oscillations the monitor looks for; our choice).
+     *
+     * @return the noise standard deviation that raises an alarm, in measurement units
      */
     public double noiseAlarm() {
         return noiseAlarm;
@@ -305,95 +307,178 @@ public final class MonitorSettings {
         private Builder() {
         }
 
-        /** Required: the period at which the monitor is fed (seconds, &gt; 0). */
+        /**
+         * Required: the period at which the monitor is fed (seconds, &gt; 0).
+         *
+         * @param seconds h, finite and &gt; 0
+         * @return this builder
+         */
         public Builder samplePeriodSeconds(double seconds) {
             this.samplePeriodSeconds = seconds;
             return this;
         }
 
-        /** Required: the ultimate period if known, else the integral time (seconds, &ge; 2h). */
+        /**
+         * Required: the ultimate period if known, else the integral time (seconds, &ge; 2h).
+         *
+         * @param seconds T, finite and &ge; 2h
+         * @return this builder
+         */
         public Builder timeScaleSeconds(double seconds) {
             this.timeScaleSeconds = seconds;
             return this;
         }
 
-        /** Required: the acceptable oscillation amplitude (Hägglund 1995 suggests 1 % of the range). */
+        /**
+         * Required: the acceptable oscillation amplitude (Hägglund 1995 suggests 1 % of the range).
+         *
+         * @param amplitude a, in measurement units, finite and &gt; 0
+         * @return this builder
+         */
         public Builder acceptableAmplitude(double amplitude) {
             this.acceptableAmplitude = amplitude;
             return this;
         }
 
-        /** Default {@value #SUPERVISION_TIME_SCALES} time scales. */
+        /**
+         * Default {@value #SUPERVISION_TIME_SCALES} time scales.
+         *
+         * @param seconds the supervision time, finite and &ge; h
+         * @return this builder
+         */
         public Builder supervisionTimeSeconds(double seconds) {
             this.supervisionTimeSeconds = seconds;
             return this;
         }
 
-        /** Load-disturbance counts within the supervision time for warn and alarm (defaults 5 and 10). */
+        /**
+         * Load-disturbance counts within the supervision time for warn and alarm (defaults 5 and 10).
+         *
+         * @param warn the count that raises a warning, &gt; 0 and &le; alarm
+         * @param alarm the count that means oscillation, finite and &gt; 0
+         * @return this builder
+         */
         public Builder oscillationEvents(double warn, double alarm) {
             this.oscillationWarnEvents = warn;
             this.oscillationAlarmEvents = alarm;
             return this;
         }
 
-        /** The controller's action (default reverse). */
+        /**
+         * The controller's action (default reverse).
+         *
+         * @param action reverse or direct, as the controller runs
+         * @return this builder
+         */
         public Builder action(Action action) {
             this.action = action;
             return this;
         }
 
-        /** Idle-index thresholds for warn and alarm (defaults 0.2 and 0.4). */
+        /**
+         * Idle-index thresholds for warn and alarm (defaults 0.2 and 0.4).
+         *
+         * @param warn the index that raises a warning, &gt; −1 and &le; alarm
+         * @param alarm the index that means sluggish, &gt; −1 and &lt; 1
+         * @return this builder
+         */
         public Builder idleIndex(double warn, double alarm) {
             this.idleIndexWarn = warn;
             this.idleIndexAlarm = alarm;
             return this;
         }
 
-        /** The controller's output limits (default none: saturation is never seen). */
+        /**
+         * The controller's output limits (default none: saturation is never seen).
+         *
+         * @param min the lowest output, finite or −∞
+         * @param max the highest output, &gt; min, finite or +∞
+         * @return this builder
+         */
         public Builder outputRange(double min, double max) {
             this.outputMin = min;
             this.outputMax = max;
             return this;
         }
 
-        /** Time constant of the saturation share (default the supervision time). */
+        /**
+         * Time constant of the saturation share (default the supervision time).
+         *
+         * @param seconds the time constant, finite and &ge; h
+         * @return this builder
+         */
         public Builder saturationWindowSeconds(double seconds) {
             this.saturationWindowSeconds = seconds;
             return this;
         }
 
-        /** Shares of samples at a limit for warn and alarm (defaults 0.1 and 0.5). */
+        /**
+         * Shares of samples at a limit for warn and alarm (defaults 0.1 and 0.5).
+         *
+         * @param warn the share that raises a warning, &gt; 0 and &le; alarm
+         * @param alarm the share that raises an alarm, &gt; 0 and &le; 1
+         * @return this builder
+         */
         public Builder saturationShares(double warn, double alarm) {
             this.saturationWarnShare = warn;
             this.saturationAlarmShare = alarm;
             return this;
         }
 
-        /** N (default one time scale in samples, at least {@value #MIN_DEFAULT_FROZEN_SAMPLES}). */
+        /**
+         * N (default one time scale in samples, at least {@value #MIN_DEFAULT_FROZEN_SAMPLES}).
+         *
+         * @param samples N, &ge; 2, or 0 for the default
+         * @return this builder
+         */
         public Builder frozenSamples(int samples) {
             this.frozenSamples = samples;
             return this;
         }
 
-        /** The measurement's quantisation step (default 0: any change counts). */
+        /**
+         * The measurement's quantisation step (default 0: any change counts).
+         *
+         * @param step the step in measurement units, finite and &ge; 0
+         * @return this builder
+         */
         public Builder quantisationStep(double step) {
             this.quantisationStep = step;
             return this;
         }
 
-        /** The output movement that makes an unchanged measurement suspect (default 1 % of the output range). */
+        /**
+         * The output movement that makes an unchanged measurement suspect (default 1 % of the output range).
+         *
+         * @param move the output movement (max − min) in output units, finite and &gt; 0; required when the output
+         *         range is not finite
+         * @return this builder
+         */
         public Builder frozenOutputMove(double move) {
             this.frozenOutputMove = move;
             return this;
         }
 
-        /** Time constant of the noise estimate (default the supervision time). */
+        /**
+         * Time constant of the noise estimate (default the supervision time).
+         *
+         * @param seconds the time constant, finite and &ge; h
+         * @return this builder
+         */
         public Builder noiseWindowSeconds(double seconds) {
             this.noiseWindowSeconds = seconds;
             return this;
         }
 
-        /** Noise standard deviations for warn and alarm (defaults a/2 and a). */
+        /**
+         * Noise standard deviations for warn and alarm (defaults a/2 and a).
+         *
+         * @param warn the standard deviation that raises a warning, in measurement units, &gt; 0 and &le; alarm, or
+         *         NaN for half the alarm
+         * @param alarm the standard deviation that raises an alarm, in measurement units, finite and &gt; 0, or NaN
+         *         for a
+         * @return this builder
+         */
         public Builder noiseLevels(double warn, double alarm) {
             this.noiseWarn = warn;
             this.noiseAlarm = alarm;
@@ -403,6 +488,7 @@ public final class MonitorSettings {
         /**
          * The settings.
          *
+         * @return the immutable settings
          * @throws InvalidSettingException naming the first value that is not allowed
          */
         public MonitorSettings build() {

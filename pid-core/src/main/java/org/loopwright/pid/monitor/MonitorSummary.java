@@ -33,22 +33,27 @@ public final class MonitorSummary {
         noiseStdDev = Double.NaN;
     }
 
-    /** Samples taken (finite setpoint, measurement and output). */
+    /** {@return samples taken (finite setpoint, measurement and output)} */
     public long samples() {
         return samples;
     }
 
-    /** Samples skipped because a value was NaN or infinite. */
+    /** {@return samples skipped because a value was NaN or infinite} */
     public long badSamples() {
         return badSamples;
     }
 
-    /** The condition's status. */
+    /**
+     * The condition's status.
+     *
+     * @param condition the condition to read
+     * @return ok, warn or alarm for that condition in this summary
+     */
     public ConditionStatus status(LoopCondition condition) {
         return statusOf(statusWord, condition);
     }
 
-    /** The worst status of all conditions. */
+    /** {@return the worst status of all conditions} */
     public ConditionStatus worst() {
         ConditionStatus worst = ConditionStatus.OK;
         for (LoopCondition c : CONDITIONS) {
@@ -60,42 +65,42 @@ public final class MonitorSummary {
         return worst;
     }
 
-    /** Load disturbances counted within the supervision time (exponential forgetting, Hägglund 1995). */
+    /** {@return load disturbances counted within the supervision time (exponential forgetting, Hägglund 1995)} */
     public double oscillationEvents() {
         return oscillationEvents;
     }
 
-    /** Twice the mean time between the zero crossings of the last counted excursions (seconds), or NaN. */
+    /** {@return twice the mean time between the zero crossings of the last counted excursions (seconds), or NaN} */
     public double oscillationPeriodSeconds() {
         return oscillationPeriodSeconds;
     }
 
-    /** The mean peak |error| of the last counted excursions (measurement units), or NaN. */
+    /** {@return the mean peak |error| of the last counted excursions (measurement units), or NaN} */
     public double oscillationAmplitude() {
         return oscillationAmplitude;
     }
 
-    /** The idle index averaged over the last load disturbances (Hägglund 1999), or NaN before the first. */
+    /** {@return the idle index averaged over the last load disturbances (Hägglund 1999), or NaN before the first} */
     public double idleIndex() {
         return idleIndex;
     }
 
-    /** Load disturbances after which the idle index was evaluated. */
+    /** {@return load disturbances after which the idle index was evaluated} */
     public long idleEpisodes() {
         return idleEpisodes;
     }
 
-    /** The running share of samples in automatic with the output at a limit, 0..1, or NaN before any. */
+    /** {@return the running share of samples in automatic with the output at a limit, 0..1, or NaN before any} */
     public double saturationShare() {
         return saturationShare;
     }
 
-    /** Samples since the measurement last changed by more than the quantisation step. */
+    /** {@return samples since the measurement last changed by more than the quantisation step} */
     public long unchangedSamples() {
         return unchangedSamples;
     }
 
-    /** The measurement noise's standard deviation estimated from its first difference, or NaN. */
+    /** {@return the measurement noise's standard deviation estimated from its first difference, or NaN} */
     public double noiseStdDev() {
         return noiseStdDev;
     }

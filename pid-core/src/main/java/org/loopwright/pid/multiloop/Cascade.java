@@ -61,6 +61,9 @@ public final class Cascade {
     /**
      * Couples two controllers, both in the state they are in.
      *
+     * @param outer the primary controller, whose output is the inner setpoint; it must run {@link
+     *         WindupProtection#ACTUATOR_TRACKING}
+     * @param inner the secondary controller, whose sample period divides the outer one's
      * @throws InvalidSettingException when the outer controller does not run
      *         {@link WindupProtection#ACTUATOR_TRACKING} or its sample period is not a whole multiple of
      *         the inner one's
@@ -75,6 +78,8 @@ public final class Cascade {
     /**
      * Checks that two controllers' settings can form a cascade.
      *
+     * @param outer the primary controller's settings
+     * @param inner the secondary controller's settings
      * @return the whole number n of inner samples per outer sample
      * @throws InvalidSettingException when the outer settings do not use
      *         {@link WindupProtection#ACTUATOR_TRACKING} or the periods are not in a whole ratio
@@ -90,6 +95,9 @@ public final class Cascade {
     /**
      * The whole number n of inner samples per outer sample.
      *
+     * @param outerPeriodSeconds the outer sample period in seconds
+     * @param innerPeriodSeconds the inner sample period in seconds
+     * @return n, &ge; 1
      * @throws InvalidSettingException when the outer period is not n times the inner one, n &ge; 1
      *         (to a relative 10⁻⁹, for periods written in decimal)
      */
@@ -180,6 +188,7 @@ public final class Cascade {
      * Moves the local setpoint, within the outer controller's output range; it acts at once while
      * the cascade is local.
      *
+     * @param value the local setpoint, in the outer controller's output units
      * @return false, and nothing changes, when the value is not finite
      */
     public boolean localSetpoint(double value) {
@@ -214,32 +223,32 @@ public final class Cascade {
         outerModeBeforeFollowing = Mode.AUTOMATIC;
     }
 
-    /** Cascade or local. */
+    /** {@return cascade or local} */
     public CascadeMode mode() {
         return mode;
     }
 
-    /** The setpoint the inner controller is following now. */
+    /** {@return the setpoint the inner controller is following now} */
     public double innerSetpoint() {
         return innerSetpoint;
     }
 
-    /** Whether the outer controller is tracking (local, inner outside automatic, or handing back). */
+    /** {@return whether the outer controller is tracking (local, inner outside automatic, or handing back)} */
     public boolean outerTracking() {
         return outerFollowing;
     }
 
-    /** Inner samples per outer sample. */
+    /** {@return inner samples per outer sample} */
     public int innerSamplesPerOuterSample() {
         return innerSamplesPerOuterSample;
     }
 
-    /** The outer (primary) controller, for its status, settings and retune. */
+    /** {@return the outer (primary) controller, for its status, settings and retune} */
     public PidController outer() {
         return outer;
     }
 
-    /** The inner (secondary) controller, for its status, settings, retune and manual mode. */
+    /** {@return the inner (secondary) controller, for its status, settings, retune and manual mode} */
     public PidController inner() {
         return inner;
     }

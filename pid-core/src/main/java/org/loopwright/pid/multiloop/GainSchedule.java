@@ -32,6 +32,8 @@ public final class GainSchedule {
     private final ParallelGains[] gains;
 
     /**
+     * @param variable what the schedule is indexed by
+     * @param points the table rows, at least one, with {@code at} finite and strictly increasing
      * @throws InvalidSettingException naming the point, when there is none, or an {@code at} is not
      *         finite or not above the previous one
      */
@@ -57,17 +59,22 @@ public final class GainSchedule {
         }
     }
 
-    /** What the schedule is indexed by. */
+    /** {@return what the schedule is indexed by} */
     public ScheduleVariable variable() {
         return variable;
     }
 
-    /** The number of points. */
+    /** {@return the number of points} */
     public int size() {
         return at.length;
     }
 
-    /** The scheduling variable's value at point i. */
+    /**
+     * The scheduling variable's value at point i.
+     *
+     * @param i the point's index, 0 to {@link #size()} − 1
+     * @return the {@code at} of that point
+     */
     public double at(int i) {
         return at[i];
     }
@@ -75,6 +82,9 @@ public final class GainSchedule {
     /**
      * The interpolated gains at a value of the scheduling variable (held beyond the ends).
      * Allocates a result: for set-up and analysis, not for the update.
+     *
+     * @param value the scheduling variable's value, in its own units
+     * @return the parallel gains there
      */
     public ParallelGains gainsAt(double value) {
         int i = segment(value);

@@ -12,7 +12,12 @@ import org.loopwright.pid.form.PidGains;
  */
 public record SchedulePoint(double at, PidGains gains) {
 
-    /** Requires the gains; the table checks the values when it is built. */
+    /**
+     * Requires the gains; the table checks the values when it is built.
+     *
+     * @param at the scheduling variable's value, in its own units
+     * @param gains the gains there, in any form
+     */
     public SchedulePoint {
         Objects.requireNonNull(gains, "gains");
     }

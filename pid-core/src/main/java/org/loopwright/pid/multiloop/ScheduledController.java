@@ -42,7 +42,12 @@ public final class ScheduledController {
     private int current;
     private double external = Double.NaN;
 
-    /** A schedule with {@link #DEFAULT_STEPS_PER_SEGMENT}. */
+    /**
+     * A schedule with {@link #DEFAULT_STEPS_PER_SEGMENT}.
+     *
+     * @param base the settings every step starts from; the schedule sets only the gains
+     * @param schedule the gain table
+     */
     public ScheduledController(ControllerSettings base, GainSchedule schedule) {
         this(base, schedule, DEFAULT_STEPS_PER_SEGMENT);
     }
@@ -50,6 +55,10 @@ public final class ScheduledController {
     /**
      * Builds the settings of every step, starting at the first table point's.
      *
+     * @param base the settings every step starts from; the schedule sets only the gains
+     * @param schedule the gain table
+     * @param stepsPerSegment precomputed steps between two neighbouring table points, 1..{@value
+     *         #MAX_STEPS_PER_SEGMENT}
      * @throws InvalidSettingException when the steps are out of 1..{@value #MAX_STEPS_PER_SEGMENT},
      *         or the base settings cannot take a point's gains (the message names the point)
      */
@@ -112,22 +121,26 @@ public final class ScheduledController {
         controller.reset();
     }
 
-    /** Sets the scheduling variable for {@link ScheduleVariable#EXTERNAL}; ignored by the others. */
+    /**
+     * Sets the scheduling variable for {@link ScheduleVariable#EXTERNAL}; ignored by the others.
+     *
+     * @param value the scheduling variable's value, in its own units
+     */
     public void externalValue(double value) {
         external = value;
     }
 
-    /** The settings in force from the next update on. */
+    /** {@return the settings in force from the next update on} */
     public ControllerSettings settings() {
         return steps[current];
     }
 
-    /** The schedule. */
+    /** {@return the schedule} */
     public GainSchedule schedule() {
         return schedule;
     }
 
-    /** The controller, for its modes, inputs and status. */
+    /** {@return the controller, for its modes, inputs and status} */
     public PidController controller() {
         return controller;
     }

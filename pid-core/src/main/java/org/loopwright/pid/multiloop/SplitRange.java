@@ -42,6 +42,11 @@ public final class SplitRange {
     /**
      * A split of the output range of the settings.
      *
+     * @param settings the controller's settings, whose finite output range is the combined range
+     * @param splitAt the controller output at which the split lies, inside the output range
+     * @param gap the width of the band around the split where both actuators are idle, finite and &ge; 0
+     * @param first the range of the actuator that works below the split
+     * @param second the range of the actuator that works above the split
      * @throws InvalidSettingException naming the value, when the output range is not finite, the
      *         split and gap do not leave each actuator part of it, the gap is negative, or an
      *         actuator's range is not finite with min below max
@@ -81,7 +86,12 @@ public final class SplitRange {
         return range;
     }
 
-    /** The first actuator's value for a controller output (clamped to the output range first). */
+    /**
+     * The first actuator's value for a controller output (clamped to the output range first).
+     *
+     * @param output the controller output
+     * @return the first actuator's value, within its range
+     */
     public double first(double output) {
         double u = clampToRange(output);
         if (u >= firstEnd) {
@@ -91,7 +101,12 @@ public final class SplitRange {
         return Math.min(first.max(), first.min() + (first.max() - first.min()) * (firstEnd - u) / (firstEnd - outputMin));
     }
 
-    /** The second actuator's value for a controller output (clamped to the output range first). */
+    /**
+     * The second actuator's value for a controller output (clamped to the output range first).
+     *
+     * @param output the controller output
+     * @return the second actuator's value, within its range
+     */
     public double second(double output) {
         double u = clampToRange(output);
         if (u <= secondStart) {
@@ -105,6 +120,10 @@ public final class SplitRange {
      * The controller output that the two actuators' measured values stand for, for
      * {@code windup: actuator-tracking}: the working actuator decides (the first if both work), and
      * both idle is the split point.
+     *
+     * @param firstValue the first actuator's measured value, in its own units
+     * @param secondValue the second actuator's measured value, in its own units
+     * @return the equivalent controller output, within the output range
      */
     public double outputFor(double firstValue, double secondValue) {
         double f = Math.max(first.min(), Math.min(first.max(), firstValue));
@@ -122,32 +141,32 @@ public final class SplitRange {
         return output < outputMin ? outputMin : Math.min(output, outputMax);
     }
 
-    /** The controller output at which the split lies. */
+    /** {@return the controller output at which the split lies} */
     public double splitAt() {
         return splitAt;
     }
 
-    /** The width of the band around the split where both actuators are idle. */
+    /** {@return the width of the band around the split where both actuators are idle} */
     public double gap() {
         return gap;
     }
 
-    /** The actuator below the split. */
+    /** {@return the actuator below the split} */
     public ActuatorRange firstRange() {
         return first;
     }
 
-    /** The actuator above the split. */
+    /** {@return the actuator above the split} */
     public ActuatorRange secondRange() {
         return second;
     }
 
-    /** The bottom of the combined range (the controller's output minimum). */
+    /** {@return the bottom of the combined range (the controller's output minimum)} */
     public double outputMin() {
         return outputMin;
     }
 
-    /** The top of the combined range (the controller's output maximum). */
+    /** {@return the top of the combined range (the controller's output maximum)} */
     public double outputMax() {
         return outputMax;
     }

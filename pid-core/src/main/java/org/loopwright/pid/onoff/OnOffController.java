@@ -21,7 +21,11 @@ public final class OnOffController {
     private double lastSwitchSeconds;
     private long faultCount;
 
-    /** A controller that is off and free to switch on at its first update. */
+    /**
+     * A controller that is off and free to switch on at its first update.
+     *
+     * @param settings the outputs, band, minimum times and action
+     */
     public OnOffController(OnOffSettings settings) {
         this.settings = Objects.requireNonNull(settings, "settings");
         reset();
@@ -64,22 +68,22 @@ public final class OnOffController {
         return on ? settings.onOutput() : settings.offOutput();
     }
 
-    /** Whether the output is on now. */
+    /** {@return whether the output is on now} */
     public boolean on() {
         return on;
     }
 
-    /** The present output. */
+    /** {@return the present output} */
     public double output() {
         return on ? settings.onOutput() : settings.offOutput();
     }
 
-    /** The number of updates with a non-finite input since the last reset. */
+    /** {@return the number of updates with a non-finite input since the last reset} */
     public long faultCount() {
         return faultCount;
     }
 
-    /** The settings this controller runs. */
+    /** {@return the settings this controller runs} */
     public OnOffSettings settings() {
         return settings;
     }

@@ -27,7 +27,16 @@ import org.loopwright.pid.SettingChecks;
 public record OnOffSettings(double offOutput, double onOutput, double hysteresis, double minimumOnSeconds,
         double minimumOffSeconds, Action action) {
 
-    /** Validates every value; messages have the shape {@code "<field> <rule>: <field>=<value>"}. */
+    /**
+     * Validates every value; messages have the shape {@code "<field> <rule>: <field>=<value>"}.
+     *
+     * @param offOutput the output when off
+     * @param onOutput the output when on
+     * @param hysteresis the full width of the switching band, finite and &ge; 0, process units
+     * @param minimumOnSeconds the shortest time on, finite and &ge; 0
+     * @param minimumOffSeconds the shortest time off, finite and &ge; 0
+     * @param action reverse (on below the band) or direct (on above it)
+     */
     public OnOffSettings {
         SettingChecks.finite("offOutput", offOutput);
         SettingChecks.finite("onOutput", onOutput);

@@ -19,6 +19,7 @@ public final class CommandRefusedException extends IllegalStateException {
         NOT_APPLICABLE
     }
 
+    /** Why the command was refused. */
     private final Reason reason;
 
     CommandRefusedException(Reason reason, String message) {
@@ -26,7 +27,7 @@ public final class CommandRefusedException extends IllegalStateException {
         this.reason = reason;
     }
 
-    /** Why the command was refused. */
+    /** {@return why the command was refused} */
     public Reason reason() {
         return reason;
     }

@@ -25,12 +25,14 @@ public interface LoopClock {
         }
     };
 
-    /** Monotonic time in nanoseconds from an arbitrary origin (differences only are meaningful). */
+    /** {@return monotonic time in nanoseconds from an arbitrary origin (differences only are meaningful)} */
     long nanoTime();
 
     /**
      * Waits for at most about this many nanoseconds; may return early (spuriously or because the
      * runner is being stopped), after which the runner checks the time again.
+     *
+     * @param nanos the longest wait in nanoseconds
      */
     void parkNanos(long nanos);
 }

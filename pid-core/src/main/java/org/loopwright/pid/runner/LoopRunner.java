@@ -131,6 +131,7 @@ public final class LoopRunner {
      * @param outputSink        where each output goes
      * @param listener          per-tick timing, or {@link TimingListener#NONE}
      * @param monitor           the loop monitor this runner alone feeds
+     * @return the new runner, not yet started
      * @throws InvalidSettingException as the constructor without a monitor
      */
     public static LoopRunner monitored(RunnerSettings settings, PidController controller,
@@ -244,6 +245,7 @@ public final class LoopRunner {
     /**
      * Waits until the loop thread has finished, for at most the timeout.
      *
+     * @param timeout the longest wait
      * @return true when the runner has stopped
      * @throws InterruptedException when this thread is interrupted while waiting
      */
@@ -493,7 +495,7 @@ public final class LoopRunner {
         }
     }
 
-    /** The way to send commands into the running loop. */
+    /** {@return the way to send commands into the running loop} */
     public OperatorChannel operator() {
         return channel;
     }
@@ -503,6 +505,7 @@ public final class LoopRunner {
      * of two ticks. No allocation; may spin for the few nanoseconds the loop thread takes to publish.
      * The callbacks and the listener may call it too.
      *
+     * @param into the holder to overwrite
      * @return the holder, filled
      */
     public LoopStatus readStatus(LoopStatus into) {
@@ -510,62 +513,64 @@ public final class LoopRunner {
         return into;
     }
 
-    /** A new holder with the status the last tick published (allocates; see {@link #readStatus}). */
+    /** {@return a new holder with the status the last tick published} Allocates; see {@link #readStatus}. */
     public LoopStatus status() {
         return readStatus(new LoopStatus());
     }
 
-    /** The settings this runner was built with. */
+    /** {@return the settings this runner was built with} */
     public RunnerSettings settings() {
         return settings;
     }
 
-    /** The monitor this runner feeds on every tick, if it was built with one. */
+    /** {@return the monitor this runner feeds on every tick, if it was built with one} */
     public Optional<LoopMonitor> monitor() {
         return Optional.ofNullable(monitor);
     }
 
-    /** The period of the current (or last) run in nanoseconds: the controller's sample period. */
+    /** {@return the period of the current (or last) run in nanoseconds: the controller's sample period} */
     public long periodNanos() {
         return periodNanos;
     }
 
-    /** New, running or stopped. */
+    /** {@return new, running or stopped} */
     public RunnerState state() {
         return state;
     }
 
-    /** Why the runner stopped; {@link StopReason#NOT_STOPPED} while it has not. */
+    /** {@return why the runner stopped; {@link StopReason#NOT_STOPPED} while it has not} */
     public StopReason stopReason() {
         return stopReason;
     }
 
-    /** Ticks run so far; the other counts are in {@link #status()}. */
+    /** {@return ticks run so far} The other counts are in {@link #status()}. */
     public long tickCount() {
         return status().tickCount();
     }
 
-    /** Ticks that ended after the next deadline. */
+    /** {@return ticks that ended after the next deadline} */
     public long overrunCount() {
         return status().overrunCount();
     }
 
-    /** Deadlines dropped by {@link OverrunPolicy#SKIP_MISSED} (always 0 with {@link OverrunPolicy#RUN_LATE}). */
+    /**
+     * {@return deadlines dropped by {@link OverrunPolicy#SKIP_MISSED} (always 0 with {@link OverrunPolicy#RUN_LATE})}
+     */
     public long skippedTickCount() {
         return status().skippedTickCount();
     }
 
-    /** Ticks in which at least one callback failed. */
+    /** {@return ticks in which at least one callback failed} */
     public long failedTickCount() {
         return status().failedTickCount();
     }
 
-    /** Failed ticks in a row up to the last tick (0 after a good tick). */
+    /** {@return failed ticks in a row up to the last tick (0 after a good tick)} */
     public int consecutiveFailures() {
         return status().consecutiveFailures();
     }
 
-    /** The callback of the last failed tick (the first to fail in it), or {@link LoopCallback#NONE}. */
+    /** {@return the callback of the last failed tick (the first to fail in it), or {@link LoopCallback#NONE}} */
     public LoopCallback lastFailedCallback() {
         return lastFailedCallback;
     }
@@ -573,12 +578,14 @@ public final class LoopRunner {
     /**
      * What the last failing callback threw, or the unexpected error that stopped the loop; null when
      * the last failure was a non-finite value or nothing has failed.
+     *
+     * @return the cause of the last failure, or null
      */
     public Throwable lastFailureCause() {
         return lastFailureCause;
     }
 
-    /** Why the last rejected operator command (a restore that did not fit) was rejected; null if none was. */
+    /** {@return why the last rejected operator command (a restore that did not fit) was rejected; null if none was} */
     public IllegalArgumentException lastRejectedCommand() {
         return lastRejectedCommand;
     }

@@ -53,57 +53,57 @@ public final class LoopStatus {
         System.arraycopy(s.conditions, 0, conditions, 0, conditions.length);
     }
 
-    /** Ticks run since the runner was built (counting across restarts). */
+    /** {@return ticks run since the runner was built (counting across restarts)} */
     public long tickCount() {
         return tickCount;
     }
 
-    /** The setpoint the last tick used (NaN when its source failed). */
+    /** {@return the setpoint the last tick used (NaN when its source failed)} */
     public double setpoint() {
         return setpoint;
     }
 
-    /** The measurement the last tick read (NaN when the read failed). */
+    /** {@return the measurement the last tick read (NaN when the read failed)} */
     public double measurement() {
         return measurement;
     }
 
-    /** The output the last tick wrote. */
+    /** {@return the output the last tick wrote} */
     public double output() {
         return output;
     }
 
-    /** The controller's mode after the last tick. */
+    /** {@return the controller's mode after the last tick} */
     public Mode mode() {
         return mode;
     }
 
-    /** The controller's fault at the last tick ({@link Fault#NONE} for a good sample). */
+    /** {@return the controller's fault at the last tick ({@link Fault#NONE} for a good sample)} */
     public Fault fault() {
         return fault;
     }
 
-    /** Faulty samples the controller has counted. */
+    /** {@return faulty samples the controller has counted} */
     public long faultCount() {
         return faultCount;
     }
 
-    /** Ticks that ended after the next deadline. */
+    /** {@return ticks that ended after the next deadline} */
     public long overrunCount() {
         return overrunCount;
     }
 
-    /** Deadlines dropped by {@link OverrunPolicy#SKIP_MISSED}. */
+    /** {@return deadlines dropped by {@link OverrunPolicy#SKIP_MISSED}} */
     public long skippedTickCount() {
         return skippedTickCount;
     }
 
-    /** Ticks in which at least one callback failed. */
+    /** {@return ticks in which at least one callback failed} */
     public long failedTickCount() {
         return failedTickCount;
     }
 
-    /** Failed ticks in a row up to the last tick (0 after a good tick). */
+    /** {@return failed ticks in a row up to the last tick (0 after a good tick)} */
     public int consecutiveFailures() {
         return consecutiveFailures;
     }
@@ -111,17 +111,19 @@ public final class LoopStatus {
     /**
      * The last tick's start minus the previous tick's start, minus the period, in nanoseconds:
      * positive when the tick came late relative to the one before; 0 at the first tick of a run.
+     *
+     * @return the period error of the last tick in nanoseconds
      */
     public long lastPeriodErrorNanos() {
         return lastPeriodErrorNanos;
     }
 
-    /** Operator commands applied so far (the number of the last one applied). */
+    /** {@return operator commands applied so far (the number of the last one applied)} */
     public long appliedCommandCount() {
         return appliedCommandCount;
     }
 
-    /** Operator commands that were taken but could not be applied (a restore that did not fit). */
+    /** {@return operator commands that were taken but could not be applied (a restore that did not fit)} */
     public long rejectedCommandCount() {
         return rejectedCommandCount;
     }
@@ -130,12 +132,15 @@ public final class LoopStatus {
      * The loop monitor's status of a condition after the last tick, for a runner built with
      * {@link LoopRunner#monitored}; null for a runner without a monitor (nothing is watched, which is
      * not the same as ok).
+     *
+     * @param condition the condition to read
+     * @return ok, warn or alarm, or null without a monitor
      */
     public ConditionStatus condition(LoopCondition condition) {
         return conditions[condition.ordinal()];
     }
 
-    /** The worst of the monitor's condition statuses after the last tick; null without a monitor. */
+    /** {@return the worst of the monitor's condition statuses after the last tick; null without a monitor} */
     public ConditionStatus worstCondition() {
         ConditionStatus worst = conditions[0];
         for (ConditionStatus c : conditions) {

@@ -8,60 +8,62 @@ package org.loopwright.pid.runner;
  */
 public interface LoopStatusMXBean {
 
-    /** {@link RunnerState} in words: new, running or stopped. */
+    /** {@return {@link RunnerState} in words: new, running or stopped} */
     String getState();
 
-    /** {@link StopReason} in words. */
+    /** {@return {@link StopReason} in words} */
     String getStopReason();
 
-    /** The runner's period in nanoseconds. */
+    /** {@return the runner's period in nanoseconds} */
     long getPeriodNanos();
 
-    /** See {@link LoopStatus#tickCount()}. */
+    /** {@return the same as {@link LoopStatus#tickCount()}} */
     long getTickCount();
 
-    /** See {@link LoopStatus#setpoint()}. */
+    /** {@return the same as {@link LoopStatus#setpoint()}} */
     double getSetpoint();
 
-    /** See {@link LoopStatus#measurement()}. */
+    /** {@return the same as {@link LoopStatus#measurement()}} */
     double getMeasurement();
 
-    /** See {@link LoopStatus#output()}. */
+    /** {@return the same as {@link LoopStatus#output()}} */
     double getOutput();
 
-    /** {@link LoopStatus#mode()} in words. */
+    /** {@return {@link LoopStatus#mode()} in words} */
     String getMode();
 
-    /** {@link LoopStatus#fault()} in words. */
+    /** {@return {@link LoopStatus#fault()} in words} */
     String getFault();
 
-    /** See {@link LoopStatus#faultCount()}. */
+    /** {@return the same as {@link LoopStatus#faultCount()}} */
     long getFaultCount();
 
-    /** See {@link LoopStatus#overrunCount()}. */
+    /** {@return the same as {@link LoopStatus#overrunCount()}} */
     long getOverrunCount();
 
-    /** See {@link LoopStatus#skippedTickCount()}. */
+    /** {@return the same as {@link LoopStatus#skippedTickCount()}} */
     long getSkippedTickCount();
 
-    /** See {@link LoopStatus#failedTickCount()}. */
+    /** {@return the same as {@link LoopStatus#failedTickCount()}} */
     long getFailedTickCount();
 
-    /** See {@link LoopStatus#lastPeriodErrorNanos()}. */
+    /** {@return the same as {@link LoopStatus#lastPeriodErrorNanos()}} */
     long getLastPeriodErrorNanos();
 
-    /** See {@link LoopStatus#appliedCommandCount()}. */
+    /** {@return the same as {@link LoopStatus#appliedCommandCount()}} */
     long getAppliedCommandCount();
 
-    /** See {@link LoopStatus#rejectedCommandCount()}. */
+    /** {@return the same as {@link LoopStatus#rejectedCommandCount()}} */
     long getRejectedCommandCount();
 
     /**
      * The monitor's condition statuses, {@code condition=status} joined by commas (for example
      * {@code oscillation=ok, sluggish=warn, ...}); empty for a runner without a monitor.
+     *
+     * @return the statuses as text, or an empty string
      */
     String getConditions();
 
-    /** The worst of the monitor's condition statuses in words; empty without a monitor. */
+    /** {@return the worst of the monitor's condition statuses in words; empty without a monitor} */
     String getWorstCondition();
 }

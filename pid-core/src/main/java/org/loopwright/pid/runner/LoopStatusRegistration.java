@@ -38,6 +38,8 @@ public final class LoopStatusRegistration implements AutoCloseable {
      * Registers the runner's status.
      *
      * @param name the {@code name} key of the object name (quoted if needed)
+     * @param runner the runner whose status the bean reads
+     * @return the registration; close it to remove the bean
      * @throws IllegalArgumentException when the name is blank or a bean of that name is registered
      */
     public static LoopStatusRegistration register(LoopRunner runner, String name) {
@@ -55,7 +57,7 @@ public final class LoopStatusRegistration implements AutoCloseable {
         }
     }
 
-    /** The object name the status is registered under, in canonical form. */
+    /** {@return the object name the status is registered under, in canonical form} */
     public String objectName() {
         return objectName;
     }

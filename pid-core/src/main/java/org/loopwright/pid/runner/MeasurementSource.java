@@ -8,6 +8,6 @@ package org.loopwright.pid.runner;
 @FunctionalInterface
 public interface MeasurementSource {
 
-    /** The measurement for this tick, in process units. */
+    /** {@return the measurement for this tick, in process units} */
     double readMeasurement();
 }

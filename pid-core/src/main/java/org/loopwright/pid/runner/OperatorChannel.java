@@ -65,7 +65,7 @@ public final class OperatorChannel {
         this.references = new Object[capacity];
     }
 
-    /** How many commands may wait for the next tick at once. */
+    /** {@return how many commands may wait for the next tick at once} */
     public int capacity() {
         return kinds.length;
     }
@@ -74,6 +74,7 @@ public final class OperatorChannel {
      * Switches the controller's mode (bumpless, as {@link PidController#switchToManual()} and its
      * siblings describe).
      *
+     * @param mode the mode to switch to
      * @return the command's number
      * @throws CommandRefusedException when the runner is not running or the queue is full
      */
@@ -84,6 +85,7 @@ public final class OperatorChannel {
     /**
      * Sets the operator's output for manual mode.
      *
+     * @param value the output to hold in manual mode, finite
      * @return the command's number
      * @throws IllegalArgumentException when the value is not finite
      * @throws CommandRefusedException  when the runner is not running or the queue is full
@@ -96,6 +98,7 @@ public final class OperatorChannel {
     /**
      * Sets the setpoint of a runner that owns its setpoint (one built with an initial setpoint).
      *
+     * @param value the new setpoint, finite, in process units
      * @return the command's number
      * @throws IllegalArgumentException when the value is not finite
      * @throws CommandRefusedException  when the runner reads its setpoint from a {@link SetpointSource},
@@ -115,6 +118,7 @@ public final class OperatorChannel {
      * Retunes the controller at the next tick (bumpless). The sample period cannot change while the
      * loop runs, since it is the runner's period too: stop, retune, start again for that.
      *
+     * @param settings the new settings, with the same sample period
      * @return the command's number
      * @throws IllegalArgumentException when the settings change the sample period
      * @throws CommandRefusedException  when the runner is not running or the queue is full
@@ -135,6 +139,7 @@ public final class OperatorChannel {
      * the loop thread; when the command has been applied, {@link StateCapture#toSnapshot()} gives the
      * snapshot on the caller's thread. Do not reuse the holder before then.
      *
+     * @param into the holder the loop thread overwrites
      * @return the command's number
      * @throws CommandRefusedException when the runner is not running or the queue is full
      */
@@ -148,6 +153,7 @@ public final class OperatorChannel {
      * counts in {@link LoopStatus#rejectedCommandCount()} and {@link LoopRunner#lastRejectedCommand()}
      * says why.
      *
+     * @param snapshot the state to restore
      * @return the command's number
      * @throws CommandRefusedException when the runner is not running or the queue is full
      */
@@ -155,7 +161,7 @@ public final class OperatorChannel {
         return take(Kind.RESTORE, 0.0, Objects.requireNonNull(snapshot, "snapshot"), "restore");
     }
 
-    /** Commands applied so far (the number of the last one applied). */
+    /** {@return commands applied so far (the number of the last one applied)} */
     public long appliedCount() {
         return appliedCount;
     }
@@ -163,6 +169,8 @@ public final class OperatorChannel {
     /**
      * Waits until command {@code number} has been applied, for at most the timeout.
      *
+     * @param number a number that a {@code request} method returned
+     * @param timeout the longest wait
      * @return true when it has been applied
      * @throws InterruptedException when this thread is interrupted while waiting
      */

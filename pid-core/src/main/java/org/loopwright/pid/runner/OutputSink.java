@@ -8,6 +8,10 @@ package org.loopwright.pid.runner;
 @FunctionalInterface
 public interface OutputSink {
 
-    /** Applies the output (or increment, for incremental controllers) of this tick. */
+    /**
+     * Applies the output (or increment, for incremental controllers) of this tick.
+     *
+     * @param output the position, or the increment for incremental output, in output units
+     */
     void writeOutput(double output);
 }

@@ -73,13 +73,17 @@ public final class RunnerSettings {
         return value;
     }
 
-    /** A builder with the defaults: park-then-spin wait with a 100 µs margin, skip missed ticks, fixed period,
-     * stop after 10 failed ticks in a row, room for 64 waiting operator commands, a non-daemon thread named "loopwright-loop", the system clock. */
+    /**
+     * A builder with the defaults: park-then-spin wait with a 100 µs margin, skip missed ticks, fixed period,
+     * stop after 10 failed ticks in a row, room for 64 waiting operator commands, a non-daemon thread named "loopwright-loop", the system clock.
+     *
+     * @return a new builder holding those defaults
+     */
     public static Builder builder() {
         return new Builder();
     }
 
-    /** A builder that starts from these settings. */
+    /** {@return a builder that starts from these settings} */
     public Builder toBuilder() {
         Builder b = new Builder();
         b.waitStrategy = waitStrategy;
@@ -94,7 +98,7 @@ public final class RunnerSettings {
         return b;
     }
 
-    /** How the loop thread waits for a deadline. */
+    /** {@return how the loop thread waits for a deadline} */
     public WaitStrategy waitStrategy() {
         return waitStrategy;
     }
@@ -102,42 +106,44 @@ public final class RunnerSettings {
     /**
      * For {@link WaitStrategy#PARK_THEN_SPIN}: how long before the deadline parking ends and spinning
      * begins. A margin of a whole period or more spins the whole period.
+     *
+     * @return the spin margin in nanoseconds, &ge; 0
      */
     public long spinMarginNanos() {
         return spinMarginNanos;
     }
 
-    /** What happens after a tick that ends past the next deadline. */
+    /** {@return what happens after a tick that ends past the next deadline} */
     public OverrunPolicy overrunPolicy() {
         return overrunPolicy;
     }
 
-    /** Whether the controller gets its fixed period or the measured one. */
+    /** {@return whether the controller gets its fixed period or the measured one} */
     public PeriodMode periodMode() {
         return periodMode;
     }
 
-    /** Failed ticks in a row after which the runner stops with {@link StopReason#CONSECUTIVE_FAILURES}. */
+    /** {@return failed ticks in a row after which the runner stops with {@link StopReason#CONSECUTIVE_FAILURES}} */
     public int maxConsecutiveFailures() {
         return maxConsecutiveFailures;
     }
 
-    /** How many operator commands may wait for the next tick before requests are refused. */
+    /** {@return how many operator commands may wait for the next tick before requests are refused} */
     public int commandCapacity() {
         return commandCapacity;
     }
 
-    /** The loop thread's name. */
+    /** {@return the loop thread's name} */
     public String threadName() {
         return threadName;
     }
 
-    /** Whether the loop thread is a daemon (does not keep the JVM alive). */
+    /** {@return whether the loop thread is a daemon (does not keep the JVM alive)} */
     public boolean daemon() {
         return daemon;
     }
 
-    /** The clock the runner reads and parks on. */
+    /** {@return the clock the runner reads and parks on} */
     public LoopClock clock() {
         return clock;
     }
@@ -157,55 +163,100 @@ public final class RunnerSettings {
         private Builder() {
         }
 
-        /** How to wait for each deadline. */
+        /**
+         * How to wait for each deadline.
+         *
+         * @param value park, spin or park-then-spin (default park-then-spin)
+         * @return this builder
+         */
         public Builder waitStrategy(WaitStrategy value) {
             waitStrategy = value;
             return this;
         }
 
-        /** The park-then-spin wait's spin margin, &ge; 0 (default 100 µs). */
+        /**
+         * The park-then-spin wait's spin margin, &ge; 0 (default 100 µs).
+         *
+         * @param value the margin in nanoseconds, &ge; 0
+         * @return this builder
+         */
         public Builder spinMarginNanos(long value) {
             spinMarginNanos = value;
             return this;
         }
 
-        /** What to do after an overrun. */
+        /**
+         * What to do after an overrun.
+         *
+         * @param value skip the missed deadlines (default) or run late
+         * @return this builder
+         */
         public Builder overrunPolicy(OverrunPolicy value) {
             overrunPolicy = value;
             return this;
         }
 
-        /** Fixed or measured period for the controller. */
+        /**
+         * Fixed or measured period for the controller.
+         *
+         * @param value fixed (the controller gets its sample period, default) or measured
+         * @return this builder
+         */
         public Builder periodMode(PeriodMode value) {
             periodMode = value;
             return this;
         }
 
-        /** Failed ticks in a row after which the runner stops (&ge; 1). */
+        /**
+         * Failed ticks in a row after which the runner stops (&ge; 1).
+         *
+         * @param value the count, &ge; 1 (default 10)
+         * @return this builder
+         */
         public Builder maxConsecutiveFailures(int value) {
             maxConsecutiveFailures = value;
             return this;
         }
 
-        /** Operator commands that may wait for the next tick, 1 to {@value RunnerSettings#MAX_COMMAND_CAPACITY} (default 64). */
+        /**
+         * Operator commands that may wait for the next tick, 1 to {@value RunnerSettings#MAX_COMMAND_CAPACITY} (default 64).
+         *
+         * @param value the queue size
+         * @return this builder
+         */
         public Builder commandCapacity(int value) {
             commandCapacity = value;
             return this;
         }
 
-        /** The loop thread's name (not blank). */
+        /**
+         * The loop thread's name (not blank).
+         *
+         * @param value the name, not blank (default "loopwright-loop")
+         * @return this builder
+         */
         public Builder threadName(String value) {
             threadName = value;
             return this;
         }
 
-        /** Whether the loop thread is a daemon. */
+        /**
+         * Whether the loop thread is a daemon.
+         *
+         * @param value true for a daemon thread, which does not keep the JVM alive (default false)
+         * @return this builder
+         */
         public Builder daemon(boolean value) {
             daemon = value;
             return this;
         }
 
-        /** The clock (default {@link LoopClock#SYSTEM}). */
+        /**
+         * The clock (default {@link LoopClock#SYSTEM}).
+         *
+         * @param value the clock the runner reads and parks on
+         * @return this builder
+         */
         public Builder clock(LoopClock value) {
             clock = value;
             return this;
@@ -214,6 +265,7 @@ public final class RunnerSettings {
         /**
          * Validates and freezes the settings.
          *
+         * @return the immutable settings
          * @throws InvalidSettingException naming the field, the value and what is allowed
          */
         public RunnerSettings build() {

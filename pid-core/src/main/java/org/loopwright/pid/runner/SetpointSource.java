@@ -7,6 +7,6 @@ package org.loopwright.pid.runner;
 @FunctionalInterface
 public interface SetpointSource {
 
-    /** The setpoint for this tick, in process units. */
+    /** {@return the setpoint for this tick, in process units} */
     double setpoint();
 }

@@ -14,7 +14,7 @@ public enum WaitStrategy {
      */
     PARK_THEN_SPIN;
 
-    /** The word users see and type: {@code park}, {@code spin} or {@code park-then-spin}. */
+    /** {@return the word users see and type: {@code park}, {@code spin} or {@code park-then-spin}} */
     public String word() {
         return name().toLowerCase(Locale.ROOT).replace('_', '-');
     }
@@ -22,6 +22,8 @@ public enum WaitStrategy {
     /**
      * The strategy a word names.
      *
+     * @param word {@code park}, {@code spin} or {@code park-then-spin}
+     * @return the strategy
      * @throws IllegalArgumentException naming the word and the allowed ones
      */
     public static WaitStrategy fromWord(String word) {

@@ -18,7 +18,13 @@ import org.loopwright.pid.InvalidSettingException;
 public record FopdtModel(double processGain, double timeConstantSeconds, double deadTimeSeconds)
         implements ProcessModel {
 
-    /** Validates every parameter; see the record description for the allowed ranges. */
+    /**
+     * Validates every parameter; see the record description for the allowed ranges.
+     *
+     * @param processGain K in measurement units per output unit, finite and non-zero
+     * @param timeConstantSeconds T, finite and &gt; 0
+     * @param deadTimeSeconds L, finite and &ge; 0
+     */
     public FopdtModel {
         if (!Double.isFinite(processGain) || processGain == 0.0) {
             throw new InvalidSettingException("processGain", processGain, "must be finite and non-zero");
@@ -31,7 +37,7 @@ public record FopdtModel(double processGain, double timeConstantSeconds, double 
         }
     }
 
-    /** The normalised dead time τ = L/(L + T), between 0 (lag-dominant) and 1 (pure delay). */
+    /** {@return the normalised dead time τ = L/(L + T), between 0 (lag-dominant) and 1 (pure delay)} */
     public double normalisedDeadTime() {
         return deadTimeSeconds / (deadTimeSeconds + timeConstantSeconds);
     }

@@ -17,7 +17,13 @@ import org.loopwright.pid.InvalidSettingException;
 public record IntegratingModel(double processGain, double lagSeconds, double deadTimeSeconds)
         implements ProcessModel {
 
-    /** Validates every parameter; see the record description for the allowed ranges. */
+    /**
+     * Validates every parameter; see the record description for the allowed ranges.
+     *
+     * @param processGain K, finite and non-zero
+     * @param lagSeconds T, finite and &ge; 0
+     * @param deadTimeSeconds L, finite and &ge; 0
+     */
     public IntegratingModel {
         if (!Double.isFinite(processGain) || processGain == 0.0) {
             throw new InvalidSettingException("processGain", processGain, "must be finite and non-zero");

@@ -251,6 +251,9 @@ public enum ModelRule implements TuningRule {
     /**
      * Tunes from a model with the rule's default design parameter.
      *
+     * @param model the process model
+     * @param type PI or PID
+     * @return the gains, or why the rule does not apply
      * @see #tune(ProcessModel, ControllerType, double)
      */
     public TuningResult tune(ProcessModel model, ControllerType type) {
@@ -264,6 +267,8 @@ public enum ModelRule implements TuningRule {
      *
      * @param closedLoopTimeSeconds τc for SIMC or λ for lambda tuning, in seconds; NaN for the rule's
      *                              default; ignored by the other rules
+     * @param model the process model
+     * @param type PI or PID
      * @return the gains, or why the rule does not apply
      * @throws InvalidSettingException when closedLoopTimeSeconds is neither NaN nor finite and &gt; 0
      */
@@ -285,6 +290,10 @@ public enum ModelRule implements TuningRule {
     /**
      * The λ that {@link #LAMBDA} uses when none is given: max(T, 1.7·L) for PI, max(T, 0.8·L) for
      * PID (see {@link #LAMBDA}).
+     *
+     * @param model the first-order model
+     * @param type PI or PID
+     * @return λ in seconds
      */
     public static double defaultLambdaSeconds(FopdtModel model, ControllerType type) {
         double ratio = type == ControllerType.PI ? LAMBDA_PI_MIN_RATIO : LAMBDA_PID_MIN_RATIO;

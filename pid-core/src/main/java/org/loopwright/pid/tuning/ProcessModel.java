@@ -8,13 +8,13 @@ package org.loopwright.pid.tuning;
  */
 public sealed interface ProcessModel permits FopdtModel, SopdtModel, IntegratingModel {
 
-    /** K: the static gain, or for an integrating process the rate of change per unit input (1/s). */
+    /** {@return K: the static gain, or for an integrating process the rate of change per unit input (1/s)} */
     double processGain();
 
-    /** L in seconds, &ge; 0. */
+    /** {@return L, the dead time in seconds, &ge; 0} */
     double deadTimeSeconds();
 
-    /** |K|, the magnitude the rules tune on (a negative gain asks for direct action). */
+    /** {@return |K|, the magnitude the rules tune on (a negative gain asks for direct action)} */
     default double gainMagnitude() {
         return Math.abs(processGain());
     }

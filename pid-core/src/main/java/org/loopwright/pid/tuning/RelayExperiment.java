@@ -184,12 +184,12 @@ public final class RelayExperiment {
         return previousOutput;
     }
 
-    /** Where the experiment stands. */
+    /** {@return where the experiment stands} */
     public RelayStatus status() {
         return status;
     }
 
-    /** One sentence on the state, with the values behind an abort. Allocates; not for the loop. */
+    /** {@return one sentence on the state, with the values behind an abort} Allocates; not for the loop. */
     public String message() {
         return switch (status) {
             case RUNNING -> "running: " + completedCycles + " cycles completed after " + fmt(elapsedSeconds) + " s";
@@ -209,32 +209,32 @@ public final class RelayExperiment {
         };
     }
 
-    /** The ultimate gain estimate, NaN until {@link RelayStatus#SUCCEEDED}. */
+    /** {@return the ultimate gain estimate, NaN until {@link RelayStatus#SUCCEEDED}} */
     public double ultimateGain() {
         return ultimateGain;
     }
 
-    /** The ultimate period estimate in seconds, NaN until {@link RelayStatus#SUCCEEDED}. */
+    /** {@return the ultimate period estimate in seconds, NaN until {@link RelayStatus#SUCCEEDED}} */
     public double ultimatePeriodSeconds() {
         return ultimatePeriodSeconds;
     }
 
-    /** The measured amplitude a (half the peak-to-peak swing), NaN until {@link RelayStatus#SUCCEEDED}. */
+    /** {@return the measured amplitude a (half the peak-to-peak swing), NaN until {@link RelayStatus#SUCCEEDED}} */
     public double oscillationAmplitude() {
         return oscillationAmplitude;
     }
 
-    /** Complete relay cycles seen so far, settling cycles included. */
+    /** {@return complete relay cycles seen so far, settling cycles included} */
     public int completedCycles() {
         return completedCycles;
     }
 
-    /** Seconds since the first sample's time base (the sum of every h). */
+    /** {@return seconds since the first sample's time base (the sum of every h)} */
     public double elapsedSeconds() {
         return elapsedSeconds;
     }
 
-    /** The output restored when the experiment ends. */
+    /** {@return the output restored when the experiment ends} */
     public double previousOutput() {
         return previousOutput;
     }
@@ -242,6 +242,7 @@ public final class RelayExperiment {
     /**
      * The measured ultimate point.
      *
+     * @return Ku and Pu as measured
      * @throws IllegalStateException unless the experiment has succeeded
      */
     public UltimatePoint ultimatePoint() {

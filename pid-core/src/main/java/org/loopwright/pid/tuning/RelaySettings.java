@@ -66,62 +66,65 @@ public final class RelaySettings {
         action = Objects.requireNonNull(b.action, "action");
     }
 
-    /** A builder with no defaults for the required values (NaN until set). */
+    /** {@return a builder with no defaults for the required values (NaN until set)} */
     public static Builder builder() {
         return new Builder();
     }
 
-    /** The process-variable value the relay switches around. */
+    /** {@return the process-variable value the relay switches around} */
     public double setpoint() {
         return setpoint;
     }
 
-    /** The centre of the relay output: it switches between bias − d and bias + d. */
+    /** {@return the centre of the relay output: it switches between bias − d and bias + d} */
     public double bias() {
         return bias;
     }
 
-    /** d, half the relay's output swing, &gt; 0. */
+    /** {@return d, half the relay's output swing, &gt; 0} */
     public double relayAmplitude() {
         return relayAmplitude;
     }
 
-    /** ε, the half-width of the band around the setpoint inside which the relay holds, &ge; 0. */
+    /** {@return ε, the half-width of the band around the setpoint inside which the relay holds, &ge; 0} */
     public double hysteresis() {
         return hysteresis;
     }
 
-    /** The largest allowed |y − setpoint|; beyond it the experiment aborts. */
+    /** {@return the largest allowed |y − setpoint|; beyond it the experiment aborts} */
     public double excursionLimit() {
         return excursionLimit;
     }
 
-    /** The longest the experiment may run before it aborts. */
+    /** {@return the longest the experiment may run before it aborts, in seconds} */
     public double timeoutSeconds() {
         return timeoutSeconds;
     }
 
-    /** The longest the relay may stay in one position before the experiment aborts. */
+    /** {@return the longest the relay may stay in one position before the experiment aborts, in seconds} */
     public double maxHalfPeriodSeconds() {
         return maxHalfPeriodSeconds;
     }
 
-    /** How many consecutive cycles must agree before the result is taken, &ge; 2. */
+    /** {@return how many consecutive cycles must agree before the result is taken, &ge; 2} */
     public int measuredCycles() {
         return measuredCycles;
     }
 
-    /** How many complete cycles are discarded first while the oscillation settles, &ge; 0. */
+    /** {@return how many complete cycles are discarded first while the oscillation settles, &ge; 0} */
     public int settlingCycles() {
         return settlingCycles;
     }
 
-    /** The largest relative deviation of any measured cycle's period or amplitude from their mean. */
+    /** {@return the largest relative deviation of any measured cycle's period or amplitude from their mean} */
     public double cycleTolerance() {
         return cycleTolerance;
     }
 
-    /** Reverse: output high while the measurement is below the setpoint (a heater); direct: the opposite. */
+    /**
+     * {@return the relay's action} Reverse: output high while the measurement is below the setpoint (a heater);
+     * direct: the opposite.
+     */
     public Action action() {
         return action;
     }
@@ -143,67 +146,111 @@ public final class RelaySettings {
         private Builder() {
         }
 
-        /** @see RelaySettings#setpoint() */
+        /**
+         * @param value the setpoint, finite, in process units (required)
+         * @return this builder
+         * @see RelaySettings#setpoint()
+         */
         public Builder setpoint(double value) {
             setpoint = value;
             return this;
         }
 
-        /** @see RelaySettings#bias() */
+        /**
+         * @param value the output bias, finite, in output units (required)
+         * @return this builder
+         * @see RelaySettings#bias()
+         */
         public Builder bias(double value) {
             bias = value;
             return this;
         }
 
-        /** @see RelaySettings#relayAmplitude() */
+        /**
+         * @param value d, finite and &gt; 0, in output units (required)
+         * @return this builder
+         * @see RelaySettings#relayAmplitude()
+         */
         public Builder relayAmplitude(double value) {
             relayAmplitude = value;
             return this;
         }
 
-        /** @see RelaySettings#hysteresis() (default 0) */
+        /**
+         * @param value ε, finite and &ge; 0, in process units
+         * @return this builder
+         * @see RelaySettings#hysteresis() (default 0)
+         */
         public Builder hysteresis(double value) {
             hysteresis = value;
             return this;
         }
 
-        /** @see RelaySettings#excursionLimit() */
+        /**
+         * @param value the limit, finite and &gt; the hysteresis, in process units (required)
+         * @return this builder
+         * @see RelaySettings#excursionLimit()
+         */
         public Builder excursionLimit(double value) {
             excursionLimit = value;
             return this;
         }
 
-        /** @see RelaySettings#timeoutSeconds() */
+        /**
+         * @param value the timeout in seconds, finite and &gt; 0 (required)
+         * @return this builder
+         * @see RelaySettings#timeoutSeconds()
+         */
         public Builder timeoutSeconds(double value) {
             timeoutSeconds = value;
             return this;
         }
 
-        /** @see RelaySettings#maxHalfPeriodSeconds() */
+        /**
+         * @param value the longest half period in seconds, finite, &gt; 0 and &le; the timeout (required)
+         * @return this builder
+         * @see RelaySettings#maxHalfPeriodSeconds()
+         */
         public Builder maxHalfPeriodSeconds(double value) {
             maxHalfPeriodSeconds = value;
             return this;
         }
 
-        /** @see RelaySettings#measuredCycles() (default {@value RelaySettings#DEFAULT_MEASURED_CYCLES}) */
+        /**
+         * @param value the count, &ge; 2
+         * @return this builder
+         * @see RelaySettings#measuredCycles() (default {@value RelaySettings#DEFAULT_MEASURED_CYCLES})
+         */
         public Builder measuredCycles(int value) {
             measuredCycles = value;
             return this;
         }
 
-        /** @see RelaySettings#settlingCycles() (default {@value RelaySettings#DEFAULT_SETTLING_CYCLES}) */
+        /**
+         * @param value the count, &ge; 0
+         * @return this builder
+         * @see RelaySettings#settlingCycles() (default {@value RelaySettings#DEFAULT_SETTLING_CYCLES})
+         */
         public Builder settlingCycles(int value) {
             settlingCycles = value;
             return this;
         }
 
-        /** @see RelaySettings#cycleTolerance() (default {@value RelaySettings#DEFAULT_CYCLE_TOLERANCE}) */
+        /**
+         * @param value the relative tolerance, &gt; 0 and &lt; 1
+         * @return this builder
+         * @see RelaySettings#cycleTolerance() (default {@value RelaySettings#DEFAULT_CYCLE_TOLERANCE})
+         */
         public Builder cycleTolerance(double value) {
             cycleTolerance = value;
             return this;
         }
 
-        /** @see RelaySettings#action() (default reverse) */
+        /**
+         * @param value reverse (a heater) or direct
+         * @return this builder
+         * @see RelaySettings#action() (default reverse)
+         */
         public Builder action(Action value) {
             action = value;
             return this;
@@ -212,6 +259,7 @@ public final class RelaySettings {
         /**
          * Validates and builds.
          *
+         * @return the immutable settings
          * @throws InvalidSettingException naming the first invalid setting, its value and the rule
          */
         public RelaySettings build() {

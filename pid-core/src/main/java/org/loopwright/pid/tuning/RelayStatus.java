@@ -15,7 +15,7 @@ public enum RelayStatus {
     /** Aborted: a measurement or time step was not a finite number (h must also be &gt; 0). */
     ABORTED_INVALID_SAMPLE;
 
-    /** True for every state except {@link #RUNNING}. */
+    /** {@return true for every state except {@link #RUNNING}} */
     public boolean finished() {
         return this != RUNNING;
     }

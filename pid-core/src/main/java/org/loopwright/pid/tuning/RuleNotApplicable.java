@@ -12,7 +12,13 @@ import java.util.Objects;
  */
 public record RuleNotApplicable(TuningRule rule, ControllerType type, String reason) implements TuningResult {
 
-    /** Checks that nothing is null. */
+    /**
+     * Checks that nothing is null.
+     *
+     * @param rule the rule
+     * @param type PI or PID
+     * @param reason one sentence naming the limit and the offending values
+     */
     public RuleNotApplicable {
         Objects.requireNonNull(rule, "rule");
         Objects.requireNonNull(type, "type");

@@ -39,6 +39,7 @@ public final class SmithTwoPoint {
      * @param outputs          the process variable at those times, finite
      * @param stepTimeSeconds  when the input stepped
      * @param inputChange      the size of the input step, finite and non-zero
+     * @return the first-order-plus-dead-time model the step response fits
      * @throws InvalidSettingException for arrays of different lengths, too few samples, times not
      *                                 increasing, non-finite values or no change in the output
      */

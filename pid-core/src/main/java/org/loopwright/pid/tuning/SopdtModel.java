@@ -17,7 +17,14 @@ import org.loopwright.pid.InvalidSettingException;
 public record SopdtModel(double processGain, double timeConstantSeconds, double secondTimeConstantSeconds,
         double deadTimeSeconds) implements ProcessModel {
 
-    /** Validates every parameter; see the record description for the allowed ranges. */
+    /**
+     * Validates every parameter; see the record description for the allowed ranges.
+     *
+     * @param processGain K, finite and non-zero
+     * @param timeConstantSeconds T1, finite and &gt; 0
+     * @param secondTimeConstantSeconds T2, finite, &gt; 0 and &le; T1
+     * @param deadTimeSeconds L, finite and &ge; 0
+     */
     public SopdtModel {
         if (!Double.isFinite(processGain) || processGain == 0.0) {
             throw new InvalidSettingException("processGain", processGain, "must be finite and non-zero");
@@ -38,6 +45,8 @@ public record SopdtModel(double processGain, double timeConstantSeconds, double 
     /**
      * Skogestad's half rule (2003): half of T2 goes to the time constant, half to the dead time,
      * giving the first-order model K·e^(−s(L + T2/2))/((T1 + T2/2)·s + 1).
+     *
+     * @return the first-order-plus-dead-time model with time constant T1 + T2/2 and dead time L + T2/2
      */
     public FopdtModel halfRule() {
         return new FopdtModel(processGain, timeConstantSeconds + secondTimeConstantSeconds / 2.0,

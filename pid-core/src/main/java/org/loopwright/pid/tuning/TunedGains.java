@@ -16,7 +16,14 @@ import org.loopwright.pid.form.IdealGains;
 public record TunedGains(TuningRule rule, ControllerType type, IdealGains gains, String note)
         implements TuningResult {
 
-    /** Checks that nothing is null. */
+    /**
+     * Checks that nothing is null.
+     *
+     * @param rule the rule
+     * @param type PI or PID
+     * @param gains the ideal-form gains; derivative time 0 for PI
+     * @param note the design parameter used, such as {@code "tau_c = 2.0 s (= L)"}, or empty
+     */
     public TunedGains {
         Objects.requireNonNull(rule, "rule");
         Objects.requireNonNull(type, "type");

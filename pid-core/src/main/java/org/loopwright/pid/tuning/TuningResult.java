@@ -6,13 +6,13 @@ package org.loopwright.pid.tuning;
  */
 public sealed interface TuningResult permits TunedGains, RuleNotApplicable {
 
-    /** The rule that was asked. */
+    /** {@return the rule that was asked} */
     TuningRule rule();
 
-    /** The controller type that was asked for. */
+    /** {@return the controller type that was asked for} */
     ControllerType type();
 
-    /** The paper the rule comes from. */
+    /** {@return the paper the rule comes from} */
     default String citation() {
         return rule().citation();
     }

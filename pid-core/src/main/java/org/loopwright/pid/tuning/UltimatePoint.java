@@ -13,7 +13,12 @@ import org.loopwright.pid.InvalidSettingException;
  */
 public record UltimatePoint(double ultimateGain, double ultimatePeriodSeconds) {
 
-    /** Validates both values. */
+    /**
+     * Validates both values.
+     *
+     * @param ultimateGain Ku, finite and &gt; 0
+     * @param ultimatePeriodSeconds Pu, finite and &gt; 0
+     */
     public UltimatePoint {
         if (!Double.isFinite(ultimateGain) || ultimateGain <= 0.0) {
             throw new InvalidSettingException("ultimateGain", ultimateGain, "must be finite and > 0");
