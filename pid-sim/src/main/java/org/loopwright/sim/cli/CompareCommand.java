@@ -15,7 +15,9 @@ import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
+import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
+import org.loopwright.sim.report.NumberText;
 import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.study.DiscretisationStudy;
 import org.loopwright.sim.study.SamplingVerdict;
@@ -45,7 +47,9 @@ import picocli.CommandLine.Spec;
 @Command(name = "compare", mixinStandardHelpOptions = true,
         description = {"Compare every integral x derivative discretisation at each sample period with the continuous design.",
                 "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
-                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller."})
+                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller.",
+                "The sampled loop includes the sensor's delay-samples. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
+                        + "; " + NumberText.MISSING + " where the response did not settle or diverged."})
 public final class CompareCommand implements Callable<Integer> {
 
     @Spec
@@ -84,11 +88,13 @@ public final class CompareCommand implements Callable<Integer> {
             if (output.givenDirectory().isPresent()) {
                 Path outDirectory = output.givenDirectory().get();
                 List<Path> written;
-                try {
-                    written = new ArrayList<>(StudyPlots.write(result, outDirectory));
-                    written.add(HtmlReports.compare(outDirectory, HtmlReports.record(spec, loop.scenario(),
+                // staged, then moved: a run that fails half way leaves no half-written file behind
+                try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+                    written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
+                    written.add(HtmlReports.compare(stage.directory(), HtmlReports.record(spec, loop.scenario(),
                             scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
                             StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
+                    stage.commit();
                 } catch (IOException e) {
                     throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
                 }

@@ -42,7 +42,11 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "simulate", mixinStandardHelpOptions = true,
         description = {"Simulate a controller on a plant model and report the response.",
             "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
-            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention)."})
+            "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention).",
+            "The first row says whether the response settled, did not settle or DIVERGED.",
+            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures are given only once the",
+            "output has settled (2 %% band), else 'not settled'.",
+            "Divergence: " + Divergence.RULE + "; such a run is stopped there and reported DIVERGED."})
 public final class SimulateCommand implements Callable<Integer> {
 
     @Parameters(index = "0", arity = "0..1", paramLabel = "SCENARIO.yaml",
@@ -93,23 +97,27 @@ public final class SimulateCommand implements Callable<Integer> {
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();
 
         Path outDirectory = output.directory("simulate");
-        Files.createDirectories(outDirectory);
-        TrajectoryCsv.write(trajectory, outDirectory.resolve("trajectory.csv"));
-        System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(ResponsePlot.response(trajectory, title, scenario.units()), outDirectory, "response");
-        List<Path> plots = new ArrayList<>(List.of(outDirectory.resolve("response.svg")));
-        if (trajectory.hasInnerLoop()) {
-            ResponsePlot.save(ResponsePlot.innerLoop(trajectory, title), outDirectory, "inner-loop");
-            plots.add(outDirectory.resolve("inner-loop.svg"));
-        }
-        String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
-                + " (the first setpoint change until the next change or load step); integrals to the end.",
-                trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
-                ResponseWindow.of(scenario).describe());
         ResultTable table = MetricsReport.table(metrics, cycle, scenario.units());
-        HtmlReports.simulate(outDirectory, HtmlReports.record(spec, scenario, scenarioFile), title, summary, table,
-                plots, scenarioFile == null ? "built-in water-bath demo" : title,
-                scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
+        // staged, then moved: a run that fails half way leaves no half-written file behind
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            Path directory = stage.directory();
+            TrajectoryCsv.write(trajectory, directory.resolve("trajectory.csv"));
+            System.setProperty("java.awt.headless", "true");
+            ResponsePlot.save(ResponsePlot.response(trajectory, title, scenario.units()), directory, "response");
+            List<Path> plots = new ArrayList<>(List.of(directory.resolve("response.svg")));
+            if (trajectory.hasInnerLoop()) {
+                ResponsePlot.save(ResponsePlot.innerLoop(trajectory, title), directory, "inner-loop");
+                plots.add(directory.resolve("inner-loop.svg"));
+            }
+            String summary = String.format(Locale.ROOT, "%d samples every %s s over %s s. Step figures %s"
+                    + " (the first setpoint change until the next change or load step); integrals to the end.",
+                    trajectory.length(), scenario.samplePeriodSeconds(), scenario.durationSeconds(),
+                    ResponseWindow.of(scenario).describe());
+            HtmlReports.simulate(directory, HtmlReports.record(spec, scenario, scenarioFile), title, summary, table,
+                    plots, scenarioFile == null ? "built-in water-bath demo" : title,
+                    scenarioFile == null ? ScenarioFile.waterBathDemoText() : Files.readString(scenarioFile));
+            stage.commit();
+        }
 
         if (output.json()) {
             out.println(MetricsReport.jsonText(metrics, cycle));

@@ -133,11 +133,13 @@ public final class SweepCommand implements Callable<Integer> {
         }
         String title = String.valueOf(scenarioFile.getFileName());
         List<Path> written;
-        try {
-            written = new ArrayList<>(SweepFiles.write(result, outDirectory, title));
-            written.add(HtmlReport.write(outDirectory.resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
+        // staged, then moved: a run that fails half way leaves no half-written file behind
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title));
+            written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
                     HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
+            stage.commit();
         } catch (IOException e) {
             err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)
                     .getMessage());
@@ -160,7 +162,9 @@ public final class SweepCommand implements Callable<Integer> {
 
     private static String header(SweepResult result, int threadCount) {
         int n = result.runs().size();
-        long unstable = count(result, LoopStability.UNSTABLE);
+        // the same runs as unstableShare(): a diverged run is unstable too
+        long unstable = count(result, LoopStability.UNSTABLE) + count(result, LoopStability.DIVERGED);
+        long diverged = count(result, LoopStability.DIVERGED);
         long notAssessed = count(result, LoopStability.NOT_ASSESSED);
         double notSettled = result.notSettledShare();
         List<String> spreads = new ArrayList<>();
@@ -171,10 +175,11 @@ public final class SweepCommand implements Callable<Integer> {
             }
         }
         return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; %s.%nunstable: %s (%d of %d, from the closed-loop poles of the sampled linear loop"
-                + " or a diverging simulation)%s; never settled (2 %% band): %s of the runs whose response moved.",
+                + " or a diverging simulation; %d diverged and were stopped, kept out of the distributions)%s;"
+                + " never settled (2 %% band): %s of the runs whose response moved.",
                 n, result.seed(), threadCount, spreads.isEmpty() ? "no spread: every run on the nominal plant"
                         : "each plant factor uniform within " + String.join(", ", spreads) + " of the nominal",
-                percent(result.unstableShare()), unstable, n,
+                percent(result.unstableShare()), unstable, n, diverged,
                 notAssessed == 0 ? "" : String.format(Locale.ROOT, "; stability not assessed for %d", notAssessed),
                 Double.isNaN(notSettled) ? "n/a" : percent(notSettled));
     }

@@ -325,9 +325,13 @@ public final class TuneCommand implements Callable<Integer> {
         return option + " " + e.rule() + ": " + option + "=" + e.value();
     }
 
+    /** Writes a --write-controller file: staged beside it, then moved, so a failure leaves no half-written file. */
     static void write(Path file, String text) {
-        try {
-            Files.writeString(file, text, StandardCharsets.UTF_8);
+        Path absolute = file.toAbsolutePath();
+        try (OutputStage stage = OutputStage.in(absolute.getParent(), "--write-controller")) {
+            Files.writeString(stage.directory().resolve(absolute.getFileName().toString()), text,
+                    StandardCharsets.UTF_8);
+            stage.commit();
         } catch (IOException e) {
             throw new BadInput(file + ": cannot be written (" + e + ")");
         }

@@ -2,6 +2,7 @@ package org.loopwright.sim.design;
 
 import java.awt.BasicStroke;
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -42,35 +43,57 @@ public final class DesignPlots {
      */
     public static List<Path> write(DesignResult result, Path directory) throws IOException {
         System.setProperty("java.awt.headless", "true");
-        List<Path> files = new ArrayList<>();
+        List<PlotTask> tasks = new ArrayList<>();
         DesignModel model = result.model();
         if (model.fit().isPresent() && model.test().isPresent()) {
-            files.add(IdentificationPlot.writePng(directory.resolve("fit.png"), model.test().get(), model.fit().get()));
-            files.add(save(residuals(model.test().get(), model.fit().get()), directory, "fit-residuals"));
+            tasks.add(() -> List.of(IdentificationPlot.writePng(directory.resolve("fit.png"), model.test().get(),
+                    model.fit().get()), save(residuals(model.test().get(), model.fit().get()), directory,
+                    "fit-residuals")));
         }
         String recommended = result.recommended().map(Candidate::name).orElse("");
         if (result.candidates().stream().anyMatch(Candidate::stable)) {
-            files.add(save(overlay(result, recommended, true), directory, "responses"));
-            files.add(save(overlay(result, recommended, false), directory, "outputs"));
+            tasks.add(() -> List.of(save(overlay(result, recommended, true), directory, "responses")));
+            tasks.add(() -> List.of(save(overlay(result, recommended, false), directory, "outputs")));
         }
         if (result.recommended().isPresent()) {
             Candidate c = result.recommended().get();
-            double h = c.device().samplePeriodSeconds();
-            FrequencyResponse loop = LoopAnalysis.sampledLoop(c.scenario().sampledLoop().orElseThrow());
-            double crossover = c.margins().margins().gainCrossover().map(g -> g.frequencyRadPerSecond())
-                    .orElse(c.margins().margins().sensitivityPeak().frequencyRadPerSecond());
-            if (!(crossover > 0.0)) {
-                crossover = 0.1 * Math.PI / h;
-            }
-            files.addAll(StudyPlots.writeLoop(loop, c.ms(), "sampled loop of " + c.name() + ", h = " + h + " s",
-                    Math.min(crossover / 100.0, 0.01 * Math.PI / h), Math.PI / h, directory));
+            tasks.add(() -> loopPlots(c, directory));
             if (c.sweep().isPresent()) {
-                XYChart sweep = SweepFiles.plot(c.sweep().get(), "Robustness sweep of " + c.name() + ", plants within "
-                        + result.spec().spread().text());
-                files.add(save(sweep, directory, "sweep"));
+                tasks.add(() -> List.of(save(SweepFiles.plot(c.sweep().get(), "Robustness sweep of " + c.name()
+                        + ", plants within " + result.spec().spread().text()), directory, "sweep")));
             }
         }
+        // rendering PNGs is a good share of the command's time: the plots are drawn side by side
+        List<Path> files = new ArrayList<>();
+        for (List<Path> written : tasks.parallelStream().map(PlotTask::unchecked).toList()) {
+            files.addAll(written);
+        }
         return files;
+    }
+
+    /** One or more plots written to files. */
+    private interface PlotTask {
+        List<Path> write() throws IOException;
+
+        default List<Path> unchecked() {
+            try {
+                return write();
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
+            }
+        }
+    }
+
+    private static List<Path> loopPlots(Candidate c, Path directory) throws IOException {
+        double h = c.device().samplePeriodSeconds();
+        FrequencyResponse loop = LoopAnalysis.sampledLoop(c.scenario().sampledLoop().orElseThrow());
+        double crossover = c.margins().margins().gainCrossover().map(g -> g.frequencyRadPerSecond())
+                .orElse(c.margins().margins().sensitivityPeak().frequencyRadPerSecond());
+        if (!(crossover > 0.0)) {
+            crossover = 0.1 * Math.PI / h;
+        }
+        return StudyPlots.writeLoop(loop, c.ms(), "sampled loop of " + c.name() + ", h = " + h + " s",
+                Math.min(crossover / 100.0, 0.01 * Math.PI / h), Math.PI / h, directory);
     }
 
     private static XYChart residuals(StepTest test, IdentifiedModel fit) {

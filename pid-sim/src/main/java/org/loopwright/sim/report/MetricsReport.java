@@ -4,10 +4,12 @@ import java.util.Optional;
 
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseState;
 import org.loopwright.sim.scenario.Units;
 
 /**
- * The metrics of a run as a readable table or as one JSON object with the keys {@code rise_time},
+ * The metrics of a run as a readable table or as one JSON object with the keys {@code response}
+ * (settled, not settled, DIVERGED or no setpoint change), {@code rise_time},
  * {@code settling_time}, {@code overshoot_percent}, {@code peak_time}, {@code steady_state_error},
  * {@code iae}, {@code ise}, {@code itae}, {@code total_variation}, {@code saturated_fraction},
  * {@code limit_cycle_amplitude}, {@code limit_cycle_period} (seconds and engineering units; null
@@ -22,6 +24,7 @@ public final class MetricsReport {
      * The metrics as JSON: one record, written by {@link JsonOutput} (snake_case keys, null where a
      * figure does not apply).
      *
+     * @param response              the response's state in words ({@link ResponseState#words()})
      * @param riseTime              10–90 % rise time, s
      * @param settlingTime          2 % settling time, s
      * @param overshootPercent      overshoot, % of the step
@@ -35,7 +38,7 @@ public final class MetricsReport {
      * @param limitCycleAmplitude   an on-off loop's cycle amplitude, process units
      * @param limitCyclePeriod      an on-off loop's cycle period, s
      */
-    public record MetricsJson(double riseTime, double settlingTime, double overshootPercent, double peakTime,
+    public record MetricsJson(String response, double riseTime, double settlingTime, double overshootPercent, double peakTime,
             double steadyStateError, double iae, double ise, double itae, double totalVariation,
             double saturatedFraction, double limitCycleAmplitude, double limitCyclePeriod) {
     }
@@ -48,7 +51,7 @@ public final class MetricsReport {
      * @return the record
      */
     public static MetricsJson json(ResponseMetrics m, Optional<LimitCycle> cycle) {
-        return new MetricsJson(m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
+        return new MetricsJson(m.state().words(), m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
                 m.peakTimeSeconds(), m.steadyStateError(), m.iae(), m.ise(), m.itae(), m.totalVariation(),
                 m.saturatedFraction(), cycle.map(LimitCycle::amplitude).orElse(Double.NaN),
                 cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN));
@@ -67,7 +70,9 @@ public final class MetricsReport {
 
     /**
      * The metrics as one typed table, a figure a row with its value and unit in the scenario's
-     * units: the text table, the HTML report's table and the JSON keys all come from it.
+     * units, for the text table and the HTML report. The response's state comes first; a figure
+     * that is missing because the response did not settle or diverged reads as that state
+     * ("not settled", "DIVERGED"), not as a number that would assume a settled loop.
      *
      * @param m      the metrics
      * @param cycle  the limit cycle of an on-off loop, if any
@@ -75,21 +80,34 @@ public final class MetricsReport {
      * @return the table
      */
     public static ResultTable table(ResponseMetrics m, Optional<LimitCycle> cycle, Units units) {
-        ResultTable table = ResultTable.of("Response metrics (" + NumberText.MISSING + ": the figure does not apply)",
+        ResultTable table = ResultTable.of("Response metrics (" + NumberText.MISSING + ": the figure does not apply)."
+                + " Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures only once settled (2 % band).",
                 ResultTable.Column.text("figure", "figure"), ResultTable.Column.number("value", "value", "", 4),
                 ResultTable.Column.text("unit", "unit"));
-        table.row("rise time (10-90 %)", m.riseTimeSeconds(), "s");
-        table.row("settling time (2 %)", m.settlingTimeSeconds(), "s");
-        table.row("overshoot", m.overshootPercent(), "%");
-        table.row("peak time", m.peakTimeSeconds(), "s");
-        table.row("steady-state error", m.steadyStateError(), units.processOrWord());
-        table.row("IAE", m.iae(), units.processSeconds());
-        table.row("ISE", m.ise(), units.processOrWord() + "²·s");
-        table.row("ITAE", m.itae(), units.processOrWord() + "·s²");
-        table.row("total variation of output", m.totalVariation(), units.outputOrWord());
-        table.row("time saturated", 100.0 * m.saturatedFraction(), "%");
+        boolean unsettled = m.state() == ResponseState.NOT_SETTLED || m.state() == ResponseState.DIVERGED;
+        Object stepMissing = unsettled ? m.state().words() : null;
+        Object runMissing = m.state() == ResponseState.DIVERGED ? m.state().words() : null;
+        table.row("response", m.state().words(), "");
+        table.row("rise time (10-90 %)", or(m.riseTimeSeconds(), stepMissing), "s");
+        table.row("settling time (2 %)", or(m.settlingTimeSeconds(), stepMissing), "s");
+        table.row("overshoot", or(m.overshootPercent(), stepMissing), "%");
+        table.row("peak time", or(m.peakTimeSeconds(), m.state() == ResponseState.SETTLED ? null : stepMissing), "s");
+        table.row("steady-state error", or(m.steadyStateError(), stepMissing), units.processOrWord());
+        table.row("IAE", or(m.iae(), runMissing), units.processSeconds());
+        table.row("ISE", or(m.ise(), runMissing), units.processOrWord() + "²·s");
+        table.row("ITAE", or(m.itae(), runMissing), units.processOrWord() + "·s²");
+        table.row("total variation of output", or(m.totalVariation(), runMissing), units.outputOrWord());
+        table.row("time saturated", or(100.0 * m.saturatedFraction(), runMissing), "%");
         table.row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), units.processOrWord());
         table.row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
         return table;
+    }
+
+    /** The figure, or the reason it is missing when there is one (null leaves the table's own mark). */
+    private static Object or(double value, Object reason) {
+        if (Double.isFinite(value) || reason == null) {
+            return value;
+        }
+        return reason;
     }
 }

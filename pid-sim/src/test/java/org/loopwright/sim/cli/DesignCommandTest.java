@@ -47,7 +47,7 @@ class DesignCommandTest {
         // one source of truth: design's figures for the recommended candidate must be exactly what the
         // other commands compute from the files it wrote
         CommandRun run = CommandRun.of("design", "--process-gain", "2", "--time-constant", "5", "--dead-time", "1",
-                "--sample-period", "0.25", "--output-min", "-20", "--output-max", "20", "--runs", "12", "--seed", "3", "--out", dir.toString(), "--json");
+                "--sample-period", "0.25", "--output-min", "-20", "--output-max", "20", "--sensor-delay-samples", "1", "--runs", "12", "--seed", "3", "--out", dir.toString(), "--json");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode design = JSON.readTree(run.out());

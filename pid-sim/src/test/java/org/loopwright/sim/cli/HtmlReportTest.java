@@ -17,6 +17,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
 import org.loopwright.sim.report.NumberText;
@@ -120,10 +121,14 @@ class HtmlReportTest {
         assertSelfContained(page);
         assertThat(elements(page, XHTML, "title").get(0).getTextContent()).isEqualTo("Simulation of pump.yaml");
         Element metricsTable = table(page, "Response metrics");
-        assertThat(bodyRowFirstCells(metricsTable)).containsExactly("rise time (10-90 %)", "settling time (2 %)",
+        // the verdict first, and the overshoot's definition with the table (ResponseMetrics' one constant)
+        assertThat(elements(metricsTable, XHTML, "caption").get(0).getTextContent())
+                .contains(ResponseMetrics.OVERSHOOT_DEFINITION);
+        assertThat(cell(metricsTable, "response")).isEqualTo("settled").isEqualTo(metrics.get("response").asText());
+        assertThat(bodyRowFirstCells(metricsTable)).containsExactly("response", "rise time (10-90 %)", "settling time (2 %)",
                 "overshoot", "peak time", "steady-state error", "IAE", "ISE", "ITAE", "total variation of output",
                 "time saturated", "limit cycle amplitude", "limit cycle period");
-        Element iaeRow = elements(elements(metricsTable, XHTML, "tbody").get(0), XHTML, "tr").get(5);
+        Element iaeRow = elements(elements(metricsTable, XHTML, "tbody").get(0), XHTML, "tr").get(6);
         assertThat(elements(iaeRow, XHTML, "td").get(1).getTextContent())
                 .isEqualTo(NumberText.of(metrics.get("iae").asDouble()));
         assertThat(elements(iaeRow, XHTML, "td").get(2).getTextContent()).isEqualTo("bar·s");

@@ -87,6 +87,9 @@ class InputErrorsTest {
         CommandRun run = CommandRun.of("simulate", file.toString(), "--out", dir.resolve("out").toString());
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.err()).contains("DIVERGED");
+        // the verdict row, and no figure that assumes a settled loop
+        assertThat(run.out()).containsPattern("response +DIVERGED\\n").containsPattern("settling time \\(2 %\\) +DIVERGED")
+                .containsPattern("IAE +DIVERGED");
         String csv = Files.readString(dir.resolve("out/trajectory.csv"));
         assertThat(csv).doesNotContain("Infinity", "NaN", "E307");
     }

@@ -7,11 +7,13 @@ import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.stream.Stream;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loopwright.sim.metrics.ResponseMetrics;
 
 class SimulateCommandTest {
 
@@ -41,6 +43,47 @@ class SimulateCommandTest {
         assertThat(csv).hasSize(7201 + 1);
         assertThat(Files.size(dir.resolve("response.png"))).isPositive();
         assertThat(Files.readString(dir.resolve("response.svg"))).contains("<svg");
+        // written into a staging folder, then moved: nothing of the stage is left
+        try (Stream<Path> files = Files.list(dir)) {
+            assertThat(files.map(p -> p.getFileName().toString())).noneMatch(name -> name.startsWith(".loopwright"));
+        }
+    }
+
+    /**
+     * P control (K = 19.9) of an integrator y(k+1) = y(k) + h·u(k) with h = 0.1 s: the error obeys
+     * e(k+1) = (1 − K·h)·e(k) = −0.99·e(k) (analytic solution of the difference equation), so after
+     * 10 s the output still swings by 0.99^100 ≈ 37 % of the step around the setpoint: not settled,
+     * not diverged. The verdict says so and no settling time, overshoot or steady-state error is given,
+     * in the table or in JSON.
+     */
+    @Test
+    void aRingingResponseSaysNotSettledInsteadOfStepFigures(@TempDir Path dir) throws IOException {
+        Path scenario = dir.resolve("ringing.yaml");
+        Files.writeString(scenario, """
+                controller: {form: parallel, proportional-gain: 19.9, sample-period: 0.1}
+                plant: {type: integrating, gain: 1.0}
+                setpoint: [{at: 0, value: 1.0}]
+                duration: 10
+                """);
+        assertThat(run("simulate", scenario.toString(), "--out", dir.resolve("t").toString())).as(err.toString()).isZero();
+        assertThat(out.toString()).containsPattern("response +not settled\\n")
+                .containsPattern("settling time \\(2 %\\) +not settled").containsPattern("overshoot +not settled")
+                .containsPattern("steady-state error +not settled");
+        out.getBuffer().setLength(0);
+        assertThat(run("simulate", scenario.toString(), "--out", dir.resolve("j").toString(), "--json")).isZero();
+        JsonNode metrics = new ObjectMapper().readTree(out.toString());
+        assertThat(metrics.get("response").asText()).isEqualTo("not settled");
+        assertThat(metrics.get("settling_time").isNull()).isTrue();
+        assertThat(metrics.get("overshoot_percent").isNull()).isTrue();
+        assertThat(metrics.get("iae").isNumber()).isTrue();
+    }
+
+    @Test
+    void helpOfSimulateAndCompareStatesTheOvershootDefinition() {
+        for (String command : List.of("simulate", "compare")) {
+            CommandRun help = CommandRun.of(command, "--help");
+            assertThat(help.out().replaceAll("\\s+", " ")).as(command).contains(ResponseMetrics.OVERSHOOT_DEFINITION);
+        }
     }
 
     @Test

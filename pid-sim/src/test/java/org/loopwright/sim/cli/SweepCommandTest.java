@@ -91,6 +91,27 @@ class SweepCommandTest {
         assertThat(run.err()).isEmpty();
     }
 
+    /**
+     * P control (K = 25) of an integrator with h = 0.1 s: e(k+1) = (1 − g·K·h)·e(k) with the plant gain
+     * g within ±10 % of 1, so the factor is from −1.75 to −1.25 (analytic solution of the difference
+     * equation): every run grows until it passes the divergence bound. The header's count of unstable
+     * runs includes them, as the unstable share does.
+     */
+    @Test
+    void theHeaderCountsDivergedRunsAsUnstable(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("diverging.yaml");
+        Files.writeString(file, """
+                controller: {form: parallel, proportional-gain: 25.0, sample-period: 0.1}
+                plant: {type: integrating, gain: 1.0}
+                setpoint: [{at: 0, value: 1.0}]
+                duration: 100
+                """);
+        CommandRun run = CommandRun.of("sweep", file.toString(), "--runs", "4", "--spread", "gain=10%", "--seed", "1",
+                "--out", dir.resolve("out").toString(), "--no-progress");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).containsPattern("unstable: [^(]*\\(4 of 4, ").contains("4 diverged and were stopped");
+    }
+
     static Stream<Arguments> badInput() {
         return Stream.of(
                 Arguments.of(List.of("--spread", "gain=20"),
