@@ -210,7 +210,8 @@ public final class LoopRunner {
         thread = loop;
         channel.open();
         LOG.info("loop runner '{}' starting: period {} ns, {} wait, {}", settings.threadName(), periodNanos,
-                settings.waitStrategy().word(), settings.overrunPolicy());
+                settings.waitStrategy().word(),
+                settings.overrunPolicy() == OverrunPolicy.SKIP_MISSED ? "missed ticks skipped" : "late ticks run");
         loop.start();
     }
 

@@ -49,7 +49,7 @@ public enum UltimatePointRule implements TuningRule {
                     : new IdealGains(ku / 2.2, 2.2 * pu, pu / 6.3);
             return new TunedGains(this, type, gains, "");
         }
-    };;
+    };
 
     private final String label;
     private final String citation;
