@@ -2,7 +2,6 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -174,13 +173,17 @@ public final class DesignCommand implements Callable<Integer> {
             err.flush();
             return LoopwrightCommand.BAD_INPUT;
         }
-        Files.createDirectories(outDirectory);
         // the report's record: the command line, the input files with their SHA-256, the recommended settings in full
         List<Path> inputs = Stream.of(stepTest, plantFile).filter(Objects::nonNull).toList();
         ReportRecord record = ReportRecord.of(BuildVersion.line(), spec.root().commandLine().getParseResult()
                 .originalArgs(), inputs, result.recommended().map(c -> ControllerFile.resolved(c.device()))
                 .orElse(Map.of()));
-        List<String> files = DesignFiles.write(result, outDirectory, record);
+        List<String> files;
+        // staged, then moved: a run that fails half way leaves no half-written file behind
+        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+            files = DesignFiles.write(result, stage.directory(), record);
+            stage.commit();
+        }
         if (json) {
             out.println(Json.pretty(DesignFiles.json(result, files)));
         } else {

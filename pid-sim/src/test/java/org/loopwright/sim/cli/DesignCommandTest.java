@@ -102,6 +102,11 @@ class DesignCommandTest {
         // the data was made with two lags (12 s and 60 s): the second-order fit must be kept
         assertThat(run.out()).contains("Model: sopdt").contains("sopdt kept").contains("Recommended: ")
                 .contains("max-integral-gain-pi").contains("simc-pid");
+        // written into a staging folder, then moved: every file in place, nothing of the stage left
+        try (Stream<Path> files = Files.list(dir)) {
+            assertThat(files.map(p -> p.getFileName().toString())).contains("controller.yaml", "scenario.yaml",
+                    "candidates.csv", "design.json", "report.html").noneMatch(name -> name.startsWith(".loopwright"));
+        }
     }
 
     @Test
