@@ -20,6 +20,7 @@ import org.loopwright.pid.tuning.IntegratingModel;
 import org.loopwright.pid.tuning.ProcessModel;
 import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.design.Design;
@@ -168,7 +169,7 @@ public final class DesignCommand implements Callable<Integer> {
                     : SweepProgress.off()) {
                 result = Design.run(model, designSpec, threads, progress);
             }
-        } catch (InputFileException | IllegalArgumentException e) {
+        } catch (InputException | IllegalArgumentException e) {
             err.println(e instanceof InvalidSettingException s ? TuneCommand.inOptionTerms(s) : e.getMessage());
             err.flush();
             return LoopwrightCommand.BAD_INPUT;
@@ -232,7 +233,8 @@ public final class DesignCommand implements Callable<Integer> {
         if (plantFile != null) {
             return DesignModel.given(fromPlant(plantFile), "plant-file");
         }
-        return DesignModel.given(fromOptions(), "options");
+        return DesignModel.given(TuneCommand.modelFromOptions(processGain, timeConstant, secondTimeConstant, integrating,
+                deadTime), "options");
     }
 
     private DesignModel fromStepTest() {
@@ -264,30 +266,6 @@ public final class DesignCommand implements Callable<Integer> {
         return new DesignModel(first.processModel(), "step-test", java.util.Optional.of(test),
                 java.util.Optional.of(first), "fopdt kept: sopdt's " + figures + ", less than the "
                         + Math.round(100 * SOPDT_RMSE_GAIN) + " % that would justify a parameter more");
-    }
-
-    private ProcessModel fromOptions() {
-        try {
-            if (processGain == null || deadTime == null) {
-                throw new IllegalArgumentException("a model needs --process-gain and --dead-time"
-                        + (integrating ? "" : ", and --time-constant"));
-            }
-            if (integrating) {
-                if (secondTimeConstant != null) {
-                    throw new IllegalArgumentException("--integrating takes one lag (--time-constant), not"
-                            + " --second-time-constant: --second-time-constant=" + secondTimeConstant);
-                }
-                return new IntegratingModel(processGain, timeConstant == null ? 0.0 : timeConstant, deadTime);
-            }
-            if (timeConstant == null) {
-                throw new IllegalArgumentException("a self-regulating model needs --time-constant (or give"
-                        + " --integrating)");
-            }
-            return secondTimeConstant == null ? new FopdtModel(processGain, timeConstant, deadTime)
-                    : new SopdtModel(processGain, timeConstant, secondTimeConstant, deadTime);
-        } catch (InvalidSettingException e) {
-            throw new IllegalArgumentException(TuneCommand.inOptionTerms(e), e);
-        }
     }
 
     /** The plant file's model as a process model the rules take, or why it is none. */

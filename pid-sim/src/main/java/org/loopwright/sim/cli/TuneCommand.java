@@ -160,7 +160,8 @@ public final class TuneCommand implements Callable<Integer> {
             ProcessModel model;
             UltimatePoint point;
             try {
-                model = modelFile != null ? ModelFile.read(modelFile) : fromOptions ? modelFromOptions() : null;
+                model = modelFile != null ? ModelFile.read(modelFile) : fromOptions
+                        ? modelFromOptions(processGain, timeConstant, secondTimeConstant, integrating, deadTime) : null;
                 point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
             } catch (InvalidSettingException e) {
                 throw new BadInput(inOptionTerms(e));
@@ -232,8 +233,23 @@ public final class TuneCommand implements Callable<Integer> {
         }
     }
 
-    /** The model the options describe: integrating, second or first order plus dead time. */
-    private ProcessModel modelFromOptions() {
+    /**
+     * The model the options describe: integrating, second or first order plus dead time. One reading of
+     * the model options for {@code tune} and {@code design}.
+     *
+     * @throws InputException naming the missing or conflicting option, or the bad value in option terms
+     */
+    static ProcessModel modelFromOptions(Double processGain, Double timeConstant, Double secondTimeConstant,
+            boolean integrating, Double deadTime) {
+        try {
+            return modelOrInvalid(processGain, timeConstant, secondTimeConstant, integrating, deadTime);
+        } catch (InvalidSettingException e) {
+            throw new BadInput(inOptionTerms(e));
+        }
+    }
+
+    private static ProcessModel modelOrInvalid(Double processGain, Double timeConstant, Double secondTimeConstant,
+            boolean integrating, Double deadTime) {
         if (processGain == null || deadTime == null) {
             throw new BadInput("a model needs --process-gain and --dead-time"
                     + (integrating ? "" : ", and --time-constant"));
