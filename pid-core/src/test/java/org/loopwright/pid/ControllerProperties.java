@@ -25,10 +25,6 @@ class ControllerProperties {
 
     private static final int STEPS = 40;
 
-    private static Arbitrary<Double> between(double min, double max) {
-        return Arbitraries.doubles().between(min, max);
-    }
-
     /** Ideal gains and linear settings that use them in the ideal form. */
     @Provide
     Arbitrary<ControllerSettings> idealLinear() {
@@ -47,7 +43,7 @@ class ControllerProperties {
 
     /** STEPS pairs of ordinary inputs, each within ±scale. */
     private static Arbitrary<List<double[]>> inputs(int width, double scale) {
-        return between(-scale, scale).array(double[].class).ofSize(width).list().ofSize(STEPS);
+        return Draws.between(-scale, scale).array(double[].class).ofSize(width).list().ofSize(STEPS);
     }
 
     @Provide
@@ -62,7 +58,7 @@ class ControllerProperties {
 
     @Provide
     Arbitrary<Double> weights() {
-        return between(-2.0, 2.0);
+        return Draws.between(-2.0, 2.0);
     }
 
     @Property(tries = 1000)
@@ -110,10 +106,10 @@ class ControllerProperties {
     static Arbitrary<Double> anyFinite() {
         return Arbitraries.frequencyOf(
                 Tuple.of(1, Arbitraries.of(Double.MAX_VALUE, -Double.MAX_VALUE)),
-                Tuple.of(1, Combinators.combine(between(-300.0, 300.0), Arbitraries.of(1.0, -1.0))
+                Tuple.of(1, Combinators.combine(Draws.between(-300.0, 300.0), Arbitraries.of(1.0, -1.0))
                         .as((exponent, sign) -> sign * Math.pow(10.0, exponent))),
                 Tuple.of(1, Arbitraries.just(0.0)),
-                Tuple.of(3, between(-300.0, 300.0)));
+                Tuple.of(3, Draws.between(-300.0, 300.0)));
     }
 
     /** STEPS samples of any finite setpoint and measurement with a period of 1 ns to 1,000 s. */
@@ -142,7 +138,7 @@ class ControllerProperties {
     /** STEPS setpoints: null (the last one stays) or, one time in four, a step to a new value within ±150. */
     @Provide
     Arbitrary<List<Double>> setpointSteps() {
-        return between(-150.0, 150.0).injectNull(0.75).list().ofSize(STEPS);
+        return Draws.between(-150.0, 150.0).injectNull(0.75).list().ofSize(STEPS);
     }
 
     @Property(tries = 1000)

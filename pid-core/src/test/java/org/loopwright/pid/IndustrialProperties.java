@@ -14,6 +14,7 @@ import net.jqwik.api.Provide;
 import net.jqwik.api.Tuple;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.discrete.IntegralMethod;
+import org.loopwright.pid.testing.Draws;
 
 /**
  * The properties of issue 3 over random operation: a random industrial configuration runs through
@@ -63,8 +64,8 @@ class IndustrialProperties {
         Arbitrary<Act> acts = Arbitraries.frequency(Tuple.of(55, Act.GOOD_SAMPLE), Tuple.of(12, Act.FAULTY_SAMPLE),
                 Tuple.of(10, Act.SWITCH_MODE), Tuple.of(5, Act.OPERATOR_VALUE), Tuple.of(3, Act.TRACK_VALUE),
                 Tuple.of(8, Act.RETUNE), Tuple.of(7, Act.SWITCH_FEEDFORWARD));
-        Arbitrary<Double> offset = Arbitraries.doubles().between(-3.0, 3.0);
-        Arbitrary<Double> unit = Arbitraries.doubles().between(0.0, 1.0);
+        Arbitrary<Double> offset = Draws.between(-3.0, 3.0);
+        Arbitrary<Double> unit = Draws.between(0.0, 1.0);
         Arbitrary<List<Step>> steps = Combinators.combine(acts, offset, offset, unit, unit,
                 Arbitraries.integers().between(0, 11), Arbitraries.of(true, false)).as(Step::new).list().ofSize(STEPS);
         return SettingsArbitraries.industrial().flatMap(first -> Combinators.combine(retuned(first), retuned(first),
@@ -74,8 +75,8 @@ class IndustrialProperties {
 
     /** A retune of the same plant interface: new gains (any form), weights, filter and methods. */
     private static Arbitrary<ControllerSettings> retuned(ControllerSettings from) {
-        Arbitrary<Double> unit = Arbitraries.doubles().between(0.0, 1.0);
-        return Combinators.combine(SettingsArbitraries.gains(), unit, unit, Arbitraries.doubles().between(2.0, 20.0),
+        Arbitrary<Double> unit = Draws.between(0.0, 1.0);
+        return Combinators.combine(SettingsArbitraries.gains(), unit, unit, Draws.between(2.0, 20.0),
                 Arbitraries.of(IntegralMethod.values()), Arbitraries.of(WindupProtection.values()))
                 .as((gains, b, c, ratio, integralMethod, windup) -> from.toBuilder().gains(gains)
                         .setpointWeights(from.wrapSpan() > 0.0 ? 1.0 : b, c).derivativeFilterRatio(ratio)

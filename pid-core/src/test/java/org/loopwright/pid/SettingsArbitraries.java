@@ -12,6 +12,7 @@ import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.discrete.IntegralMethod;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.form.PidGains;
+import org.loopwright.pid.testing.Draws;
 
 /**
  * Valid controller settings drawn through jqwik arbitraries, so that a failing property shrinks to
@@ -31,7 +32,7 @@ final class SettingsArbitraries {
                 Tuple.of(1, Arbitraries.just(Double.POSITIVE_INFINITY)));
         Arbitrary<Double> derivativeShare = Arbitraries.frequencyOf(
                 Tuple.of(1, Arbitraries.just(0.0)),
-                Tuple.of(2, Arbitraries.doubles().between(0.0, 0.25)));
+                Tuple.of(2, Draws.between(0.0, 0.25)));
         return Combinators.combine(gain, integralTime, derivativeShare)
                 .as((k, ti, share) -> new IdealGains(k, ti, share * Math.min(ti, 100.0)));
     }
@@ -48,7 +49,7 @@ final class SettingsArbitraries {
 
     /** An ordinary range: lower end within −100..0, width 0.1..200. */
     private static Arbitrary<double[]> ordinaryRanges() {
-        return Combinators.combine(Arbitraries.doubles().between(-100.0, 0.0), logUniform(0.1, 200.0))
+        return Combinators.combine(Draws.between(-100.0, 0.0), logUniform(0.1, 200.0))
                 .as((lo, width) -> new double[] {lo, lo + width});
     }
 
@@ -66,8 +67,8 @@ final class SettingsArbitraries {
         return Builders.withBuilder(ControllerSettings::builder)
                 .use(gains).in(ControllerSettings.Builder::gains)
                 .use(logUniform(1e-3, 1.0)).in(ControllerSettings.Builder::samplePeriodSeconds)
-                .use(Arbitraries.doubles().between(2.0, 20.0)).in(ControllerSettings.Builder::derivativeFilterRatio)
-                .use(Combinators.combine(Arbitraries.doubles().between(0.0, 1.0), Arbitraries.doubles().between(0.0, 1.0))
+                .use(Draws.between(2.0, 20.0)).in(ControllerSettings.Builder::derivativeFilterRatio)
+                .use(Combinators.combine(Draws.between(0.0, 1.0), Draws.between(0.0, 1.0))
                         .as((b, c) -> new double[] {b, c})).in((b, w) -> b.setpointWeights(w[0], w[1]))
                 .use(Arbitraries.of(IntegralMethod.values())).in(ControllerSettings.Builder::integralMethod)
                 .use(Arbitraries.of(Action.values())).in(ControllerSettings.Builder::action);
@@ -100,16 +101,16 @@ final class SettingsArbitraries {
                 .use(Arbitraries.of(OutputKind.values())).in(ControllerSettings.Builder::outputKind)
                 .use(logUniform(0.1, 1000.0)).withProbability(0.5).in(ControllerSettings.Builder::outputSlewPerSecond)
                 .use(logUniform(0.1, 100.0)).withProbability(0.25).in(ControllerSettings.Builder::setpointSlewPerSecond)
-                .use(Arbitraries.doubles().between(0.0, 0.5)).withProbability(0.25)
+                .use(Draws.between(0.0, 0.5)).withProbability(0.25)
                 .in(ControllerSettings.Builder::errorDeadband)
                 .use(logUniform(0.01, 100.0)).withProbability(0.5).in(ControllerSettings.Builder::trackingTimeSeconds)
                 // a circular process variable takes b = 1 (b·r has no meaning on a circle)
-                .use(Arbitraries.doubles().between(0.0, 1.0)).withProbability(1.0 / 6.0)
+                .use(Draws.between(0.0, 1.0)).withProbability(1.0 / 6.0)
                 .in((b, c) -> b.wrapSpan(360.0).setpointWeights(1.0, c))
                 .build();
         return built.flatMap(b -> {
             ControllerSettings s = b.build();
-            return Combinators.combine(Arbitraries.of(FaultPolicy.values()), Arbitraries.doubles().between(0.0, 1.0))
+            return Combinators.combine(Arbitraries.of(FaultPolicy.values()), Draws.between(0.0, 1.0))
                     .as((policy, at) -> s.toBuilder().faultPolicy(policy, safeOutput(s, at)).build())
                     .flatMap(SettingsArbitraries::withDerivativeMethod);
         });

@@ -15,6 +15,7 @@ import net.jqwik.api.Tuple;
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.form.PidGains;
+import org.loopwright.pid.testing.Draws;
 
 /**
  * The integral stays bounded while the output is limited, under every windup protection, with
@@ -47,7 +48,7 @@ class WindupProperties {
     private static Arbitrary<ControllerSettings> saturating(WindupProtection scheme) {
         Arbitrary<PidGains> gains = Combinators.combine(logUniform(0.1, 10.0), logUniform(0.05, 50.0),
                 Arbitraries.frequencyOf(Tuple.of(1, Arbitraries.just(0.0)),
-                        Tuple.of(1, Arbitraries.doubles().between(0.0, 0.25))))
+                        Tuple.of(1, Draws.between(0.0, 0.25))))
                 .as((k, ti, share) -> new IdealGains(k, ti, share * ti))
                 .flatMap(SettingsArbitraries::inAnyForm);
         return Combinators.combine(SettingsArbitraries.linear(gains),
@@ -73,12 +74,12 @@ class WindupProperties {
     Arbitrary<List<Sample>> samples() {
         Arbitrary<Mode> switches = Arbitraries.frequencyOf(Tuple.of(23, Arbitraries.just((Mode) null)),
                 Tuple.of(1, Arbitraries.just(Mode.MANUAL)), Tuple.of(1, Arbitraries.just(Mode.AUTOMATIC)));
-        Arbitrary<Double> measurements = Arbitraries.frequencyOf(Tuple.of(14, Arbitraries.doubles().between(-3.0, 3.0)),
+        Arbitrary<Double> measurements = Arbitraries.frequencyOf(Tuple.of(14, Draws.between(-3.0, 3.0)),
                 Tuple.of(1, Arbitraries.just(Double.NaN)));
         Arbitrary<Double> periodFactors = Arbitraries.frequencyOf(Tuple.of(1, Arbitraries.just(1.0)),
-                Tuple.of(1, Arbitraries.doubles().between(0.2, 5.2)));
+                Tuple.of(1, Draws.between(0.2, 5.2)));
         return Combinators.combine(Arbitraries.integers().between(1, 20).map(n -> n == 1), switches, measurements,
-                periodFactors, Arbitraries.doubles().between(-0.2, 0.2)).as(Sample::new).list().ofSize(STEPS);
+                periodFactors, Draws.between(-0.2, 0.2)).as(Sample::new).list().ofSize(STEPS);
     }
 
     @Provide
