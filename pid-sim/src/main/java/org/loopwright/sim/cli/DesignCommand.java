@@ -34,6 +34,7 @@ import org.loopwright.sim.identify.StepTest;
 import org.loopwright.sim.identify.StepTestFile;
 import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.report.ReportRecord;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.sweep.Spread;
@@ -179,7 +180,7 @@ public final class DesignCommand implements Callable<Integer> {
             stage.commit();
         }
         if (json) {
-            out.println(Json.pretty(DesignFiles.json(result, files)));
+            out.println(JsonOutput.text(DesignFiles.json(result, files)));
         } else {
             DesignFiles.printText(out, result, files, outDirectory);
         }
