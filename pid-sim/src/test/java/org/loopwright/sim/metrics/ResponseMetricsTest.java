@@ -4,6 +4,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.sim.plant.TransferFunction;
@@ -44,6 +46,44 @@ class ResponseMetricsTest {
     }
 
     /**
+     * A slow lag is not settled just because it moves little near the window's end. PI with Ti = T on
+     * K/(Ts + 1) gives the first-order closed loop 1/(τs + 1), τ = T/(Kc·K) (the analytic anchor of the
+     * design notes); here τ = 10/(0.1·1) = 100 s watched for 60 s: y(60) = 1 − e^(−0.6) = 0.451, still
+     * 0.55 from its final value. It moves only 0.017 over the last 3 s, inside the ±0.02 band, which the
+     * old rule (band around the last value over the last 5 %) called settled with settling time 55 s.
+     * Its slope there, e^(−0.57)/100 ≈ 0.0055 /s, continued for 60 s is 0.33, far beyond the band.
+     */
+    @Test
+    void slowLagWatchedForLessThanItsTimeConstantIsNotSettled() {
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0), pi(0.1, 10.0, 0.1), 1.0, 60.0);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(ResponseState.NOT_SETTLED);
+        assertThat(m.settlingTimeSeconds()).isNaN();
+        assertThat(m.steadyStateError()).isNaN();
+        assertThat(m.overshootPercent()).isNaN();
+    }
+
+    /**
+     * Where the rule puts the line for the same analytic first-order loop, τ = 5 s: watched for 4τ the
+     * output is 1.8 % from its final value (e^(−4)) and still heading there at e^(−3.8)/τ, which over 4τ
+     * is 9 % of the step: not settled. Watched for 7τ its slope over the last 10 %, about e^(−6.65)/τ,
+     * continued for 7τ is 0.9 % of the step: settled, when 1 − e^(−t/τ) comes within 0.02 of the window's
+     * last value 1 − e^(−7), at t = τ·ln(1/(0.02 + e^(−7))) (analytic, as above).
+     */
+    @ParameterizedTest
+    @CsvSource({"20, false", "35, true"})
+    void firstOrderLoopCountsAsSettledOnceItHasBeenSeenToStay(double windowSeconds, boolean settled) {
+        double tau = 5.0;
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0), pi(2.0, 10.0, 0.002), 1.0,
+                windowSeconds);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(settled ? ResponseState.SETTLED : ResponseState.NOT_SETTLED);
+        if (settled) {
+            assertThat(m.settlingTimeSeconds()).isCloseTo(tau * Math.log(1.0 / (0.02 + Math.exp(-7.0))), within(0.01));
+        }
+    }
+
+    /**
      * Analytic (Åström &amp; Murray 2021, §5.3 / the standard second-order step response): a loop
      * that is ωn²/(s² + 2ζωn·s + ωn²) overshoots by 100·e^(−πζ/√(1−ζ²)) % at t = π/(ωn√(1−ζ²)).
      * P control Kc = 1 of ωn²/(s(s + 2ζωn)) gives exactly that closed loop.
@@ -56,6 +96,7 @@ class ResponseMetricsTest {
         Scenario s = Scenario.setpointStep(openLoop, pi(1.0, Double.POSITIVE_INFINITY, 0.001), 1.0, 40.0);
         ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
         double damped = wn * Math.sqrt(1 - zeta * zeta);
+        assertThat(m.state()).as("ringing decayed to e^(-0.4*36) long before the end").isEqualTo(ResponseState.SETTLED);
         assertThat(m.overshootPercent()).isCloseTo(100 * Math.exp(-Math.PI * zeta / Math.sqrt(1 - zeta * zeta)),
                 within(0.2));
         assertThat(m.peakTimeSeconds()).isCloseTo(Math.PI / damped, within(0.01));
