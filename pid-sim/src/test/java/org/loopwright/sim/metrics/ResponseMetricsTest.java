@@ -51,7 +51,8 @@ class ResponseMetricsTest {
      * design notes); here τ = 10/(0.1·1) = 100 s watched for 60 s: y(60) = 1 − e^(−0.6) = 0.451, still
      * 0.55 from its final value. It moves only 0.017 over the last 3 s, inside the ±0.02 band, which the
      * old rule (band around the last value over the last 5 %) called settled with settling time 55 s.
-     * Its slope there, e^(−0.57)/100 ≈ 0.0055 /s, continued for 60 s is 0.33, far beyond the band.
+     * It is far outside the setpoint's band, and its slope over the last 6 s, about e^(−0.57)/100 ≈
+     * 0.0057 /s, continued for 60 s is 0.34, far beyond the band around its last value.
      */
     @Test
     void slowLagWatchedForLessThanItsTimeConstantIsNotSettled() {
@@ -64,22 +65,47 @@ class ResponseMetricsTest {
     }
 
     /**
-     * Where the rule puts the line for the same analytic first-order loop, τ = 5 s: watched for 4τ the
-     * output is 1.8 % from its final value (e^(−4)) and still heading there at e^(−3.8)/τ, which over 4τ
-     * is 9 % of the step: not settled. Watched for 7τ its slope over the last 10 %, about e^(−6.65)/τ,
-     * continued for 7τ is 0.9 % of the step: settled, when 1 − e^(−t/τ) comes within 0.02 of the window's
-     * last value 1 − e^(−7), at t = τ·ln(1/(0.02 + e^(−7))) (analytic, as above).
+     * Where the rule puts the line for a first-order loop that stops short of the setpoint: P control
+     * Kc = 1 of 1/(10s + 1) gives (Kc/(1 + Kc))·(1 − e^(−t/τ)) with τ = 10/(1 + Kc) = 5 s (analytic; the
+     * steady state of P control on a first-order plant). The final value 0.5 is outside the setpoint's
+     * band, so the output must be at rest. Watched for 4τ it still climbs at 0.5·e^(−3.8)/τ, which over
+     * 4τ is 4.5 % of the step: not settled. Watched for 7τ that figure is 0.45 %: settled, when the
+     * output comes within 0.02 of the window's last value 0.5·(1 − e^(−7)), at t = τ·ln(1/(0.04 + e^(−7))).
      */
     @ParameterizedTest
     @CsvSource({"20, false", "35, true"})
-    void firstOrderLoopCountsAsSettledOnceItHasBeenSeenToStay(double windowSeconds, boolean settled) {
+    void loopStoppingShortIsSettledOnceItHasBeenSeenToRest(double windowSeconds, boolean settled) {
+        double tau = 5.0;
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0),
+                pi(1.0, Double.POSITIVE_INFINITY, 0.002), 1.0, windowSeconds);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(settled ? ResponseState.SETTLED : ResponseState.NOT_SETTLED);
+        if (settled) {
+            assertThat(m.settlingTimeSeconds()).isCloseTo(tau * Math.log(1.0 / (0.04 + Math.exp(-7.0))), within(0.01));
+            assertThat(m.steadyStateError()).isCloseTo(0.5 + 0.5 * Math.exp(-7.0), within(1e-4));
+        } else {
+            assertThat(m.settlingTimeSeconds()).isNaN();
+        }
+    }
+
+    /**
+     * The same first-order closed loop with integral action (PI with Ti = T, τ = 5 s, as in the first
+     * test) heads for the setpoint: watched for 3.5τ it is e^(−3.15) = 4.3 % away at the start of the
+     * final stretch, outside the setpoint's band, and its slope continued for 3.5τ is about 12 % of the step:
+     * not settled. Watched for 4.4τ it is inside the setpoint's band over the whole final stretch
+     * (e^(−3.96) = 1.9 %) and still closing on it: settled, at τ·ln 50 against the setpoint, though its
+     * slope continued for the window (about 7 % of the step) would fail the at-rest test.
+     */
+    @ParameterizedTest
+    @CsvSource({"17.5, false", "22, true"})
+    void loopClosingOnTheSetpointIsSettledInsideItsBand(double windowSeconds, boolean settled) {
         double tau = 5.0;
         Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0), pi(2.0, 10.0, 0.002), 1.0,
                 windowSeconds);
         ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
         assertThat(m.state()).isEqualTo(settled ? ResponseState.SETTLED : ResponseState.NOT_SETTLED);
         if (settled) {
-            assertThat(m.settlingTimeSeconds()).isCloseTo(tau * Math.log(1.0 / (0.02 + Math.exp(-7.0))), within(0.01));
+            assertThat(m.settlingTimeSeconds()).isCloseTo(tau * Math.log(50.0), within(0.01));
         }
     }
 
