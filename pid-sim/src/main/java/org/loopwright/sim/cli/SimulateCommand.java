@@ -74,19 +74,14 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         Scenario scenario;
         String title;
-        try {
-            if (scenarioFile == null) {
-                err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
-                        + " not a real bath).");
-                scenario = ScenarioFile.waterBathDemo();
-                title = "Water bath (built-in demo)";
-            } else {
-                scenario = ScenarioFile.read(scenarioFile);
-                title = String.valueOf(scenarioFile.getFileName());
-            }
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            return LoopwrightCommand.BAD_INPUT;
+        if (scenarioFile == null) {
+            err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
+                    + " not a real bath).");
+            scenario = ScenarioFile.waterBathDemo();
+            title = "Water bath (built-in demo)";
+        } else {
+            scenario = ScenarioFile.read(scenarioFile);
+            title = String.valueOf(scenarioFile.getFileName());
         }
         Trajectory trajectory = Simulation.run(scenario);
         if (trajectory.diverged()) {
