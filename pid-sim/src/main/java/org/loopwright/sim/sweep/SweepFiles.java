@@ -17,16 +17,24 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
+import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.PlantParameters;
+import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.ResponsePlot;
 
 /**
  * A sweep's files: {@value #CSV} with one row per run (Commons CSV) and {@value #PLOT_NAME}.png/.svg
- * with every run's measurement overlaid, the nominal run in black (XChart). The CSV's columns are
- * {@link #HEADER}: the run's index, its three factors, the plant simulated (coefficients in descending
- * powers of s, separated by spaces; dead time in seconds), the stability verdict
- * ({@code stable}, {@code unstable}, {@code diverged}, {@code not-assessed}), the largest closed-loop pole magnitude,
- * and the response figures (seconds, percent, process units; empty where a figure does not apply).
+ * with every run's measurement overlaid, the nominal run in black (XChart). The CSV's columns
+ * ({@link #header(PlantModel)}): the run's index, its factor per spread key ({@code gain_factor}, ...),
+ * the plant simulated, the stability verdict ({@code stable}, {@code unstable}, {@code oscillating},
+ * {@code diverged}, {@code not-assessed}) with its evidence, and the response figures (seconds,
+ * percent, process units; empty where a figure does not apply). For a linear plant ({@link #HEADER})
+ * the plant is its coefficients in descending powers of s, separated by spaces, and dead time in
+ * seconds, and the evidence the largest closed-loop pole magnitude; for a nonlinear plant the plant is
+ * the drawn value of each spread key (in the file's units) and the evidence the decay ratio of
+ * {@link SustainedOscillation}.
  */
 public final class SweepFiles {
 
@@ -34,10 +42,11 @@ public final class SweepFiles {
     public static final String CSV = "sweep-runs.csv";
     /** The plot's base name. */
     public static final String PLOT_NAME = "sweep-measurements";
-    /** The CSV's header, in column order. */
+    /** The CSV's header for a linear plant, in column order. */
     public static final List<String> HEADER = List.of("run", "gain_factor", "time_constant_factor",
             "dead_time_factor", "numerator", "denominator", "dead_time", "stability", "largest_pole_magnitude",
             "rise_time", "settling_time", "overshoot_percent", "steady_state_error", "iae", "saturated_fraction");
+    private static final List<String> FIGURES = HEADER.subList(HEADER.indexOf("rise_time"), HEADER.size());
 
     private static final Color RUN_COLOUR = new Color(31, 119, 180, 70);
     private static final Color UNSTABLE_COLOUR = new Color(214, 39, 40, 110);
@@ -63,22 +72,57 @@ public final class SweepFiles {
         return List.of(csv, directory.resolve(PLOT_NAME + ".png"), directory.resolve(PLOT_NAME + ".svg"));
     }
 
+    /**
+     * The CSV's header for a sweep around a plant: {@link #HEADER} for a linear one; for a nonlinear one the
+     * run, a factor and a drawn value per spread key, the stability and the decay ratio, and the figures.
+     */
+    public static List<String> header(PlantModel nominal) {
+        if (nominal instanceof TransferFunction) {
+            return HEADER;
+        }
+        List<String> header = new ArrayList<>();
+        header.add("run");
+        List<String> columns = nominal.type().spreadKeys().stream().map(k -> k.word().replace('-', '_')).toList();
+        columns.forEach(column -> header.add(column + "_factor"));
+        header.addAll(columns);
+        header.add("stability");
+        header.add("decay_ratio");
+        header.addAll(FIGURES);
+        return header;
+    }
+
     /** Writes one row per run. */
     public static void writeCsv(SweepResult result, Path file) throws IOException {
+        PlantModel nominal = result.scenario().plant();
         try (Writer out = Files.newBufferedWriter(file, StandardCharsets.UTF_8);
-                CSVPrinter csv = CSVFormat.DEFAULT.builder().setHeader(HEADER.toArray(String[]::new))
+                CSVPrinter csv = CSVFormat.DEFAULT.builder().setHeader(header(nominal).toArray(String[]::new))
                         .setRecordSeparator('\n').get().print(out)) {
             for (SweepRun run : result.runs()) {
+                List<Object> row = new ArrayList<>();
+                row.add(run.index());
+                for (FileKey<Double> key : nominal.type().spreadKeys()) {
+                    row.add(run.draw().factor(key.word()));
+                }
+                if (run.plant() instanceof TransferFunction plant) {
+                    row.addAll(List.of(coefficients(plant.numerator()), coefficients(plant.denominator()),
+                            plant.deadTimeSeconds(), word(run.stability()), cell(run.largestPoleMagnitude())));
+                } else {
+                    for (FileKey<Double> key : nominal.type().spreadKeys()) {
+                        row.add(PlantParameters.value(run.plant(), key));
+                    }
+                    row.addAll(List.of(word(run.stability()), cell(run.decayRatio())));
+                }
                 ResponseMetrics m = run.metrics();
-                csv.printRecord(run.index(), run.draw().gainFactor(), run.draw().timeConstantFactor(),
-                        run.draw().deadTimeFactor(), coefficients(run.plant().numerator()),
-                        coefficients(run.plant().denominator()), run.plant().deadTimeSeconds(),
-                        run.stability().name().toLowerCase(Locale.ROOT).replace('_', '-'),
-                        cell(run.largestPoleMagnitude()), cell(m.riseTimeSeconds()), cell(m.settlingTimeSeconds()),
+                row.addAll(List.of(cell(m.riseTimeSeconds()), cell(m.settlingTimeSeconds()),
                         cell(m.overshootPercent()), cell(m.steadyStateError()), cell(m.iae()),
-                        cell(m.saturatedFraction()));
+                        cell(m.saturatedFraction())));
+                csv.printRecord(row);
             }
         }
+    }
+
+    private static String word(LoopStability stability) {
+        return stability.name().toLowerCase(Locale.ROOT).replace('_', '-');
     }
 
     private static String coefficients(double[] values) {
@@ -95,7 +139,7 @@ public final class SweepFiles {
         double high = Double.NEGATIVE_INFINITY;
         boolean anyUnstable = false;
         for (SweepRun run : plotted(result)) {
-            if (run.stability() == LoopStability.UNSTABLE) {
+            if (unstable(run)) {
                 anyUnstable = true;
                 continue;
             }
@@ -109,13 +153,14 @@ public final class SweepFiles {
         boolean clip = anyUnstable && low < high;
         double margin = CLIP_MARGIN * (high - low);
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
-                + (clip ? " (unstable runs in red, clipped)" : ""), "time (s)", "measurement");
+                + (clip ? " (" + (result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating")
+                        + " runs in red, clipped)" : ""), "time (s)", "measurement");
         // the SVG grows with every point: many runs are thinned further, the nominal run is not
         int stride = Math.max(1, result.runs().size() * Sweep.PLOT_POINTS / PLOT_POINT_BUDGET);
         for (SweepRun run : result.runs()) {
             XYSeries series = add(chart, "run " + run.index(), run, stride, clip, low - margin, high + margin);
             if (series != null) {
-                series.setLineColor(run.stability() == LoopStability.UNSTABLE ? UNSTABLE_COLOUR : RUN_COLOUR);
+                series.setLineColor(unstable(run) ? UNSTABLE_COLOUR : RUN_COLOUR);
                 series.setLineStyle(new BasicStroke(1.0f));
                 series.setShowInLegend(false);
             }
@@ -127,6 +172,11 @@ public final class SweepFiles {
         }
         chart.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideSE);
         return chart;
+    }
+
+    /** Runs drawn in red and left out of the plot's range: unstable by the poles, or oscillating. */
+    private static boolean unstable(SweepRun run) {
+        return run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.OSCILLATING;
     }
 
     private static List<SweepRun> plotted(SweepResult result) {
