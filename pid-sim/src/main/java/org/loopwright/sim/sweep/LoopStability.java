@@ -25,8 +25,9 @@ public enum LoopStability {
      */
     DIVERGED,
     /**
-     * The poles were not computed (an on-off controller, or more than
-     * {@value Sweep#MAX_DELAY_PERIODS} periods of dead time) and the simulated output stayed finite.
+     * The simulated output stayed finite, but the verdict could not be made: the poles were not computed
+     * (more than {@value Sweep#MAX_DELAY_PERIODS} periods of dead time), or an on-off controller, whose
+     * loop cycles by design.
      */
     NOT_ASSESSED
 }

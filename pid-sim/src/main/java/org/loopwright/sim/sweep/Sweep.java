@@ -205,7 +205,9 @@ public final class Sweep {
         } else {
             SustainedOscillation oscillation = SustainedOscillation.of(drawn).feed(trajectory);
             decayRatio = oscillation.decayRatio();
+            // an on-off loop cycles by design: its cycling is not instability
             stability = trajectory.diverged() ? LoopStability.DIVERGED
+                    : drawn.onOffController().isPresent() ? LoopStability.NOT_ASSESSED
                     : oscillation.sustained() ? LoopStability.OSCILLATING : LoopStability.STABLE;
         }
         int stride = Math.max(1, (trajectory.length() + PLOT_POINTS - 1) / PLOT_POINTS);
