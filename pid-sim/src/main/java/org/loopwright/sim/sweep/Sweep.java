@@ -10,22 +10,23 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 
 import org.hipparchus.complex.Complex;
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
-import org.loopwright.pid.InvalidSettingException;
-import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantParameters;
 import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.Scenario;
-import org.loopwright.sim.simulate.Simulation;
+import org.loopwright.sim.simulate.ClosedLoop;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -149,7 +150,10 @@ public final class Sweep {
     }
 
     /**
-     * Runs {@code runs} simulations on {@code threads} threads.
+     * Runs {@code runs} simulations on {@code threads} threads. Each thread builds one closed loop and
+     * rewinds it onto the next run's plant ({@link ClosedLoop#rewind(PlantModel)}), taking run indices
+     * one at a time from a shared counter, so a slow run does not hold up a fixed share of the work;
+     * each result goes to its index's slot, whichever thread ran it.
      *
      * @param runs          how many plants to draw, at least 1
      * @param threads       the pool's size, at least 1
@@ -159,23 +163,26 @@ public final class Sweep {
         if (runs < 1 || threads < 1) {
             throw new IllegalArgumentException("runs and threads must be >= 1: runs=" + runs + ", threads=" + threads);
         }
-        ExecutorService pool = Executors.newFixedThreadPool(threads);
+        int workers = Math.min(threads, runs);
+        ExecutorService pool = Executors.newFixedThreadPool(workers);
         try {
-            List<Future<SweepRun>> futures = new ArrayList<>(runs);
-            for (int i = 0; i < runs; i++) {
-                int index = i;
+            SweepRun[] results = new SweepRun[runs];
+            AtomicInteger next = new AtomicInteger();
+            List<Future<?>> futures = new ArrayList<>(workers);
+            for (int w = 0; w < workers; w++) {
                 futures.add(pool.submit(() -> {
-                    SweepRun run = run(index, draw(index));
-                    onRunFinished.accept(index);
-                    return run;
+                    ClosedLoop loop = new ClosedLoop(scenario);
+                    for (int index = next.getAndIncrement(); index < runs; index = next.getAndIncrement()) {
+                        results[index] = run(loop, index, draw(index));
+                        onRunFinished.accept(index);
+                    }
                 }));
             }
-            SweepRun nominal = run(NOMINAL_INDEX, PlantDraw.NOMINAL);
-            List<SweepRun> results = new ArrayList<>(runs);
-            for (Future<SweepRun> future : futures) {
-                results.add(future.get());
+            SweepRun nominal = run(new ClosedLoop(scenario), NOMINAL_INDEX, PlantDraw.NOMINAL);
+            for (Future<?> future : futures) {
+                future.get();
             }
-            return new SweepResult(scenario, spread, seed, nominal, results);
+            return new SweepResult(scenario, spread, seed, nominal, List.of(results));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("sweep interrupted", e);
@@ -189,10 +196,12 @@ public final class Sweep {
         }
     }
 
-    private SweepRun run(int index, PlantDraw draw) {
+    /** One run on a thread's own loop, rewound onto the drawn plant. */
+    private SweepRun run(ClosedLoop loop, int index, PlantDraw draw) {
         PlantModel plant = draw.apply(nominalPlant);
         Scenario drawn = scenario.withPlant(plant);
-        Trajectory trajectory = Simulation.run(drawn);
+        loop.rewind(plant);
+        Trajectory trajectory = loop.run();
         ResponseMetrics metrics = ResponseMetrics.of(drawn, trajectory);
         double poleMagnitude = Double.NaN;
         double decayRatio = Double.NaN;
