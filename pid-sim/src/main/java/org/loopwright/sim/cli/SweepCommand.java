@@ -57,13 +57,14 @@ import picocli.CommandLine.Spec;
  * option or spread (a key the plant type does not take is named with the keys it takes).
  */
 @Command(name = "sweep", mixinStandardHelpOptions = true, modelTransformer = SweepCommand.KeysAndRulesFooter.class,
-        description = {"Simulate the scenario on many plants drawn around its own and report the spread of the response.",
-            "Each parameter spread is scaled by a factor uniform within the spread: a linear plant's gain, time",
-            "constants and dead time, a nonlinear plant's parameters by their file keys. Stability: a linear plant's",
-            "closed-loop poles; a nonlinear plant's simulation alone (divergence, or an oscillation still at least",
-            "0.9 of its swing a cycle later in the final half of the run). The report gives overshoot, settling time,",
-            "IAE, time saturated (min, median, p90, max), unstable and unsettled shares, the worst run.",
-            "Writes sweep-runs.csv, sweep-measurements.png/.svg and report.html."})
+        description = {"Simulate the scenario on many plants drawn around its own and report the spread",
+            "of the response. Each parameter spread is scaled by a factor uniform within the",
+            "spread: a linear plant's gain, time constants and dead time, a nonlinear plant's",
+            "parameters by their file keys. Stability: a linear plant's closed-loop poles; a",
+            "nonlinear plant's simulation alone (divergence, or a sustained oscillation; see",
+            "below). The report gives overshoot, settling time, IAE, time saturated (min,",
+            "median, p90, max), unstable and unsettled shares, the worst run. Writes",
+            "sweep-runs.csv, sweep-measurements.png/.svg and report.html."})
 public final class SweepCommand implements Callable<Integer> {
 
     /** The most runs one sweep may ask for (each keeps its figures and a thinned measurement). */
@@ -78,15 +79,17 @@ public final class SweepCommand implements Callable<Integer> {
 
     /** Help's footer: the spread keys of every plant type and how stability is judged, from their one source. */
     static final class KeysAndRulesFooter implements CommandLine.IModelTransformer {
-        private static final int WIDTH = 100;
+        /** Picocli's usage width less a margin, so it does not wrap these lines again. */
+        private static final int WIDTH = 78;
 
         @Override
         public CommandSpec transform(CommandSpec command) {
             List<String> lines = new ArrayList<>();
-            lines.add("Spread keys by plant type:");
+            lines.addAll(wrap("Spread keys by plant type (a nonlinear plant has no default: name what is uncertain):"));
             Map<String, List<String>> typesByKeys = new LinkedHashMap<>();
             for (PlantType type : PlantType.values()) {
-                String keys = type.spreadKeys().stream().map(FileKey::word).collect(Collectors.joining(", "));
+                String keys = type.spreadKeys().stream().map(FileKey::word).collect(Collectors.joining(", "))
+                        + (type.linear() ? " (default " + LINEAR_DEFAULT_SPREAD + ")" : "");
                 typesByKeys.computeIfAbsent(keys, k -> new ArrayList<>()).add(type.word());
             }
             typesByKeys.forEach((keys, types) -> lines.addAll(wrap("  " + String.join(", ", types) + ": " + keys)));
@@ -120,8 +123,7 @@ public final class SweepCommand implements Callable<Integer> {
 
     @Option(names = "--spread", paramLabel = "KEY=P%[,KEY=P%...]",
             description = {"How far each parameter strays, each 0%% to below 100%%; the factor is uniform on [1-P, 1+P];",
-                "keys left out do not vary; the keys of each plant type are listed below. Default for a linear",
-                "plant: " + LINEAR_DEFAULT_SPREAD + "; none for a nonlinear one (name what is uncertain)."})
+                "keys left out do not vary; each plant type's keys and default are listed below."})
     private String spreadText;
 
     @Option(names = "--seed", paramLabel = "S", defaultValue = "1",
@@ -224,7 +226,7 @@ public final class SweepCommand implements Callable<Integer> {
         double notSettled = result.notSettledShare();
         long oscillating = count(result, LoopStability.OSCILLATING);
         List<String> spreads = result.spread().nonZero();
-        return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; %s.%nstability judged by %s.%n"
+        return String.format(Locale.ROOT, "%d runs, seed %d, %d threads; %s.%nStability judged by %s.%n"
                 + "unstable: %s (%d of %d, %d diverged and were stopped, kept out of the distributions%s)%s;"
                 + " never settled (2 %% band): %s of the runs whose response moved.",
                 n, result.seed(), threadCount, spreads.isEmpty() ? "no spread: every run on the nominal plant"

@@ -167,7 +167,7 @@ class SweepCommandTest {
                 "--seed", "2", "--threads", "2", "--out", out.toString(), "--no-progress");
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out()).contains("outlet-coefficient ±20%, area ±10% of the nominal")
-                .contains("stability judged by simulation (nonlinear plant, no poles)")
+                .contains("Stability judged by simulation (nonlinear plant, no poles)")
                 .contains("nominal plant: stable; area x1.000 = 0.5000, outlet-coefficient x1.000 = 0.01000; decay ratio n/a");
         List<CSVRecord> rows;
         try (var reader = Files.newBufferedReader(out.resolve(SweepFiles.CSV))) {
