@@ -323,7 +323,8 @@ public final class SweepCommand implements Callable<Integer> {
                 }
             }
             plant = (parameters.isEmpty() ? "the nominal " + run.plant().type().word() : String.join(", ", parameters))
-                    + "; decay ratio " + number(run.decayRatio());
+                    + (run.plant().linear().isPresent() ? "; largest pole magnitude " + number(run.largestPoleMagnitude())
+                            : "; decay ratio " + number(run.decayRatio()));
         }
         return String.format(Locale.ROOT, "%s%s: %s; %s; overshoot %s %%, settling time %s s, IAE %s", name,
                 run.index() == Sweep.NOMINAL_INDEX ? "" : " #" + run.index(), word(run.stability()), plant,
@@ -388,7 +389,11 @@ public final class SweepCommand implements Callable<Integer> {
             for (FileKey<Double> key : run.plant().type().spreadKeys()) {
                 Json.number(node, jsonName(key), PlantParameters.value(run.plant(), key));
             }
-            Json.number(node, "decay_ratio", run.decayRatio());
+            if (run.plant().linear().isPresent()) {
+                Json.number(node, "largest_pole_magnitude", run.largestPoleMagnitude());
+            } else {
+                Json.number(node, "decay_ratio", run.decayRatio());
+            }
         }
         Json.number(node, "overshoot_percent", run.metrics().overshootPercent());
         Json.number(node, "settling_time", run.metrics().settlingTimeSeconds());

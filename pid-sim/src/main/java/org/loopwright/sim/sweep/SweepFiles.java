@@ -73,8 +73,9 @@ public final class SweepFiles {
     }
 
     /**
-     * The CSV's header for a sweep around a plant: {@link #HEADER} for a linear one; for a nonlinear one the
-     * run, a factor and a drawn value per spread key, the stability and the decay ratio, and the figures.
+     * The CSV's header for a sweep around a plant: {@link #HEADER} for a transfer function; for another model the
+     * run, a factor and a drawn value per spread key, the stability and its evidence (the largest pole magnitude
+     * when the model is linear, a motor without friction or load; the decay ratio otherwise), and the figures.
      */
     public static List<String> header(PlantModel nominal) {
         if (nominal instanceof TransferFunction) {
@@ -86,7 +87,7 @@ public final class SweepFiles {
         columns.forEach(column -> header.add(column + "_factor"));
         header.addAll(columns);
         header.add("stability");
-        header.add("decay_ratio");
+        header.add(nominal.linear().isPresent() ? "largest_pole_magnitude" : "decay_ratio");
         header.addAll(FIGURES);
         return header;
     }
@@ -110,7 +111,8 @@ public final class SweepFiles {
                     for (FileKey<Double> key : nominal.type().spreadKeys()) {
                         row.add(PlantParameters.value(run.plant(), key));
                     }
-                    row.addAll(List.of(word(run.stability()), cell(run.decayRatio())));
+                    row.addAll(List.of(word(run.stability()), cell(nominal.linear().isPresent()
+                            ? run.largestPoleMagnitude() : run.decayRatio())));
                 }
                 ResponseMetrics m = run.metrics();
                 row.addAll(List.of(cell(m.riseTimeSeconds()), cell(m.settlingTimeSeconds()),
