@@ -15,6 +15,7 @@ import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
 import org.loopwright.sim.config.FileKey;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.plant.PlantParameters;
 import org.loopwright.sim.plant.PlantType;
@@ -159,7 +160,7 @@ public final class SweepCommand implements Callable<Integer> {
             scenario = ScenarioFile.read(scenarioFile);
             PlantType type = scenario.plant().type();
             if (given == null && !type.linear()) {
-                throw new IllegalArgumentException("--spread is needed for plant type " + type.word()
+                throw new InputException("--spread is needed for plant type " + type.word()
                         + " (no default: name the parameters that are uncertain), keys "
                         + type.spreadKeys().stream().map(FileKey::word).collect(Collectors.joining(", ")));
             }

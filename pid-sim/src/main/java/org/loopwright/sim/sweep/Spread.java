@@ -9,6 +9,7 @@ import java.util.Map;
 import java.util.stream.Collectors;
 
 import org.loopwright.sim.config.FileKey;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.plant.PlantType;
 
 /**
@@ -37,7 +38,7 @@ public record Spread(Map<String, Double> fractions) {
 
     private static void check(String key, double fraction) {
         if (!(fraction >= 0.0 && fraction < 1.0)) {
-            throw new IllegalArgumentException("--spread " + key + " must be from 0% to below 100%: " + key + "="
+            throw new InputException("--spread " + key + " must be from 0% to below 100%: " + key + "="
                     + percent(fraction));
         }
     }
@@ -46,7 +47,7 @@ public record Spread(Map<String, Double> fractions) {
      * Reads the text form {@code key=P%[,key=P%...]}; which keys a plant takes is checked by
      * {@link #requireKeysOf}.
      *
-     * @throws IllegalArgumentException naming the entry, the value and what is allowed
+     * @throws InputException naming the entry, the value and what is allowed
      */
     public static Spread parse(String text) {
         Map<String, Double> fractions = new LinkedHashMap<>();
@@ -54,12 +55,12 @@ public record Spread(Map<String, Double> fractions) {
             String trimmed = entry.strip();
             int equals = trimmed.indexOf('=');
             if (equals <= 0) {
-                throw new IllegalArgumentException("--spread entries must be key=P% with a plant parameter's key:"
+                throw new InputException("--spread entries must be key=P% with a plant parameter's key:"
                         + " --spread=" + text);
             }
             String key = trimmed.substring(0, equals).strip();
             if (fractions.put(key, fraction(key, trimmed.substring(equals + 1).strip())) != null) {
-                throw new IllegalArgumentException("--spread must name " + key + " once: --spread=" + text);
+                throw new InputException("--spread must name " + key + " once: --spread=" + text);
             }
         }
         return new Spread(fractions);
@@ -74,7 +75,7 @@ public record Spread(Map<String, Double> fractions) {
             percent = Double.NaN;
         }
         if (!(percent >= 0.0 && percent < 100.0)) {
-            throw new IllegalArgumentException("--spread " + key + " must be a percentage from 0% to below 100%: "
+            throw new InputException("--spread " + key + " must be a percentage from 0% to below 100%: "
                     + key + "=" + value);
         }
         return percent / 100.0;
@@ -83,13 +84,13 @@ public record Spread(Map<String, Double> fractions) {
     /**
      * Checks that every key named is one of the plant type's spread keys.
      *
-     * @throws IllegalArgumentException naming the key, the plant type and the keys it takes
+     * @throws InputException naming the key, the plant type and the keys it takes
      */
     public void requireKeysOf(PlantType type) {
         List<String> allowed = type.spreadKeys().stream().map(FileKey::word).toList();
         for (String key : fractions.keySet()) {
             if (!allowed.contains(key)) {
-                throw new IllegalArgumentException("--spread key " + key + " is not a parameter of plant type "
+                throw new InputException("--spread key " + key + " is not a parameter of plant type "
                         + type.word() + ": use " + String.join(", ", allowed.subList(0, allowed.size() - 1)) + " or "
                         + allowed.get(allowed.size() - 1));
             }

@@ -16,6 +16,7 @@ import java.util.function.IntConsumer;
 import org.hipparchus.complex.Complex;
 import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.sim.config.FileKey;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
@@ -70,7 +71,7 @@ public final class Sweep {
      * @param scenario the nominal scenario
      * @param spread   how far the plant parameters stray, by the plant type's spread keys
      * @param seed     the seed of the plant draws
-     * @throws IllegalArgumentException for a key the plant type does not take, a spread of a parameter whose
+     * @throws InputException for a key the plant type does not take, a spread of a parameter whose
      *                                  nominal value is 0 or infinite (a factor cannot move it), or a spread
      *                                  whose extremes give a plant the model refuses
      */
@@ -97,7 +98,7 @@ public final class Sweep {
             double value = PlantParameters.value(nominal, key);
             if (spread.fraction(key.word()) > 0.0) {
                 if (value == 0.0 || Double.isInfinite(value)) {
-                    throw new IllegalArgumentException("--spread " + key.word() + " cannot vary on plant type "
+                    throw new InputException("--spread " + key.word() + " cannot vary on plant type "
                             + nominal.type().word() + ": its nominal value is " + value
                             + " and a spread multiplies it; give the scenario a finite non-zero " + key.word());
                 }
@@ -116,7 +117,7 @@ public final class Sweep {
                 StringBuilder drawn = new StringBuilder();
                 factors.forEach((key, factor) -> drawn.append(drawn.length() == 0 ? "" : ", ").append(key.word())
                         .append(" x").append(factor));
-                throw new IllegalArgumentException("--spread " + spread.text() + " can draw a " + nominal.type().word()
+                throw new InputException("--spread " + spread.text() + " can draw a " + nominal.type().word()
                         + " the model refuses: " + fileTerms(nominal.type(), refused.field()) + " "
                         + fileTerms(nominal.type(), refused.rule()) + ": " + fileTerms(nominal.type(), refused.field())
                         + "=" + refused.value() + ", at " + drawn

@@ -11,6 +11,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.IdealGains;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.PlantParameters;
@@ -141,7 +142,7 @@ class NonlinearSweepTest {
         // the gimbal's static friction equals its Coulomb friction: any lower static friction is refused
         Scenario gimbal = shipped("gimbal-axis.yaml");
         assertThatThrownBy(() -> new Sweep(gimbal, Spread.parse("static-friction=30%"), 1L))
-                .isInstanceOf(IllegalArgumentException.class)
+                .isInstanceOf(InputException.class)
                 .hasMessage("--spread static-friction=30% can draw a dc-motor the model refuses: static-friction must"
                         + " be >= coulomb-friction (coulomb-friction=0.05): static-friction=" + 0.05 * 0.7
                         + ", at static-friction x0.7; narrow the spread or change the nominal values");
@@ -151,7 +152,7 @@ class NonlinearSweepTest {
     void aParameterAFactorCannotMoveIsRefused() throws Exception {
         Scenario gimbal = shipped("gimbal-axis.yaml");
         assertThatThrownBy(() -> new Sweep(gimbal, Spread.parse("load-torque=10%"), 1L))
-                .isInstanceOf(IllegalArgumentException.class)
+                .isInstanceOf(InputException.class)
                 .hasMessage("--spread load-torque cannot vary on plant type dc-motor: its nominal value is 0.0 and a"
                         + " spread multiplies it; give the scenario a finite non-zero load-torque");
         ControllerSettings pi = ControllerSettings.builder().gains(IdealGains.pi(100.0, 600.0))
@@ -159,7 +160,7 @@ class NonlinearSweepTest {
         Scenario unlimitedHeater = Scenario.setpointStep(
                 new ThermalZoneModel(21_000, 5, 20, Double.POSITIVE_INFINITY, 1.0), pi, 40.0, 600.0);
         assertThatThrownBy(() -> new Sweep(unlimitedHeater, Spread.parse("max-power=10%"), 1L))
-                .isInstanceOf(IllegalArgumentException.class)
+                .isInstanceOf(InputException.class)
                 .hasMessage("--spread max-power cannot vary on plant type thermal-zone: its nominal value is Infinity"
                         + " and a spread multiplies it; give the scenario a finite non-zero max-power");
     }

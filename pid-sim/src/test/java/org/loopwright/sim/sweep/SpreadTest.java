@@ -14,6 +14,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.EnumSource;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.plant.PlantType;
 
 class SpreadTest {
@@ -52,7 +53,7 @@ class SpreadTest {
     @ParameterizedTest
     @MethodSource("keysOfAnotherPlantType")
     void aKeyThePlantTypeDoesNotTakeIsNamedWithTheKeysItTakes(String text, PlantType type, String message) {
-        assertThatThrownBy(() -> Spread.parse(text).requireKeysOf(type)).isInstanceOf(IllegalArgumentException.class)
+        assertThatThrownBy(() -> Spread.parse(text).requireKeysOf(type)).isInstanceOf(InputException.class)
                 .hasMessage(message);
     }
 
@@ -83,7 +84,7 @@ class SpreadTest {
     @ParameterizedTest
     @MethodSource("badSpreads")
     void badSpreadNamesTheEntryAndWhatIsAllowed(String text, String message) {
-        assertThatThrownBy(() -> Spread.parse(text)).isInstanceOf(IllegalArgumentException.class)
+        assertThatThrownBy(() -> Spread.parse(text)).isInstanceOf(InputException.class)
                 .hasMessage(message);
     }
 }

@@ -10,6 +10,7 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.Scenario;
@@ -189,7 +190,7 @@ class SweepTest {
         Scenario nominal = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 1.0), proportional(1.0, 0.1),
                 1.0, 10.0);
         assertThatThrownBy(() -> new Sweep(nominal, Spread.parse("inertia=10%"), 1L))
-                .isInstanceOf(IllegalArgumentException.class)
+                .isInstanceOf(InputException.class)
                 .hasMessage("--spread key inertia is not a parameter of plant type transfer-function: use gain,"
                         + " time-constant or dead-time");
     }
