@@ -15,7 +15,7 @@ import org.loopwright.sim.config.IoWords;
 import org.loopwright.sim.config.Keywords;
 
 /**
- * Reads a logged trace from CSV (Apache Commons CSV, RFC 4180 quoting). The first row is the header.
+ * Reads a logged trace from CSV ({@link org.loopwright.sim.config.CsvRows}, RFC 4180 quoting). The first row is the header.
  * Lines starting with {@code #} are comments. Columns, in any order:
  * <ul>
  *   <li>{@code time} (required): seconds, a finite number in every row;</li>
