@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 
+import com.fasterxml.jackson.core.io.NumberOutput;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
@@ -112,10 +113,20 @@ public final class Replay {
         for (int i = 0; i < cells.size(); i++) {
             CsvRows.appendCell(line, cells.get(i), i == 0);
         }
-        line.append(',').append(output).append(',').append(proportional).append(',').append(integral).append(',')
-                .append(derivative);
+        line.append(',').append(number(output)).append(',').append(number(proportional)).append(',')
+                .append(number(integral)).append(',').append(number(derivative));
         CsvRows.appendCell(line, status, false);
         out.append(line.append('\n'));
+    }
+
+    /**
+     * The shortest decimal that reads back to the same double, in {@link Double#toString}'s format,
+     * by Jackson's Schubfach writer (Giulietti's algorithm, the one Java 19 adopted for
+     * {@code Double.toString}): Java 17's own is several times slower and, for a few values,
+     * longer than it needs to be.
+     */
+    static String number(double value) {
+        return NumberOutput.toString(value, true);
     }
 
     /** One record, quoted where the harness's CSV dialect needs it. */

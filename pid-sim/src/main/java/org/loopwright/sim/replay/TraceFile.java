@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
+import com.fasterxml.jackson.core.io.NumberInput;
 import org.loopwright.pid.Mode;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.IoWords;
@@ -171,7 +172,8 @@ public final class TraceFile {
 
     static double parseNumber(String cell) {
         if (isDecimal(cell)) {
-            return Double.parseDouble(cell);
+            // Jackson's fast parser (FastDoubleParser) rounds correctly, as Double.parseDouble does
+            return NumberInput.parseDouble(cell, true);
         }
         String word = cell.toLowerCase(Locale.ROOT);
         boolean negative = word.startsWith("-");
