@@ -56,10 +56,14 @@ public final class LinearPlant implements Plant {
     private final double[] cachedSeconds = new double[CACHED_LENGTHS];
     private final double[][] cachedTransition;
     private final double[][] cachedInputResponse;
-    // the discretisation last used, so a fixed period looks nothing up
+    // the discretisation last used, so a fixed period looks nothing up, and the one before it, so a dead
+    // time that is not a whole number of periods (two held pieces per period, in turn) looks nothing up either
     private double currentSeconds = Double.NaN;
     private double[] currentTransition;
     private double[] currentInputResponse;
+    private double previousSeconds = Double.NaN;
+    private double[] previousTransition;
+    private double[] previousInputResponse;
     private int nextSlot;
 
     // the delay line: a ring of held pieces, oldest first
@@ -118,6 +122,8 @@ public final class LinearPlant implements Plant {
         deadTimeSeconds = newModel.deadTimeSeconds();
         Arrays.fill(cachedSeconds, Double.NaN);
         currentSeconds = Double.NaN;
+        currentTransition = null;
+        previousSeconds = Double.NaN;
         nextSlot = 0;
         reset();
     }
@@ -224,6 +230,22 @@ public final class LinearPlant implements Plant {
 
     /** Makes Φ(τ), Γ(τ) for τ = seconds current, from the cache or computed into its oldest slot. */
     private void select(double seconds) {
+        double[] transition = currentTransition;
+        double[] inputResponse = currentInputResponse;
+        double lastSeconds = currentSeconds;
+        if (seconds == previousSeconds) {
+            currentSeconds = previousSeconds;
+            currentTransition = previousTransition;
+            currentInputResponse = previousInputResponse;
+        } else {
+            lookUp(seconds);
+        }
+        previousSeconds = lastSeconds;
+        previousTransition = transition;
+        previousInputResponse = inputResponse;
+    }
+
+    private void lookUp(double seconds) {
         int slot = -1;
         for (int i = 0; i < CACHED_LENGTHS && slot < 0; i++) {
             if (cachedSeconds[i] == seconds) {
@@ -231,6 +253,9 @@ public final class LinearPlant implements Plant {
             }
         }
         if (slot < 0) {
+            if (cachedTransition[nextSlot] == currentTransition) {
+                nextSlot = (nextSlot + 1) % CACHED_LENGTHS; // the current one is about to be the previous: keep it
+            }
             slot = nextSlot;
             nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
             discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);
