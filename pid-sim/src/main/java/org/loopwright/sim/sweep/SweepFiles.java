@@ -145,6 +145,8 @@ public final class SweepFiles {
      * oscillating or diverged runs in red, each clipped to the stable runs' range widened by a quarter of it.
      */
     public static XYChart plot(SweepResult result, String title) {
+        // a nonlinear plant's runs are judged by simulation: name what was seen, not a pole verdict
+        String unstableWord = result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating or diverged";
         double[] times = result.nominal().plotTimes();
         List<double[]> stable = new ArrayList<>();
         List<SweepRun> unstable = new ArrayList<>();
@@ -167,7 +169,7 @@ public final class SweepFiles {
         }
         int drawn = Math.min(UNSTABLE_DRAWN, unstable.size());
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
-                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " unstable ("
+                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " " + unstableWord + " ("
                         + (drawn < unstable.size() ? "first " + drawn + " shown" : "shown") + " in red, clipped)"),
                 "time (s)", "measurement");
         if (!stable.isEmpty()) {
@@ -184,7 +186,7 @@ public final class SweepFiles {
         double margin = CLIP_MARGIN * (high - low);
         for (int i = 0; i < drawn; i++) {
             SweepRun run = unstable.get(i);
-            XYSeries series = line(chart, i == 0 ? "unstable runs" : "run " + run.index(), run.plotTimes(), run.plotMeasurements(), low - margin,
+            XYSeries series = line(chart, i == 0 ? unstableWord + " runs" : "run " + run.index(), run.plotTimes(), run.plotMeasurements(), low - margin,
                     high + margin, clip);
             if (series != null) {
                 series.setLineColor(UNSTABLE_COLOUR);
