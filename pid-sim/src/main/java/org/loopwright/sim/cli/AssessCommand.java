@@ -1,7 +1,5 @@
 package org.loopwright.sim.cli;
 
-import static java.util.Map.entry;
-
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -9,19 +7,18 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 
 import org.loopwright.pid.Action;
 import org.loopwright.pid.ControllerSettings;
-import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.monitor.MonitorSettings;
 import org.loopwright.sim.assess.Assessment;
 import org.loopwright.sim.assess.AssessmentOptions;
 import org.loopwright.sim.assess.LoopAssessment;
 import org.loopwright.sim.assess.ProcessKind;
 import org.loopwright.sim.config.ControllerFile;
-import org.loopwright.sim.config.InputFileException;
-import org.loopwright.sim.config.Keywords;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.replay.LoggedLoop;
 import org.loopwright.sim.replay.LoggedLoopFile;
 import org.loopwright.sim.report.AssessmentReport;
@@ -50,9 +47,9 @@ public final class AssessCommand implements Callable<Integer> {
     /** Share of the measurement span that is an acceptable oscillation amplitude (Hägglund 1995, from memory). */
     static final double AMPLITUDE_SHARE_OF_SPAN = 0.01;
 
-    private static final Keywords<ProcessKind> PROCESS_KINDS = Keywords.of(
-            entry("self-regulating", ProcessKind.SELF_REGULATING), entry("integrating", ProcessKind.INTEGRATING),
-            entry("position-drive", ProcessKind.POSITION_DRIVE));
+    /** The option each monitor setting comes from, for messages. */
+    private static final Map<String, String> OPTION_OF_FIELD = Map.of("samplePeriodSeconds", "--sample-period",
+            "timeScaleSeconds", "--time-scale", "acceptableAmplitude", "--span");
 
     @Parameters(index = "0", paramLabel = "TRACE.csv", description = "The logged loop (CSV with a header row).")
     private Path traceFile;
@@ -81,9 +78,10 @@ public final class AssessCommand implements Callable<Integer> {
     private Double span;
 
     @Option(names = "--process-kind", paramLabel = "K", defaultValue = "self-regulating",
-            description = "self-regulating, integrating or position-drive (a position loop on a drive); decides"
+            converter = OptionWords.ProcessKinds.class, completionCandidates = OptionWords.ProcessKinds.class,
+            description = "${COMPLETION-CANDIDATES} (position-drive: a position loop on a drive); decides"
                     + " whether the stiction test applies (default: ${DEFAULT-VALUE}).")
-    private String processKind;
+    private ProcessKind kind;
 
     @Option(names = "--out", paramLabel = "DIR", description = "Directory for the plots and report.html (created if"
             + " need be); without it nothing is written.")
@@ -100,26 +98,13 @@ public final class AssessCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         List<String> assumptions = new ArrayList<>();
-        LoggedLoop loop;
-        AssessmentOptions options;
-        ControllerSettings controller;
-        try {
-            checkPositive("--sample-period", samplePeriod);
-            checkPositive("--time-scale", timeScale);
-            checkPositive("--span", span);
-            if (deadTime != null && !(deadTime >= 0.0 && deadTime < Double.POSITIVE_INFINITY)) {
-                throw new IllegalArgumentException("--dead-time must be finite and >= 0: --dead-time=" + deadTime);
-            }
-            ProcessKind kind = PROCESS_KINDS.value(processKind).orElseThrow(() -> new IllegalArgumentException(
-                    "--process-kind must be " + PROCESS_KINDS.describe() + ": --process-kind=" + processKind));
-            controller = controllerFile == null ? null : ControllerFile.read(controllerFile);
-            loop = LoggedLoopFile.read(traceFile);
-            options = options(loop, controller, kind, assumptions);
-        } catch (InputFileException | IllegalArgumentException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
-        }
+        OptionChecks.positive("--sample-period", samplePeriod);
+        OptionChecks.positive("--time-scale", timeScale);
+        OptionChecks.positive("--span", span);
+        OptionChecks.nonNegative("--dead-time", deadTime);
+        ControllerSettings controller = controllerFile == null ? null : ControllerFile.read(controllerFile);
+        LoggedLoop loop = LoggedLoopFile.read(traceFile);
+        AssessmentOptions options = options(loop, controller, kind, assumptions);
         Assessment assessment = LoopAssessment.of(loop, options);
         List<Path> written = List.of();
         if (outDirectory != null) {
@@ -127,7 +112,7 @@ public final class AssessCommand implements Callable<Integer> {
             List<Path> inputFiles = controllerFile == null ? List.of(traceFile) : List.of(traceFile, controllerFile);
             ReportRecord record = ReportRecord.of(BuildVersion.line(),
                     spec.root().commandLine().getParseResult().originalArgs(), inputFiles,
-                    controller == null ? java.util.Map.of() : ControllerFile.resolved(controller));
+                    controller == null ? Map.of() : ControllerFile.resolved(controller));
             written = AssessmentReport.write(outDirectory, record, loop, assessment, inputs(options, assumptions));
         }
         if (json) {
@@ -149,12 +134,6 @@ public final class AssessCommand implements Callable<Integer> {
         return 0;
     }
 
-    private static void checkPositive(String option, Double value) {
-        if (value != null && !(value > 0.0 && value < Double.POSITIVE_INFINITY)) {
-            throw new IllegalArgumentException(option + " must be finite and > 0: " + option + "=" + value);
-        }
-    }
-
     /** The monitor's settings from the options, the controller file and the record; records what was assumed. */
     private AssessmentOptions options(LoggedLoop loop, ControllerSettings controller, ProcessKind kind,
             List<String> assumptions) {
@@ -167,7 +146,7 @@ public final class AssessCommand implements Callable<Integer> {
                 : controller.gains().toParallel().toIdeal().integralTime();
         double scale = timeScale != null ? timeScale : integralTime;
         if (Double.isNaN(scale)) {
-            throw new IllegalArgumentException("assess needs the loop's time scale: give --time-scale SECONDS"
+            throw new InputException("assess needs the loop's time scale: give --time-scale SECONDS"
                     + " (the ultimate period, or the integral time) or --controller with an integral time");
         }
         double amplitude;
@@ -179,14 +158,14 @@ public final class AssessCommand implements Callable<Integer> {
                 largest = Math.max(largest, Math.max(finiteAbs(loop.setpoint(k)), finiteAbs(loop.measurement(k))));
             }
             if (largest == 0.0) {
-                throw new IllegalArgumentException("the record's setpoint and measurement are all zero or missing:"
+                throw new InputException("the record's setpoint and measurement are all zero or missing:"
                         + " give --span, the measurement's range");
             }
             amplitude = AMPLITUDE_SHARE_OF_SPAN * largest;
             assumptions.add("acceptable oscillation amplitude " + AssessmentReport.number(amplitude)
                     + ", 1 % of the largest value in the record (--span)");
         }
-        if (processKind.equals("self-regulating") && !spec.commandLine().getParseResult().hasMatchedOption(
+        if (kind == ProcessKind.SELF_REGULATING && !spec.commandLine().getParseResult().hasMatchedOption(
                 "--process-kind")) {
             assumptions.add("a self-regulating process for the stiction test (--process-kind)");
         }
@@ -212,28 +191,15 @@ public final class AssessCommand implements Callable<Integer> {
             assumptions.add("a frozen measurement needs the output to move more than " + AssessmentReport.number(move)
                     + ", 1 % of the output's range in the record (no finite output limits)");
         }
-        try {
-            return new AssessmentOptions(monitor.build(), deadTime == null ? Double.NaN : deadTime, kind,
-                    controller != null && !controller.gains().hasIntegralAction(), assumptions);
-        } catch (InvalidSettingException e) {
-            throw new IllegalArgumentException(optionName(e.field()) + " " + e.rule() + ": " + optionName(e.field())
-                    + "=" + e.value(), e);
-        }
+        return OptionChecks.inOptionTerms(OPTION_OF_FIELD, () -> new AssessmentOptions(monitor.build(),
+                deadTime == null ? Double.NaN : deadTime, kind, controller != null
+                        && !controller.gains().hasIntegralAction(), assumptions));
     }
 
     private static double finiteAbs(double v) {
         return Double.isFinite(v) ? Math.abs(v) : 0.0;
     }
 
-    /** The option a monitor setting comes from, for messages. */
-    private static String optionName(String field) {
-        return switch (field) {
-            case "samplePeriodSeconds" -> "--sample-period";
-            case "timeScaleSeconds" -> "--time-scale";
-            case "acceptableAmplitude" -> "--span";
-            default -> field;
-        };
-    }
 
     private String inputs(AssessmentOptions options, List<String> assumptions) {
         MonitorSettings m = options.monitor();

@@ -12,7 +12,6 @@ import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import org.loopwright.pid.ControllerSettings;
-import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.RelayStatus;
 import org.loopwright.pid.tuning.TunedGains;
@@ -74,13 +73,15 @@ public final class AutotuneCommand implements Callable<Integer> {
     private Path controllerOut;
 
     @Option(names = "--rule", paramLabel = "R", defaultValue = "tyreus-luyben",
-            description = "The suggestion --write-controller writes: tyreus-luyben or ziegler-nichols"
+            converter = OptionWords.UltimatePointRules.class, completionCandidates = OptionWords.UltimatePointRules.class,
+            description = "The suggestion --write-controller writes: ${COMPLETION-CANDIDATES}"
                     + " (default: ${DEFAULT-VALUE}, the better damped of the two).")
-    private String rule;
+    private UltimatePointRule written;
 
-    @Option(names = "--type", paramLabel = "pi|pid", defaultValue = "pi",
-            description = "PI or PID for --write-controller (default: ${DEFAULT-VALUE}).")
-    private String type;
+    @Option(names = "--type", paramLabel = "TYPE", defaultValue = "pi", converter = OptionWords.ControllerTypes.class,
+            completionCandidates = OptionWords.ControllerTypes.class,
+            description = "${COMPLETION-CANDIDATES} for --write-controller (default: ${DEFAULT-VALUE}).")
+    private ControllerType writtenType;
 
     @Option(names = "--json", description = "Print JSON instead of text.")
     private boolean json;
@@ -88,81 +89,67 @@ public final class AutotuneCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        try {
-            UltimatePointRule written = TuneCommand.ultimatePointRule(rule);
-            ControllerType writtenType = TuneCommand.parseType(type);
-            Scenario scenario = ScenarioFile.read(scenarioFile);
-            if (scenario.inner().isPresent() || scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
-                err.println(scenarioFile + ": autotune runs a relay on a single loop with fixed gains and one actuator: "
-                        + (scenario.inner().isPresent() ? "inner" : scenario.schedule().isPresent()
-                        ? "controller.schedule" : "split-range") + " is given");
-                err.flush();
-                return LoopwrightCommand.BAD_INPUT;
-            }
-            RelaySimulation.Outcome relay = RelaySimulation.run(scenario, orNaN(relayAmplitude), orNaN(hysteresis),
-                    orNaN(excursionLimit));
-            if (relay.status() != RelayStatus.SUCCEEDED) {
-                err.println("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
-                        + relay.message());
-                err.flush();
-                return LoopwrightCommand.BAD_INPUT;
-            }
-            if (relay.periodSetBySampling()) {
-                err.println("relay experiment: ultimate gain Ku " + TuningReport.num(relay.ultimateGain())
-                        + ", ultimate period Pu " + TuningReport.num(relay.ultimatePeriodSeconds()) + " s; "
-                        + relay.warnings().get(0));
-                err.flush();
-                return LoopwrightCommand.BAD_INPUT;
-            }
-            UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
-            ControllerSettings base = scenario.controller().orElseThrow();
-            List<TuningCandidate> suggestions = new ArrayList<>();
-            for (ControllerType type : ControllerType.values()) {
-                for (UltimatePointRule rule : UltimatePointRule.values()) {
-                    TuningResult result = rule.tune(point, type);
-                    if (result instanceof TunedGains tuned) {
-                        suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
-                    }
-                }
-            }
-            TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
-                    && c.tuning().type() == writtenType).findFirst().orElseThrow();
-            if (controllerOut != null) {
-                if (chosen.stable().orElse(true) == Boolean.FALSE) {
-                    throw new InputException("--write-controller: " + written.label() + " makes the sampled loop"
-                            + " UNSTABLE; no file written", null);
-                }
-                TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
-            }
-            if (json) {
-                ObjectNode node = Json.object();
-                Json.number(node, "ultimate_gain", relay.ultimateGain());
-                Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
-                Json.number(node, "oscillation_amplitude", relay.amplitude());
-                node.put("cycles", relay.cycles());
-                Json.number(node, "setpoint", relay.settings().setpoint());
-                Json.number(node, "bias", relay.settings().bias());
-                Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
-                Json.number(node, "hysteresis", relay.settings().hysteresis());
-                relay.warnings().forEach(node.putArray("warnings")::add);
-                node.set("suggestions", TuningReport.json(suggestions));
-                out.println(Json.pretty(node));
-            } else {
-                RelaySimulationText.print(out, relay);
-                TuningReport.printTable(out, suggestions, List.of());
-                if (controllerOut != null) {
-                    out.println("Wrote " + controllerOut + " (" + written.label() + ", "
-                            + writtenType.name().toLowerCase(Locale.ROOT) + ")");
-                }
-            }
-            out.flush();
-            return 0;
-        } catch (InvalidSettingException e) {
-            // the relay settings name their fields; say it with the options the user typed
-            String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
-            throw InputException.option(option, e.value(), e.rule());
+        Scenario scenario = ScenarioFile.read(scenarioFile);
+        if (scenario.inner().isPresent() || scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
+            throw new InputException(scenarioFile + ": autotune runs a relay on a single loop with fixed gains and one"
+                    + " actuator: " + (scenario.inner().isPresent() ? "inner" : scenario.schedule().isPresent()
+                    ? "controller.schedule" : "split-range") + " is given");
         }
+        // the relay settings name their fields; a refusal is said with the options the user typed
+        RelaySimulation.Outcome relay = OptionChecks.inOptionTerms(OPTION_OF_FIELD, () -> RelaySimulation.run(scenario,
+                orNaN(relayAmplitude), orNaN(hysteresis), orNaN(excursionLimit)));
+        if (relay.status() != RelayStatus.SUCCEEDED) {
+            throw new InputException("relay experiment " + relay.status().name().toLowerCase(Locale.ROOT) + ": "
+                    + relay.message());
+        }
+        if (relay.periodSetBySampling()) {
+            throw new InputException("relay experiment: ultimate gain Ku " + TuningReport.num(relay.ultimateGain())
+                    + ", ultimate period Pu " + TuningReport.num(relay.ultimatePeriodSeconds()) + " s; "
+                    + relay.warnings().get(0));
+        }
+        UltimatePoint point = new UltimatePoint(relay.ultimateGain(), relay.ultimatePeriodSeconds());
+        ControllerSettings base = scenario.controller().orElseThrow();
+        List<TuningCandidate> suggestions = new ArrayList<>();
+        for (ControllerType type : ControllerType.values()) {
+            for (UltimatePointRule rule : UltimatePointRule.values()) {
+                TuningResult result = rule.tune(point, type);
+                if (result instanceof TunedGains tuned) {
+                    suggestions.add(TuningEvaluation.onScenario(tuned, scenario, base));
+                }
+            }
+        }
+        TuningCandidate chosen = suggestions.stream().filter(c -> c.tuning().rule() == written
+                && c.tuning().type() == writtenType).findFirst().orElseThrow();
+        if (controllerOut != null) {
+            if (chosen.stable().orElse(true) == Boolean.FALSE) {
+                throw new InputException("--write-controller: " + written.label() + " makes the sampled loop"
+                        + " UNSTABLE; no file written");
+            }
+            TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
+        }
+        if (json) {
+            ObjectNode node = Json.object();
+            Json.number(node, "ultimate_gain", relay.ultimateGain());
+            Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
+            Json.number(node, "oscillation_amplitude", relay.amplitude());
+            node.put("cycles", relay.cycles());
+            Json.number(node, "setpoint", relay.settings().setpoint());
+            Json.number(node, "bias", relay.settings().bias());
+            Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
+            Json.number(node, "hysteresis", relay.settings().hysteresis());
+            relay.warnings().forEach(node.putArray("warnings")::add);
+            node.set("suggestions", TuningReport.json(suggestions));
+            out.println(Json.pretty(node));
+        } else {
+            RelaySimulationText.print(out, relay);
+            TuningReport.printTable(out, suggestions, List.of());
+            if (controllerOut != null) {
+                out.println("Wrote " + controllerOut + " (" + written.label() + ", "
+                        + writtenType.name().toLowerCase(Locale.ROOT) + ")");
+            }
+        }
+        out.flush();
+        return 0;
     }
 
     private static double orNaN(Double value) {

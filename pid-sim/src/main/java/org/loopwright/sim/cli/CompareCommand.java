@@ -49,7 +49,8 @@ import picocli.CommandLine.Spec;
                 "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
                 "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller.",
                 "The sampled loop includes the sensor's delay-samples. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
-                        + "; " + NumberText.MISSING + " where the response did not settle or diverged."})
+                        + "; " + NumberText.MISSING + " where the response did not settle or diverged.",
+                "Settled: " + ResponseMetrics.SETTLED_RULE + "."})
 public final class CompareCommand implements Callable<Integer> {
 
     @Spec
@@ -70,46 +71,39 @@ public final class CompareCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        try {
-            LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
-            if (periods != null) {
-                checkPeriods(loop);
-            }
-            List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
-                    DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
-                    loop.settings().samplePeriodSeconds());
-            StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
-            boolean json = output.json();
-            if (json) {
-                out.println(Json.pretty(rows(result)));
-            } else {
-                table(out, result, periods == null, loop.scenario().units());
-            }
-            if (output.givenDirectory().isPresent()) {
-                Path outDirectory = output.givenDirectory().get();
-                List<Path> written;
-                // staged, then moved: a run that fails half way leaves no half-written file behind
-                try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-                    written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
-                    written.add(HtmlReports.compare(stage.directory(), HtmlReports.record(spec, loop.scenario(),
-                            scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
-                            StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
-                    stage.commit();
-                } catch (IOException e) {
-                    throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
-                }
-                (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
-                (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
-            }
-            out.flush();
-            err.flush();
-            return 0;
-        } catch (InputFileException e) {
-            out.flush();
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
+        if (periods != null) {
+            checkPeriods(loop);
         }
+        List<Double> chosen = periods != null ? periods : DiscretisationStudy.defaultPeriods(
+                DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
+                loop.settings().samplePeriodSeconds());
+        StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+        boolean json = output.json();
+        if (json) {
+            out.println(Json.pretty(rows(result)));
+        } else {
+            table(out, result, periods == null, loop.scenario().units());
+        }
+        if (output.givenDirectory().isPresent()) {
+            Path outDirectory = output.givenDirectory().get();
+            List<Path> written;
+            // staged, then moved: a run that fails half way leaves no half-written file behind
+            try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+                written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
+                written.add(HtmlReports.compare(stage.directory(), HtmlReports.record(spec, loop.scenario(),
+                        scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
+                        StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
+                stage.commit();
+            } catch (IOException e) {
+                throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
+            }
+            (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
+            (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
+        }
+        out.flush();
+        err.flush();
+        return 0;
     }
 
     private static ArrayNode rows(StudyResult result) {

@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.stream.Stream;
 
@@ -22,7 +23,6 @@ import org.loopwright.pid.tuning.SopdtModel;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
-import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.design.Design;
 import org.loopwright.sim.design.DesignModel;
 import org.loopwright.sim.design.DesignResult;
@@ -66,19 +66,17 @@ public final class DesignCommand implements Callable<Integer> {
     /** SOPDT is kept over FOPDT when it lowers the step test's RMSE by at least this share. */
     public static final double SOPDT_RMSE_GAIN = 0.2;
 
-    private static final Keywords<String> MODEL_CHOICES = Keywords.of(java.util.Map.entry("auto", "auto"),
-            java.util.Map.entry("fopdt", "fopdt"), java.util.Map.entry("sopdt", "sopdt"));
-
     @Spec
     private CommandSpec spec;
 
     @Option(names = "--step-test", paramLabel = "STEP.csv", description = "A bump test, CSV with columns time,input,output.")
     private Path stepTest;
 
-    @Option(names = "--model", paramLabel = "fopdt|sopdt|auto", defaultValue = "auto",
-            description = "The model fitted to the step test; auto keeps sopdt when it lowers the RMSE by 20 %% or more"
-                    + " (default: ${DEFAULT-VALUE}).")
-    private String modelChoice;
+    @Option(names = "--model", paramLabel = "KIND", defaultValue = "auto", converter = OptionWords.ModelChoices.class,
+            completionCandidates = OptionWords.ModelChoices.class,
+            description = "The model fitted to the step test, ${COMPLETION-CANDIDATES}; auto keeps sopdt when it lowers"
+                    + " the RMSE by 20 %% or more (default: ${DEFAULT-VALUE}).")
+    private OptionWords.ModelChoices.Choice modelChoice;
 
     @Option(names = "--plant", paramLabel = "PLANT.yaml",
             description = "A file with one plant: block of the scenario format (fopdt, sopdt with real time constants,"
@@ -121,18 +119,20 @@ public final class DesignCommand implements Callable<Integer> {
             description = "The limit on the sampled loop's Ms (default: ${DEFAULT-VALUE}).")
     private double maxSensitivity;
 
-    @Option(names = "--type", paramLabel = "pi|pid|auto", defaultValue = "auto",
-            description = "PI, PID, or both (default: ${DEFAULT-VALUE}).")
-    private String type;
+    @Option(names = "--type", paramLabel = "TYPE", defaultValue = "auto", converter = OptionWords.DesignTypes.class,
+            completionCandidates = OptionWords.DesignTypes.class,
+            description = "${COMPLETION-CANDIDATES}: PI, PID, or both (default: ${DEFAULT-VALUE}).")
+    private OptionWords.DesignTypes.Choice types;
 
     @Option(names = "--integral-method", paramLabel = "M", defaultValue = "tustin",
-            description = "forward-euler, backward-euler or tustin (default: ${DEFAULT-VALUE}).")
-    private String integralMethod;
+            converter = OptionWords.IntegralMethods.class, completionCandidates = OptionWords.IntegralMethods.class,
+            description = "${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
+    private IntegralMethod integralMethod;
 
     @Option(names = "--derivative-method", paramLabel = "M", defaultValue = "backward-euler",
-            description = "backward-euler, tustin, step-invariant, ramp-invariant or forward-euler"
-                    + " (default: ${DEFAULT-VALUE}).")
-    private String derivativeMethod;
+            converter = OptionWords.DerivativeMethods.class, completionCandidates = OptionWords.DerivativeMethods.class,
+            description = "${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
+    private DerivativeMethod derivativeMethod;
 
     @Option(names = "--spread", paramLabel = "KEY=P%[,...]", defaultValue = "gain=20%,time-constant=20%,dead-time=20%",
             description = "Plant uncertainty of the robustness sweep (default: ${DEFAULT-VALUE}).")
@@ -158,21 +158,14 @@ public final class DesignCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
+        DesignSpec designSpec = specification();
+        DesignModel model = model();
+        boolean bar = !json && !noProgress && System.console() != null;
+        int threads = Runtime.getRuntime().availableProcessors();
         DesignResult result;
-        try {
-            DesignSpec designSpec = specification();
-            DesignModel model = model();
-            boolean bar = !json && !noProgress && System.console() != null;
-            int threads = Runtime.getRuntime().availableProcessors();
-            try (SweepProgress progress = bar ? SweepProgress.on(System.err, Design.progressSteps(designSpec))
-                    : SweepProgress.off()) {
-                result = Design.run(model, designSpec, threads, progress);
-            }
-        } catch (InputException | IllegalArgumentException e) {
-            err.println(e instanceof InvalidSettingException s ? TuneCommand.inOptionTerms(s) : e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        try (SweepProgress progress = bar ? SweepProgress.on(System.err, Design.progressSteps(designSpec))
+                : SweepProgress.off()) {
+            result = Design.run(model, designSpec, threads, progress);
         }
         // the report's record: the command line, the input files with their SHA-256, the recommended settings in full
         List<Path> inputs = Stream.of(stepTest, plantFile).filter(Objects::nonNull).toList();
@@ -195,24 +188,10 @@ public final class DesignCommand implements Callable<Integer> {
     }
 
     private DesignSpec specification() {
-        List<ControllerType> types = switch (type) {
-            case "pi" -> List.of(ControllerType.PI);
-            case "pid" -> List.of(ControllerType.PID);
-            case "auto" -> List.of(ControllerType.PI, ControllerType.PID);
-            default -> throw new IllegalArgumentException("--type must be pi, pid or auto: --type=" + type);
-        };
-        IntegralMethod integral = ControllerFile.INTEGRAL_METHODS.value(integralMethod).orElseThrow(() ->
-                new IllegalArgumentException("--integral-method must be one of "
-                        + String.join(", ", ControllerFile.INTEGRAL_METHODS.words()) + ": --integral-method="
-                        + integralMethod));
-        DerivativeMethod derivative = ControllerFile.DERIVATIVE_METHODS.value(derivativeMethod).orElseThrow(() ->
-                new IllegalArgumentException("--derivative-method must be one of "
-                        + String.join(", ", ControllerFile.DERIVATIVE_METHODS.words()) + ": --derivative-method="
-                        + derivativeMethod));
         return new DesignSpec(samplePeriod, outputMin == null ? Double.NEGATIVE_INFINITY : outputMin,
                 outputMax == null ? Double.POSITIVE_INFINITY : outputMax,
-                outputSlew == null ? Double.POSITIVE_INFINITY : outputSlew, sensorDelay, maxSensitivity, types,
-                integral, derivative, Spread.parse(spreadText), runs, seed);
+                outputSlew == null ? Double.POSITIVE_INFINITY : outputSlew, sensorDelay, maxSensitivity, types.types(),
+                integralMethod, derivativeMethod, Spread.parse(spreadText), runs, seed);
     }
 
     private DesignModel model() {
@@ -220,12 +199,12 @@ public final class DesignCommand implements Callable<Integer> {
                 || deadTime != null || integrating;
         int sources = (stepTest != null ? 1 : 0) + (plantFile != null ? 1 : 0) + (fromOptions ? 1 : 0);
         if (sources != 1) {
-            throw new IllegalArgumentException("give one model: --step-test STEP.csv, --plant PLANT.yaml, or"
+            throw new InputException("give one model: --step-test STEP.csv, --plant PLANT.yaml, or"
                     + " --process-gain with --time-constant and --dead-time (or --integrating and --dead-time)"
                     + (sources == 0 ? "" : "; more than one was given"));
         }
-        if (stepTest == null && !modelChoice.equals("auto")) {
-            throw new IllegalArgumentException("--model applies to --step-test only: --model=" + modelChoice);
+        if (stepTest == null && modelChoice.kind().isPresent()) {
+            throw new InputException("--model applies to --step-test only: --model=" + modelChoice.kind().get().label());
         }
         if (stepTest != null) {
             return fromStepTest();
@@ -238,33 +217,31 @@ public final class DesignCommand implements Callable<Integer> {
     }
 
     private DesignModel fromStepTest() {
-        String choice = MODEL_CHOICES.value(modelChoice).orElseThrow(() -> new IllegalArgumentException(
-                "--model must be fopdt, sopdt or auto: --model=" + modelChoice));
         StepTest test = StepTestFile.read(stepTest);
-        if (!choice.equals("auto")) {
-            IdentifiedModel fit = StepIdentification.identify(test, choice.equals("fopdt") ? ModelKind.FOPDT
-                    : ModelKind.SOPDT);
-            return new DesignModel(fit.processModel(), "step-test", java.util.Optional.of(test),
-                    java.util.Optional.of(fit), choice + " as asked (--model " + choice + ")");
+        if (modelChoice.kind().isPresent()) {
+            IdentifiedModel fit = StepIdentification.identify(test, modelChoice.kind().get());
+            String choice = modelChoice.kind().get().label();
+            return new DesignModel(fit.processModel(), "step-test", Optional.of(test), Optional.of(fit),
+                    choice + " as asked (--model " + choice + ")");
         }
         IdentifiedModel first = StepIdentification.identify(test, ModelKind.FOPDT);
         IdentifiedModel second;
         try {
             second = StepIdentification.identify(test, ModelKind.SOPDT);
         } catch (InputFileException noFit) {
-            return new DesignModel(first.processModel(), "step-test", java.util.Optional.of(test),
-                    java.util.Optional.of(first), "fopdt: the second-order fit did not converge");
+            return new DesignModel(first.processModel(), "step-test", Optional.of(test),
+                    Optional.of(first), "fopdt: the second-order fit did not converge");
         }
         double gain = 1.0 - second.rmse() / first.rmse();
         String figures = String.format(Locale.ROOT, "RMSE %.4g against %.4g for fopdt, %.0f %% lower",
                 second.rmse(), first.rmse(), 100.0 * gain);
         if (gain >= SOPDT_RMSE_GAIN) {
-            return new DesignModel(second.processModel(), "step-test", java.util.Optional.of(test),
-                    java.util.Optional.of(second), "sopdt kept: " + figures + " (at least "
+            return new DesignModel(second.processModel(), "step-test", Optional.of(test),
+                    Optional.of(second), "sopdt kept: " + figures + " (at least "
                             + Math.round(100 * SOPDT_RMSE_GAIN) + " % lower asked): the data shows a second lag");
         }
-        return new DesignModel(first.processModel(), "step-test", java.util.Optional.of(test),
-                java.util.Optional.of(first), "fopdt kept: sopdt's " + figures + ", less than the "
+        return new DesignModel(first.processModel(), "step-test", Optional.of(test),
+                Optional.of(first), "fopdt kept: sopdt's " + figures + ", less than the "
                         + Math.round(100 * SOPDT_RMSE_GAIN) + " % that would justify a parameter more");
     }
 

@@ -44,17 +44,10 @@ public final class IdentifyCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STEP.csv", description = "The step test: CSV with columns time,input,output.")
     private Path file;
 
-    @Option(names = "--model", paramLabel = "fopdt|sopdt", defaultValue = "fopdt",
-            converter = ModelWords.class,
-            description = "First or second order plus dead time (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--model", paramLabel = "KIND", defaultValue = "fopdt", converter = OptionWords.ModelKinds.class,
+            completionCandidates = OptionWords.ModelKinds.class,
+            description = "First or second order plus dead time: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
     private ModelKind kind;
-
-    /** {@code --model} by the words fopdt and sopdt. */
-    static final class ModelWords extends KeywordConverter<ModelKind> {
-        ModelWords() {
-            super(Keywords.byWord(ModelKind.values(), ModelKind::label));
-        }
-    }
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
             description = "Where to write the plot identify-<model>.png (default: the current directory).")

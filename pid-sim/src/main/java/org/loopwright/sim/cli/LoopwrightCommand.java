@@ -1,6 +1,7 @@
 package org.loopwright.sim.cli;
 
 import java.io.IOException;
+import java.io.PrintWriter;
 import java.io.UncheckedIOException;
 
 import org.loopwright.sim.config.InputException;
@@ -8,6 +9,8 @@ import org.loopwright.sim.config.IoWords;
 
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.OptionSpec;
+import picocli.CommandLine.TypeConversionException;
 
 /**
  * The command-line harness: {@code java -jar loopwright.jar <command> ...}. Exit codes: 0 success,
@@ -38,11 +41,11 @@ public final class LoopwrightCommand implements Runnable {
     /** A command line with this project's exit codes and error handling. */
     public static CommandLine commandLine() {
         CommandLine cli = new CommandLine(new LoopwrightCommand());
-        // the one path from bad input to exit 2: commands throw, never catch, their input errors;
-        // an IllegalArgumentException is a value a constructor refused (its message names it), and a
-        // file-system error is a file named on the command line that cannot be read or written
+        // the one path from bad input to exit 2: commands throw, never catch, their input errors (an
+        // InputException, or a file-system error on a file named on the command line); anything else
+        // is a defect of ours: exit 1 with the stack trace
         cli.setExecutionExceptionHandler((ex, cmd, parsed) -> {
-            if (ex instanceof InputException || ex instanceof IllegalArgumentException) {
+            if (ex instanceof InputException) {
                 cmd.getErr().println(ex.getMessage());
                 return BAD_INPUT;
             }
@@ -58,8 +61,14 @@ public final class LoopwrightCommand implements Runnable {
             return INTERNAL_ERROR;
         });
         cli.setParameterExceptionHandler((ex, args) -> {
-            ex.getCommandLine().getErr().println(ex.getMessage());
-            ex.getCommandLine().usage(ex.getCommandLine().getErr());
+            PrintWriter err = ex.getCommandLine().getErr();
+            if (ex.getCause() instanceof TypeConversionException bad && ex.getArgSpec() instanceof OptionSpec option) {
+                // a value the option's converter refused: said as every other bad value is, without the usage
+                err.println(InputException.option(option.longestName(), ex.getValue(), bad.getMessage()).getMessage());
+                return BAD_INPUT;
+            }
+            err.println(ex.getMessage());
+            ex.getCommandLine().usage(err);
             return BAD_INPUT;
         });
         return cli;

@@ -44,8 +44,9 @@ import picocli.CommandLine.Model.CommandSpec;
             "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
             "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention).",
             "The first row says whether the response settled, did not settle or DIVERGED.",
-            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures are given only once the",
-            "output has settled (2 %% band), else 'not settled'.",
+            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + ".",
+            "Settled: " + ResponseMetrics.SETTLED_RULE + "; step figures are given only for a settled response,"
+                    + " else 'not settled'.",
             "Divergence: " + Divergence.RULE + "; such a run is stopped there and reported DIVERGED."})
 public final class SimulateCommand implements Callable<Integer> {
 
@@ -73,19 +74,14 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         Scenario scenario;
         String title;
-        try {
-            if (scenarioFile == null) {
-                err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
-                        + " not a real bath).");
-                scenario = ScenarioFile.waterBathDemo();
-                title = "Water bath (built-in demo)";
-            } else {
-                scenario = ScenarioFile.read(scenarioFile);
-                title = String.valueOf(scenarioFile.getFileName());
-            }
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            return LoopwrightCommand.BAD_INPUT;
+        if (scenarioFile == null) {
+            err.println("No scenario given: running the built-in water-bath demo (numbers of our own invention,"
+                    + " not a real bath).");
+            scenario = ScenarioFile.waterBathDemo();
+            title = "Water bath (built-in demo)";
+        } else {
+            scenario = ScenarioFile.read(scenarioFile);
+            title = String.valueOf(scenarioFile.getFileName());
         }
         Trajectory trajectory = Simulation.run(scenario);
         if (trajectory.diverged()) {

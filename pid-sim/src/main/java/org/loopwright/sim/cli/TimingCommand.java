@@ -13,6 +13,7 @@ import org.loopwright.pid.WindupProtection;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.runner.WaitStrategy;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.timing.LoopTiming;
 import org.loopwright.sim.timing.TimedRun;
@@ -24,7 +25,6 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
 /**
@@ -70,9 +70,10 @@ public final class TimingCommand implements Callable<Integer> {
                     + " takes twice as long.")
     private double seconds;
 
-    @Option(names = "--wait", paramLabel = "WAIT", defaultValue = "park-then-spin",
-            description = "How the runner waits: park, spin or park-then-spin (default: ${DEFAULT-VALUE}).")
-    private String wait;
+    @Option(names = "--wait", paramLabel = "WAIT", defaultValue = "park-then-spin", converter = OptionWords.Waits.class,
+            completionCandidates = OptionWords.Waits.class,
+            description = "How the runner waits: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
+    private WaitStrategy strategy;
 
     @Option(names = "--margin-us", paramLabel = "M", defaultValue = "100",
             description = "For park-then-spin: spin for the last M µs before each deadline, 0 to 1000000"
@@ -91,15 +92,7 @@ public final class TimingCommand implements Callable<Integer> {
     public Integer call() throws InterruptedException, IOException {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        ControllerSettings settings;
-        try {
-            settings = controllerSettings();
-        } catch (InputFileException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
-        }
-        WaitStrategy strategy = waitStrategy();
+        ControllerSettings settings = controllerSettings();
         long margin = margin();
         Duration each = duration(settings);
         if (outDirectory != null) {
@@ -167,14 +160,6 @@ public final class TimingCommand implements Callable<Integer> {
                 .build();
     }
 
-    private WaitStrategy waitStrategy() {
-        try {
-            return WaitStrategy.fromWord(wait);
-        } catch (IllegalArgumentException e) {
-            throw bad("--wait must be park, spin or park-then-spin: --wait=" + wait);
-        }
-    }
-
     private long margin() {
         if (!(marginMicros >= 0.0 && marginMicros <= 1e6)) {
             throw bad("--margin-us must be between 0 and 1000000: --margin-us=" + marginMicros);
@@ -197,8 +182,8 @@ public final class TimingCommand implements Callable<Integer> {
         return Math.round(settings.samplePeriodSeconds() * 1e9);
     }
 
-    private ParameterException bad(String message) {
-        return new ParameterException(spec.commandLine(), message);
+    private static InputException bad(String message) {
+        return new InputException(message);
     }
 
     /** The judgement, with the figures it rests on. */

@@ -11,10 +11,10 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
+import java.util.function.Supplier;
 import java.util.stream.Collectors;
 
 import org.loopwright.pid.ControllerSettings;
-import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.FopdtModel;
@@ -100,11 +100,14 @@ public final class TuneCommand implements Callable<Integer> {
     @Option(names = "--ultimate-period", paramLabel = "PU", description = "Ultimate period Pu in seconds.")
     private Double ultimatePeriod;
 
-    @Option(names = "--rule", paramLabel = "R", description = "One rule; without it, every rule that applies.")
+    @Option(names = "--rule", paramLabel = "R", completionCandidates = OptionWords.RuleLabels.class,
+            description = "One rule (${COMPLETION-CANDIDATES}); without it, every rule that applies.")
     private String rule;
 
-    @Option(names = "--type", paramLabel = "pi|pid", defaultValue = "pi", description = "PI or PID (default: pi).")
-    private String type;
+    @Option(names = "--type", paramLabel = "TYPE", defaultValue = "pi", converter = OptionWords.ControllerTypes.class,
+            completionCandidates = OptionWords.ControllerTypes.class,
+            description = "${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
+    private ControllerType controllerType;
 
     @Option(names = "--closed-loop-time", paramLabel = "TC",
             description = "SIMC's tau_c (default: the dead time L, as Skogestad 2003 recommends) or lambda's lambda"
@@ -122,115 +125,101 @@ public final class TuneCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        try {
-            ControllerType controllerType = parseType(type);
-            boolean fromOptions = processGain != null || timeConstant != null || deadTime != null
-                    || secondTimeConstant != null || integrating;
-            boolean fromModel = fromOptions || modelFile != null;
-            boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
-            if (fromModel == fromPoint) {
-                throw new BadInput("give either a model (--process-gain, --time-constant, --dead-time; or"
-                        + " --model-file) or --ultimate-gain and --ultimate-period");
+        boolean fromOptions = processGain != null || timeConstant != null || deadTime != null
+                || secondTimeConstant != null || integrating;
+        boolean fromModel = fromOptions || modelFile != null;
+        boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
+        if (fromModel == fromPoint) {
+            throw new InputException("give either a model (--process-gain, --time-constant, --dead-time; or"
+                    + " --model-file) or --ultimate-gain and --ultimate-period");
+        }
+        if (fromOptions && modelFile != null) {
+            throw new InputException("--model-file excludes --process-gain, --time-constant, --second-time-constant,"
+                    + " --integrating and --dead-time: --model-file=" + modelFile);
+        }
+        if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
+            throw new InputException("an ultimate point needs both --ultimate-gain and --ultimate-period");
+        }
+        if (controllerOut != null && rule == null) {
+            throw new InputException("--write-controller needs --rule: which rule's settings to write");
+        }
+        if (controllerOut != null && samplePeriod == null) {
+            throw new InputException("--write-controller needs --sample-period: the controller's period is the device's"
+                    + " choice, not one to invent");
+        }
+        if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
+            throw new InputException("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
+        }
+        if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
+            throw new InputException("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
+                    + " --closed-loop-time=" + closedLoopTime);
+        }
+        double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
+        List<TuningCandidate> candidates = new ArrayList<>();
+        List<RuleNotApplicable> skipped = new ArrayList<>();
+        ProcessModel model = modelFile != null ? ModelFile.read(modelFile) : fromOptions
+                ? modelFromOptions(processGain, timeConstant, secondTimeConstant, integrating, deadTime) : null;
+        UltimatePoint point = fromPoint ? inOptionTerms(() -> new UltimatePoint(ultimateGain, ultimatePeriod)) : null;
+        ControllerSettings base = fromModel ? baseSettings(model) : null;
+        if (fromModel && TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()
+                > TuningEvaluation.MAX_SAMPLES) {
+            throw new InputException(String.format(Locale.ROOT, "the model's time constants, --dead-time and"
+                    + " --sample-period must keep the check by simulation within %d samples a run: %.3g s at"
+                    + " h = %s s would be %.3g", TuningEvaluation.MAX_SAMPLES, TuningEvaluation.runSeconds(model),
+                    base.samplePeriodSeconds(), TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()));
+        }
+        List<TuningResult> results = new ArrayList<>();
+        if (fromModel) {
+            for (ModelRule r : rule == null ? ModelRule.values() : new ModelRule[] {modelRule(rule)}) {
+                results.add(r.tune(model, controllerType, designTime));
             }
-            if (fromOptions && modelFile != null) {
-                throw new BadInput("--model-file excludes --process-gain, --time-constant, --second-time-constant,"
-                        + " --integrating and --dead-time: --model-file=" + modelFile);
+        } else {
+            for (UltimatePointRule r : rule == null ? UltimatePointRule.values()
+                    : new UltimatePointRule[] {ultimatePointRule(rule)}) {
+                results.add(r.tune(point, controllerType));
             }
-            if (fromPoint && (ultimateGain == null || ultimatePeriod == null)) {
-                throw new BadInput("an ultimate point needs both --ultimate-gain and --ultimate-period");
-            }
-            if (controllerOut != null && rule == null) {
-                throw new BadInput("--write-controller needs --rule: which rule's settings to write");
-            }
-            if (controllerOut != null && samplePeriod == null) {
-                throw new BadInput("--write-controller needs --sample-period: the controller's period is the device's"
-                        + " choice, not one to invent");
-            }
-            if (closedLoopTime != null && rule != null && !rule.equals("simc") && !rule.equals("lambda")) {
-                throw new BadInput("--closed-loop-time applies to the simc and lambda rules only: --rule=" + rule);
-            }
-            if (closedLoopTime != null && !(closedLoopTime > 0.0 && Double.isFinite(closedLoopTime))) {
-                throw new BadInput("--closed-loop-time must be finite and > 0 (omit it for the rule's default):"
-                        + " --closed-loop-time=" + closedLoopTime);
-            }
-            double designTime = closedLoopTime == null ? Double.NaN : closedLoopTime;
-            List<TuningCandidate> candidates = new ArrayList<>();
-            List<RuleNotApplicable> skipped = new ArrayList<>();
-            ProcessModel model;
-            UltimatePoint point;
-            try {
-                model = modelFile != null ? ModelFile.read(modelFile) : fromOptions
-                        ? modelFromOptions(processGain, timeConstant, secondTimeConstant, integrating, deadTime) : null;
-                point = fromPoint ? new UltimatePoint(ultimateGain, ultimatePeriod) : null;
-            } catch (InvalidSettingException e) {
-                throw new BadInput(inOptionTerms(e));
-            }
-            ControllerSettings base = fromModel ? baseSettings(model) : null;
-            if (fromModel && TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()
-                    > TuningEvaluation.MAX_SAMPLES) {
-                throw new BadInput(String.format(Locale.ROOT, "the model's time constants, --dead-time and"
-                        + " --sample-period must keep the check by simulation within %d samples a run: %.3g s at"
-                        + " h = %s s would be %.3g", TuningEvaluation.MAX_SAMPLES, TuningEvaluation.runSeconds(model),
-                        base.samplePeriodSeconds(), TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()));
-            }
-            List<TuningResult> results = new ArrayList<>();
-            if (fromModel) {
-                for (ModelRule r : rule == null ? ModelRule.values() : new ModelRule[] {modelRule(rule)}) {
-                    results.add(r.tune(model, controllerType, designTime));
-                }
+        }
+        for (TuningResult result : results) {
+            if (result instanceof TunedGains tuned) {
+                candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model, base, samplePeriod != null)
+                        : TuningEvaluation.withoutModel(tuned, samplePeriod != null ? samplePeriod
+                                : ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
             } else {
-                for (UltimatePointRule r : rule == null ? UltimatePointRule.values()
-                        : new UltimatePointRule[] {ultimatePointRule(rule)}) {
-                    results.add(r.tune(point, controllerType));
-                }
+                skipped.add((RuleNotApplicable) result);
             }
-            for (TuningResult result : results) {
-                if (result instanceof TunedGains tuned) {
-                    candidates.add(fromModel ? TuningEvaluation.onModel(tuned, model, base, samplePeriod != null)
-                            : TuningEvaluation.withoutModel(tuned, samplePeriod != null ? samplePeriod
-                                    : ultimatePeriod / SAMPLES_PER_ULTIMATE_PERIOD));
-                } else {
-                    skipped.add((RuleNotApplicable) result);
-                }
+        }
+        if (rule != null && candidates.isEmpty()) {
+            RuleNotApplicable why = skipped.get(0);
+            throw new InputException(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
+        }
+        if (controllerOut != null) {
+            if (candidates.get(0).stable().orElse(true) == Boolean.FALSE) {
+                throw new InputException("--write-controller: " + candidates.get(0).tuning().rule().label()
+                        + " makes the sampled loop UNSTABLE at --sample-period " + samplePeriod + "; no file written");
             }
-            if (rule != null && candidates.isEmpty()) {
-                RuleNotApplicable why = skipped.get(0);
-                throw new BadInput(why.rule().label() + " does not apply: " + why.reason() + " (" + why.citation() + ")");
+            write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
+        }
+        if (json) {
+            out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
+                    : TuningReport.json(candidates.get(0))));
+        } else {
+            out.println(fromModel
+                    ? "Model: " + describe(model) + " (sample period " + TuningReport.num(base.samplePeriodSeconds())
+                            + " s" + (samplePeriod == null ? ", a twentieth of the fastest of L and T," : "")
+                            + " in simulation)"
+                    : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
+                            + " or simulation; give K, T, L for those)");
+            if (rule == null) {
+                TuningReport.printTable(out, candidates, skipped);
+            } else {
+                TuningReport.printOne(out, candidates.get(0));
             }
             if (controllerOut != null) {
-                if (candidates.get(0).stable().orElse(true) == Boolean.FALSE) {
-                    throw new BadInput("--write-controller: " + candidates.get(0).tuning().rule().label()
-                            + " makes the sampled loop UNSTABLE at --sample-period " + samplePeriod + "; no file written");
-                }
-                write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
+                out.println("Wrote " + controllerOut);
             }
-            if (json) {
-                out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
-                        : TuningReport.json(candidates.get(0))));
-            } else {
-                out.println(fromModel
-                        ? "Model: " + describe(model) + " (sample period " + TuningReport.num(base.samplePeriodSeconds())
-                                + " s" + (samplePeriod == null ? ", a twentieth of the fastest of L and T," : "")
-                                + " in simulation)"
-                        : "Ultimate point: Ku=" + ultimateGain + ", Pu=" + ultimatePeriod + " s (no model: no margins"
-                                + " or simulation; give K, T, L for those)");
-                if (rule == null) {
-                    TuningReport.printTable(out, candidates, skipped);
-                } else {
-                    TuningReport.printOne(out, candidates.get(0));
-                }
-                if (controllerOut != null) {
-                    out.println("Wrote " + controllerOut);
-                }
-            }
-            out.flush();
-            return 0;
-        } catch (BadInput | InvalidSettingException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
         }
+        out.flush();
+        return 0;
     }
 
     /**
@@ -241,28 +230,24 @@ public final class TuneCommand implements Callable<Integer> {
      */
     static ProcessModel modelFromOptions(Double processGain, Double timeConstant, Double secondTimeConstant,
             boolean integrating, Double deadTime) {
-        try {
-            return modelOrInvalid(processGain, timeConstant, secondTimeConstant, integrating, deadTime);
-        } catch (InvalidSettingException e) {
-            throw new BadInput(inOptionTerms(e));
-        }
+        return inOptionTerms(() -> modelOrInvalid(processGain, timeConstant, secondTimeConstant, integrating, deadTime));
     }
 
     private static ProcessModel modelOrInvalid(Double processGain, Double timeConstant, Double secondTimeConstant,
             boolean integrating, Double deadTime) {
         if (processGain == null || deadTime == null) {
-            throw new BadInput("a model needs --process-gain and --dead-time"
+            throw new InputException("a model needs --process-gain and --dead-time"
                     + (integrating ? "" : ", and --time-constant"));
         }
         if (integrating) {
             if (secondTimeConstant != null) {
-                throw new BadInput("--integrating takes one lag (--time-constant), not --second-time-constant:"
+                throw new InputException("--integrating takes one lag (--time-constant), not --second-time-constant:"
                         + " --second-time-constant=" + secondTimeConstant);
             }
             return new IntegratingModel(processGain, timeConstant == null ? 0.0 : timeConstant, deadTime);
         }
         if (timeConstant == null) {
-            throw new BadInput("a self-regulating model needs --time-constant (or give --integrating)");
+            throw new InputException("a self-regulating model needs --time-constant (or give --integrating)");
         }
         return secondTimeConstant == null ? new FopdtModel(processGain, timeConstant, deadTime)
                 : new SopdtModel(processGain, timeConstant, secondTimeConstant, deadTime);
@@ -272,14 +257,14 @@ public final class TuneCommand implements Callable<Integer> {
     private ControllerSettings baseSettings(ProcessModel model) {
         double h = samplePeriod != null ? samplePeriod : TuningEvaluation.samplePeriodSeconds(model);
         if (!(h > 0.0 && Double.isFinite(h))) {
-            throw new BadInput(samplePeriod != null
+            throw new InputException(samplePeriod != null
                     ? "--sample-period must be finite and > 0: --sample-period=" + samplePeriod
                     : "a pure integrator without dead time has no time scale: give --sample-period");
         }
         double min = outputMin == null ? Double.NEGATIVE_INFINITY : outputMin;
         double max = outputMax == null ? Double.POSITIVE_INFINITY : outputMax;
         if (!(min < max) || Double.isNaN(min) || Double.isNaN(max)) {
-            throw new BadInput("--output-min must be < --output-max: --output-min=" + outputMin + ", --output-max="
+            throw new InputException("--output-min must be < --output-max: --output-min=" + outputMin + ", --output-max="
                     + outputMax);
         }
         return ControllerSettings.builder().gains(IdealGains.pi(1.0, 1.0)).samplePeriodSeconds(h)
@@ -301,14 +286,6 @@ public final class TuneCommand implements Callable<Integer> {
                 + " s" : "") + ", L=" + m.deadTimeSeconds() + " s";
     }
 
-    static ControllerType parseType(String text) {
-        return switch (text) {
-            case "pi" -> ControllerType.PI;
-            case "pid" -> ControllerType.PID;
-            default -> throw new BadInput("--type must be pi or pid: --type=" + text);
-        };
-    }
-
     /** The model rule named by {@code --rule} (ziegler-nichols is the step-response rule here). */
     static ModelRule modelRule(String label) {
         return rule(label, ModelRule.values(), " for a model");
@@ -326,7 +303,7 @@ public final class TuneCommand implements Callable<Integer> {
             }
         }
         String allowed = Arrays.stream(rules).map(TuningRule::label).collect(Collectors.joining(", "));
-        throw new BadInput("--rule must be one of " + allowed + what + ": --rule=" + label);
+        throw new InputException("--rule must be one of " + allowed + what + ": --rule=" + label);
     }
 
     /** The model's and the point's field names as the options the user typed. */
@@ -336,9 +313,9 @@ public final class TuneCommand implements Callable<Integer> {
             "ultimatePeriodSeconds", "--ultimate-period", "secondTimeConstantSeconds", "--second-time-constant",
             "lagSeconds", "--time-constant");
 
-    static String inOptionTerms(InvalidSettingException e) {
-        String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
-        return option + " " + e.rule() + ": " + option + "=" + e.value();
+    /** Builds a model or a point from option values; a value the model refuses is bad input named by its option. */
+    static <T> T inOptionTerms(Supplier<T> build) {
+        return OptionChecks.inOptionTerms(OPTION_OF_FIELD, build);
     }
 
     /** Writes a --write-controller file: staged beside it, then moved, so a failure leaves no half-written file. */
@@ -349,16 +326,7 @@ public final class TuneCommand implements Callable<Integer> {
                     StandardCharsets.UTF_8);
             stage.commit();
         } catch (IOException e) {
-            throw new BadInput(file + ": cannot be written (" + e + ")");
-        }
-    }
-
-    /** Bad input found by the command itself, reported on stderr with exit code 2. */
-    static final class BadInput extends InputException {
-        private static final long serialVersionUID = 1L;
-
-        BadInput(String message) {
-            super(message, null);
+            throw new InputException(file + ": cannot be written (" + e + ")");
         }
     }
 }

@@ -20,6 +20,15 @@ public class InputException extends RuntimeException {
     }
 
     /**
+     * An input error found by a command itself, such as two options that exclude each other.
+     *
+     * @param message what is wrong and what is allowed
+     */
+    public InputException(String message) {
+        super(message);
+    }
+
+    /**
      * A bad option value: {@code "--periods must each be finite and > 0: --periods=-1"}.
      *
      * @param option the option as typed, e.g. {@code --periods}

@@ -7,6 +7,7 @@ import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.PidGains;
 import org.loopwright.pid.tuning.IntegratingModel;
 import org.loopwright.sim.config.ControllerFile;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.YamlDocument;
 import org.loopwright.sim.scenario.PlantBlock;
 import org.loopwright.sim.scenario.Scenario;
@@ -78,7 +79,7 @@ public final class DesignExperiment {
     /**
      * The experiment for a model and a specification.
      *
-     * @throws IllegalArgumentException naming {@code --sample-period} when the runs would take more
+     * @throws InputException naming {@code --sample-period} when the runs would take more
      *                                  than {@value #MAX_SAMPLES} samples or the delay more than
      *                                  {@value #MAX_DELAY_PERIODS} periods, or when the model has no
      *                                  time scale (a pure integrator without dead time)
@@ -86,19 +87,19 @@ public final class DesignExperiment {
     public static DesignExperiment of(DesignModel model, DesignSpec spec) {
         double h = spec.samplePeriodSeconds();
         if (!(model.timeScaleSeconds() > 0.0)) {
-            throw new IllegalArgumentException("a pure integrator without dead time has no time scale to design for:"
+            throw new InputException("a pure integrator without dead time has no time scale to design for:"
                     + " --dead-time=0.0");
         }
         DesignExperiment e = new DesignExperiment(model, spec);
         double samples = e.durationSeconds / h;
         if (samples > MAX_SAMPLES) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "--sample-period is too short for the"
+            throw new InputException(String.format(Locale.ROOT, "--sample-period is too short for the"
                     + " model's time scale (%.4g s): each check would simulate %.0f samples, at most %d:"
                     + " --sample-period=%s", model.timeScaleSeconds(), samples, MAX_SAMPLES, h));
         }
         double delayPeriods = model.model().deadTimeSeconds() / h + spec.sensorDelaySamples();
         if (delayPeriods > MAX_DELAY_PERIODS) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "--sample-period is too short for the dead"
+            throw new InputException(String.format(Locale.ROOT, "--sample-period is too short for the dead"
                     + " time: L/h + sensor delay = %.4g periods, the sampled-loop analysis takes at most %d:"
                     + " --sample-period=%s", delayPeriods, MAX_DELAY_PERIODS, h));
         }

@@ -6,6 +6,7 @@ import java.util.Objects;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.discrete.IntegralMethod;
 import org.loopwright.pid.tuning.ControllerType;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.sweep.Spread;
 
 /**
@@ -40,34 +41,34 @@ public record DesignSpec(double samplePeriodSeconds, double outputMin, double ou
     /** Validates every value, naming its option. */
     public DesignSpec {
         if (!(samplePeriodSeconds > 0.0) || !Double.isFinite(samplePeriodSeconds)) {
-            throw new IllegalArgumentException("--sample-period must be finite and > 0: --sample-period="
+            throw new InputException("--sample-period must be finite and > 0: --sample-period="
                     + samplePeriodSeconds);
         }
         if (Double.isNaN(outputMin) || Double.isNaN(outputMax) || !(outputMin < outputMax)
                 || outputMin == Double.POSITIVE_INFINITY || outputMax == Double.NEGATIVE_INFINITY) {
-            throw new IllegalArgumentException("--output-min must be < --output-max: --output-min=" + outputMin
+            throw new InputException("--output-min must be < --output-max: --output-min=" + outputMin
                     + ", --output-max=" + outputMax);
         }
         if (!(outputSlewPerSecond > 0.0)) {
-            throw new IllegalArgumentException("--output-slew must be > 0: --output-slew=" + outputSlewPerSecond);
+            throw new InputException("--output-slew must be > 0: --output-slew=" + outputSlewPerSecond);
         }
         if (sensorDelaySamples < 0 || sensorDelaySamples > MAX_SENSOR_DELAY) {
-            throw new IllegalArgumentException("--sensor-delay-samples must be from 0 to " + MAX_SENSOR_DELAY
+            throw new InputException("--sensor-delay-samples must be from 0 to " + MAX_SENSOR_DELAY
                     + ": --sensor-delay-samples=" + sensorDelaySamples);
         }
         if (!(maxSensitivity > 1.0) || !Double.isFinite(maxSensitivity)) {
-            throw new IllegalArgumentException("--max-sensitivity must be finite and > 1: --max-sensitivity="
+            throw new InputException("--max-sensitivity must be finite and > 1: --max-sensitivity="
                     + maxSensitivity);
         }
         types = List.copyOf(types);
         if (types.isEmpty()) {
-            throw new IllegalArgumentException("--type must allow PI or PID: --type=none");
+            throw new InputException("--type must allow PI or PID: --type=none");
         }
         Objects.requireNonNull(integralMethod, "integralMethod");
         Objects.requireNonNull(derivativeMethod, "derivativeMethod");
         Objects.requireNonNull(spread, "spread");
         if (runs < 1 || runs > MAX_RUNS) {
-            throw new IllegalArgumentException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
+            throw new InputException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
         }
     }
 

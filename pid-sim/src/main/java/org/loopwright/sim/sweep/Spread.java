@@ -2,6 +2,8 @@ package org.loopwright.sim.sweep;
 
 import java.util.Locale;
 
+import org.loopwright.sim.config.InputException;
+
 /**
  * How far each plant parameter may stray from its nominal value, as fractions: a drawn plant's
  * parameter is the nominal one times a factor drawn uniformly from [1 − s, 1 + s], independently per
@@ -31,7 +33,7 @@ public record Spread(double gain, double timeConstant, double deadTime) {
 
     private static void check(String key, double fraction) {
         if (!(fraction >= 0.0 && fraction < 1.0)) {
-            throw new IllegalArgumentException("--spread " + key + " must be from 0% to below 100%: " + key + "="
+            throw new InputException("--spread " + key + " must be from 0% to below 100%: " + key + "="
                     + percent(fraction));
         }
     }
@@ -39,7 +41,7 @@ public record Spread(double gain, double timeConstant, double deadTime) {
     /**
      * Reads the text form {@code key=P%[,key=P%...]} with keys {@value #KEYS}.
      *
-     * @throws IllegalArgumentException naming the entry, the value and what is allowed
+     * @throws InputException naming the entry, the value and what is allowed
      */
     public static Spread parse(String text) {
         double[] fractions = {0.0, 0.0, 0.0};
@@ -48,7 +50,7 @@ public record Spread(double gain, double timeConstant, double deadTime) {
             String trimmed = entry.strip();
             int equals = trimmed.indexOf('=');
             if (equals < 0) {
-                throw new IllegalArgumentException("--spread entries must be key=P% with key " + KEYS
+                throw new InputException("--spread entries must be key=P% with key " + KEYS
                         + ": --spread=" + text);
             }
             String key = trimmed.substring(0, equals).strip();
@@ -57,10 +59,10 @@ public record Spread(double gain, double timeConstant, double deadTime) {
                 case "gain" -> 0;
                 case "time-constant" -> 1;
                 case "dead-time" -> 2;
-                default -> throw new IllegalArgumentException("--spread key must be " + KEYS + ": --spread=" + text);
+                default -> throw new InputException("--spread key must be " + KEYS + ": --spread=" + text);
             };
             if (seen[index]) {
-                throw new IllegalArgumentException("--spread must name " + key + " once: --spread=" + text);
+                throw new InputException("--spread must name " + key + " once: --spread=" + text);
             }
             seen[index] = true;
             fractions[index] = fraction(key, value);
@@ -77,7 +79,7 @@ public record Spread(double gain, double timeConstant, double deadTime) {
             percent = Double.NaN;
         }
         if (!(percent >= 0.0 && percent < 100.0)) {
-            throw new IllegalArgumentException("--spread " + key + " must be a percentage from 0% to below 100%: "
+            throw new InputException("--spread " + key + " must be a percentage from 0% to below 100%: "
                     + key + "=" + value);
         }
         return percent / 100.0;

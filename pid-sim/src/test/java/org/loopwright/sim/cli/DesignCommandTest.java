@@ -174,7 +174,7 @@ class DesignCommandTest {
                 Arguments.of(new String[] {"design", "--plant", tank.toString(), "--sample-period", "0.1", "--out",
                         out}, tank + ": design needs a linear plant (fopdt, sopdt, integrating): plant.type=tank"),
                 Arguments.of(new String[] {"design", "--process-gain", "2", "--time-constant", "5", "--dead-time", "1",
-                        "--sample-period", "0.1", "--type", "pd", "--out", out}, "--type must be pi, pid or auto:"
+                        "--sample-period", "0.1", "--type", "pd", "--out", out}, "--type must be one of auto, pi, pid:"
                                 + " --type=pd"),
                 Arguments.of(new String[] {"design", "--process-gain", "2", "--time-constant", "5", "--dead-time", "1",
                         "--sample-period", "0.1", "--integral-method", "simpson", "--out", out},

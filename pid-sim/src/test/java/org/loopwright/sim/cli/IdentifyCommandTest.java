@@ -109,6 +109,6 @@ class IdentifyCommandTest {
                 + " (a step test needs one step in the input)");
         CommandRun wrongModel = CommandRun.of("identify", file.toString(), "--model", "arx");
         assertThat(wrongModel.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
-        assertThat(wrongModel.err()).startsWith("Invalid value for option '--model': must be one of fopdt, sopdt: arx");
+        assertThat(wrongModel.err()).startsWith("--model must be one of fopdt, sopdt: --model=arx");
     }
 }

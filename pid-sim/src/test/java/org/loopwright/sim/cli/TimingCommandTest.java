@@ -71,7 +71,7 @@ class TimingCommandTest {
                 Arguments.of(new String[] {"timing", "--rate", "0"},
                         "--rate must be > 0 and at most 100000 Hz: --rate=0.0"),
                 Arguments.of(new String[] {"timing", "--rate", "1000", "--wait", "hybrid"},
-                        "--wait must be park, spin or park-then-spin: --wait=hybrid"),
+                        "--wait must be one of park, spin, park-then-spin: --wait=hybrid"),
                 Arguments.of(new String[] {"timing", "--rate", "1000", "--seconds", "0.1"},
                         "--seconds must be between 0.5 and 600.0: --seconds=0.1"),
                 Arguments.of(new String[] {"timing", "--rate", "1", "--seconds", "50"},

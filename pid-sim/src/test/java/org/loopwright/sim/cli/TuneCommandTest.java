@@ -205,7 +205,7 @@ class TuneCommandTest {
                 Arguments.of(new String[] {"tune", "--ultimate-gain", "2"},
                         "an ultimate point needs both --ultimate-gain and --ultimate-period"),
                 Arguments.of(new String[] {"tune", "--ultimate-gain", "2", "--ultimate-period", "3", "--type", "pd"},
-                        "--type must be pi or pid: --type=pd"),
+                        "--type must be one of pi, pid: --type=pd"),
                 Arguments.of(new String[] {"tune", "--ultimate-gain", "2", "--ultimate-period", "3", "--rule", "simc"},
                         "--rule must be one of ziegler-nichols, tyreus-luyben for an ultimate point: --rule=simc"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "1", "--dead-time", "3",

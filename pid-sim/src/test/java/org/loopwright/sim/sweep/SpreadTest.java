@@ -9,6 +9,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.loopwright.sim.config.InputException;
 
 class SpreadTest {
 
@@ -39,7 +40,7 @@ class SpreadTest {
     @ParameterizedTest
     @MethodSource("badSpreads")
     void badSpreadNamesTheEntryAndWhatIsAllowed(String text, String message) {
-        assertThatThrownBy(() -> Spread.parse(text)).isInstanceOf(IllegalArgumentException.class)
+        assertThatThrownBy(() -> Spread.parse(text)).isInstanceOf(InputException.class)
                 .hasMessage(message);
     }
 }
