@@ -10,7 +10,8 @@ import org.loopwright.sim.simulate.SampleRecorder;
 
 /**
  * What a sweep run keeps as it goes, instead of its trajectory: its response figures
- * ({@link ResponseAccumulator}) and its measurement thinned to about {@value Sweep#PLOT_POINTS} points (every n-th sample and the last) for
+ * ({@link ResponseAccumulator}), the {@link SustainedOscillation} check when the run is judged by simulation,
+ * and its measurement thinned to about {@value Sweep#PLOT_POINTS} points (every n-th sample and the last) for
  * the plot. Sized once for the scenario's sample count and reused run after run.
  *
  * <p>Not thread-safe: one thread's loop feeds it. {@link #record} allocates nothing.
@@ -21,6 +22,7 @@ final class RunRecorder implements SampleRecorder {
     private final int stride;
     private final double[] plotTimes;
     private final double[] plotMeasurements;
+    private SustainedOscillation oscillation;
     private int samples;
     private int kept;
     private double lastTime;
@@ -36,10 +38,18 @@ final class RunRecorder implements SampleRecorder {
         plotMeasurements = new double[plotTimes.length];
     }
 
+    /** Has this run's process error fed to {@code check} too, until the next {@link #clear()}. */
+    void watch(SustainedOscillation check) {
+        oscillation = check;
+    }
+
     @Override
     public void record(double t, double r, double y, double u, double d, double process, double delivered,
             boolean limited) {
         metrics.sample(t, r, process, u, limited);
+        if (oscillation != null) {
+            oscillation.sample(t, r - process);
+        }
         if (samples % stride == 0) {
             plotTimes[kept] = t;
             plotMeasurements[kept] = y;
@@ -58,6 +68,7 @@ final class RunRecorder implements SampleRecorder {
     @Override
     public void clear() {
         metrics.clear();
+        oscillation = null;
         samples = 0;
         kept = 0;
         diverged = false;

@@ -1,7 +1,6 @@
 package org.loopwright.sim.sweep;
 
 import org.loopwright.sim.plant.PlantModel;
-import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.ClosedLoop;
 
@@ -25,7 +24,9 @@ public final class SweepRunner {
     // the run in progress
     private int index;
     private PlantDraw draw;
-    private TransferFunction plant;
+    private PlantModel plant;
+    private Scenario drawn;
+    private SustainedOscillation oscillation;
 
     SweepRunner(Sweep sweep, Scenario scenario) {
         this.sweep = sweep;
@@ -49,7 +50,11 @@ public final class SweepRunner {
         index = runIndex;
         draw = runIndex == Sweep.NOMINAL_INDEX ? PlantDraw.NOMINAL : sweep.draw(runIndex);
         plant = sweep.plant(draw);
+        drawn = sweep.scenario().withPlant(plant);
         loop.rewind(plant);
+        // a nonlinear plant has no poles to ask: the oscillation check watches the run as it goes
+        oscillation = StabilityBasis.of(drawn) == StabilityBasis.POLES ? null : SustainedOscillation.of(drawn);
+        recorder.watch(oscillation);
     }
 
     /** One sample of the run in progress; false at its end. */
@@ -59,11 +64,22 @@ public final class SweepRunner {
 
     /** The result of the run in progress, its stability judged. */
     SweepRun end() {
-        double poleMagnitude = Sweep.largestPoleMagnitude(sweep.scenario().withPlant(plant));
-        LoopStability stability = recorder.diverged() ? LoopStability.DIVERGED
-                : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
-                : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
-        return new SweepRun(index, draw, plant, recorder.metrics(), stability, poleMagnitude, recorder.plotTimes(),
-                recorder.plotMeasurements());
+        double poleMagnitude = Double.NaN;
+        double decayRatio = Double.NaN;
+        LoopStability stability;
+        if (oscillation == null) {
+            poleMagnitude = Sweep.largestPoleMagnitude(drawn);
+            stability = recorder.diverged() ? LoopStability.DIVERGED
+                    : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
+                    : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
+        } else {
+            decayRatio = oscillation.decayRatio();
+            // an on-off loop cycles by design: its cycling is not instability
+            stability = recorder.diverged() ? LoopStability.DIVERGED
+                    : drawn.onOffController().isPresent() ? LoopStability.NOT_ASSESSED
+                    : oscillation.sustained() ? LoopStability.OSCILLATING : LoopStability.STABLE;
+        }
+        return new SweepRun(index, draw, plant, recorder.metrics(), stability, poleMagnitude, decayRatio,
+                recorder.plotTimes(), recorder.plotMeasurements());
     }
 }
