@@ -9,8 +9,6 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
-
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.RelayStatus;
@@ -20,6 +18,7 @@ import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.tuning.RelaySimulation;
@@ -128,28 +127,39 @@ public final class AutotuneCommand implements Callable<Integer> {
             TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
         }
         if (json) {
-            ObjectNode node = Json.object();
-            Json.number(node, "ultimate_gain", relay.ultimateGain());
-            Json.number(node, "ultimate_period", relay.ultimatePeriodSeconds());
-            Json.number(node, "oscillation_amplitude", relay.amplitude());
-            node.put("cycles", relay.cycles());
-            Json.number(node, "setpoint", relay.settings().setpoint());
-            Json.number(node, "bias", relay.settings().bias());
-            Json.number(node, "relay_amplitude", relay.settings().relayAmplitude());
-            Json.number(node, "hysteresis", relay.settings().hysteresis());
-            relay.warnings().forEach(node.putArray("warnings")::add);
-            node.set("suggestions", TuningReport.json(suggestions));
-            out.println(Json.pretty(node));
+            out.println(JsonOutput.text(new AutotuneJson(relay.ultimateGain(), relay.ultimatePeriodSeconds(),
+                    relay.amplitude(), relay.cycles(), relay.settings().setpoint(), relay.settings().bias(),
+                    relay.settings().relayAmplitude(), relay.settings().hysteresis(), relay.warnings(),
+                    TuningReport.json(suggestions))));
         } else {
             RelaySimulationText.print(out, relay);
             TuningReport.printTable(out, suggestions, List.of());
             if (controllerOut != null) {
                 out.println("Wrote " + controllerOut + " (" + written.label() + ", "
-                        + writtenType.name().toLowerCase(Locale.ROOT) + ")");
+                        + OptionWords.CONTROLLER_TYPES.word(writtenType) + ")");
             }
         }
         out.flush();
         return 0;
+    }
+
+    /**
+     * The relay experiment and the suggestions as JSON.
+     *
+     * @param ultimateGain         Ku from the relay's describing function
+     * @param ultimatePeriod       Pu, s
+     * @param oscillationAmplitude the process variable's oscillation amplitude
+     * @param cycles               the cycles measured
+     * @param setpoint             the relay's setpoint
+     * @param bias                 the relay's output bias
+     * @param relayAmplitude       the relay's output amplitude
+     * @param hysteresis           the relay's hysteresis
+     * @param warnings             what limits the result, in words
+     * @param suggestions          each rule's settings, checked on the scenario
+     */
+    record AutotuneJson(double ultimateGain, double ultimatePeriod, double oscillationAmplitude, int cycles,
+            double setpoint, double bias, double relayAmplitude, double hysteresis, List<String> warnings,
+            List<TuningReport.CandidateJson> suggestions) {
     }
 
     private static double orNaN(Double value) {

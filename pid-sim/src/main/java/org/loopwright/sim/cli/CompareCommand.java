@@ -1,5 +1,7 @@
 package org.loopwright.sim.cli;
 
+import static java.util.Map.entry;
+
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -13,10 +15,12 @@ import java.util.stream.Collectors;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.report.HtmlReport;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.report.NumberText;
 import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.study.DiscretisationStudy;
@@ -25,9 +29,6 @@ import org.loopwright.sim.study.StudyPlots;
 import org.loopwright.sim.study.StudyResult;
 import org.loopwright.sim.study.StudyRow;
 import org.loopwright.sim.study.StudyTable;
-
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -81,7 +82,7 @@ public final class CompareCommand implements Callable<Integer> {
         StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
         boolean json = output.json();
         if (json) {
-            out.println(Json.pretty(rows(result)));
+            out.println(JsonOutput.text(result.rows().stream().map(RowJson::of).toList()));
         } else {
             table(out, result, periods == null, loop.scenario().units());
         }
@@ -106,34 +107,47 @@ public final class CompareCommand implements Callable<Integer> {
         return 0;
     }
 
-    private static ArrayNode rows(StudyResult result) {
-        ArrayNode array = Json.array();
-        for (StudyRow row : result.rows()) {
-            ObjectNode node = array.addObject();
-            node.put("kind", row.kind().name().toLowerCase(Locale.ROOT));
-            node.put("integral_method", row.integralMethod() == null ? null
-                    : ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()));
-            node.put("derivative_method", row.derivativeMethod() == null ? null
-                    : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()));
-            Json.number(node, "sample_period", row.samplePeriodSeconds());
-            Json.number(node, "phase_margin_deg", row.phaseMarginDegrees());
-            Json.number(node, "gain_margin", row.gainMargin());
-            Json.number(node, "ms", row.ms());
-            if (row.stable() == null) {
-                node.putNull("stable");
-            } else {
-                node.put("stable", row.stable());
-            }
-            Json.number(node, "overshoot_percent", row.overshootPercent());
-            Json.number(node, "iae", row.iae());
-            Json.number(node, "load_iae", row.loadIae());
-            Json.number(node, "magnitude_error_db", row.magnitudeErrorDb());
-            Json.number(node, "phase_error_deg", row.phaseErrorDegrees());
-            Json.number(node, "crossover_times_period", row.crossoverTimesPeriod());
-            node.put("sampling_verdict", row.verdict() == null ? null : row.verdict().name().toLowerCase(Locale.ROOT));
-            node.put("note", row.note());
+    /** The row kinds as JSON writes them. */
+    private static final Keywords<StudyRow.Kind> KINDS = Keywords.of(entry("continuous", StudyRow.Kind.CONTINUOUS),
+            entry("sampled", StudyRow.Kind.SAMPLED), entry("not-applicable", StudyRow.Kind.NOT_APPLICABLE));
+
+    /** The sampling verdicts as JSON writes them. */
+    private static final Keywords<SamplingVerdict> VERDICTS = Keywords.of(entry("fine", SamplingVerdict.FINE),
+            entry("typical", SamplingVerdict.TYPICAL), entry("coarse", SamplingVerdict.COARSE));
+
+    /**
+     * One row of the study as JSON (snake_case keys, null for a figure that does not apply).
+     *
+     * @param kind                 continuous, sampled or not-applicable
+     * @param integralMethod       the controller file's word, null for the continuous row
+     * @param derivativeMethod     the controller file's word, null for the continuous row
+     * @param samplePeriod         h, s
+     * @param phaseMarginDeg       phase margin, degrees
+     * @param gainMargin           gain margin
+     * @param ms                   sensitivity peak
+     * @param stable               whether the sampled loop is stable, null where not decided
+     * @param overshootPercent     set-point step overshoot, %
+     * @param iae                  set-point step IAE
+     * @param loadIae              load step IAE
+     * @param magnitudeErrorDb     the controller's magnitude error at crossover against the continuous one, dB
+     * @param phaseErrorDeg        its phase error there, degrees
+     * @param crossoverTimesPeriod omega_c times h
+     * @param samplingVerdict      fine, typical or coarse; null for the continuous row
+     * @param note                 why a row does not apply, or null
+     */
+    record RowJson(String kind, String integralMethod, String derivativeMethod, double samplePeriod,
+            double phaseMarginDeg, double gainMargin, double ms, Boolean stable, double overshootPercent, double iae,
+            double loadIae, double magnitudeErrorDb, double phaseErrorDeg, double crossoverTimesPeriod,
+            String samplingVerdict, String note) {
+
+        static RowJson of(StudyRow row) {
+            return new RowJson(KINDS.word(row.kind()), row.integralMethod() == null ? null
+                    : ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()), row.derivativeMethod() == null ? null
+                    : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()), row.samplePeriodSeconds(),
+                    row.phaseMarginDegrees(), row.gainMargin(), row.ms(), row.stable(), row.overshootPercent(),
+                    row.iae(), row.loadIae(), row.magnitudeErrorDb(), row.phaseErrorDegrees(),
+                    row.crossoverTimesPeriod(), row.verdict() == null ? null : VERDICTS.word(row.verdict()), row.note());
         }
-        return array;
     }
 
     /** Each period finite and positive, and the study's work at it within its stated limits. */

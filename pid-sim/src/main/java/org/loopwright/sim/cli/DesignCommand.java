@@ -34,6 +34,7 @@ import org.loopwright.sim.identify.StepTest;
 import org.loopwright.sim.identify.StepTestFile;
 import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.report.ReportRecord;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.sweep.Spread;
@@ -179,7 +180,7 @@ public final class DesignCommand implements Callable<Integer> {
             stage.commit();
         }
         if (json) {
-            out.println(Json.pretty(DesignFiles.json(result, files)));
+            out.println(JsonOutput.text(DesignFiles.json(result, files)));
         } else {
             DesignFiles.printText(out, result, files, outDirectory);
         }
@@ -233,8 +234,9 @@ public final class DesignCommand implements Callable<Integer> {
                     Optional.of(first), "fopdt: the second-order fit did not converge");
         }
         double gain = 1.0 - second.rmse() / first.rmse();
-        String figures = String.format(Locale.ROOT, "RMSE %.4g against %.4g for fopdt, %.0f %% lower",
-                second.rmse(), first.rmse(), 100.0 * gain);
+        // whole percent, as a long: a sopdt fit no better than fopdt's reads "0 % lower", never "-0 %"
+        String figures = String.format(Locale.ROOT, "RMSE %.4g against %.4g for fopdt, %d %% lower",
+                second.rmse(), first.rmse(), Math.round(100.0 * gain));
         if (gain >= SOPDT_RMSE_GAIN) {
             return new DesignModel(second.processModel(), "step-test", Optional.of(test),
                     Optional.of(second), "sopdt kept: " + figures + " (at least "

@@ -9,21 +9,19 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.function.Function;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
+import com.fasterxml.jackson.databind.JsonNode;
 
-import org.apache.commons.csv.CSVFormat;
-import org.apache.commons.csv.CSVPrinter;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.design.Candidate;
 import org.loopwright.sim.design.DesignExperiment;
 import org.loopwright.sim.design.DesignModel;
 import org.loopwright.sim.design.DesignResult;
 import org.loopwright.sim.design.DesignSpec;
-import org.loopwright.sim.design.DiscretisationCheck;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.report.ReportRecord;
+import org.loopwright.sim.report.ResultTable;
+import org.loopwright.sim.report.ResultTable.Column;
 
 /**
  * The outputs of {@code design}: the candidate columns (one list for the text table, the CSV, the JSON
@@ -37,38 +35,48 @@ final class DesignFiles {
     static final String CANDIDATES = "candidates.csv";
     static final String JSON = "design.json";
 
-    /**
-     * One column of the candidate table.
-     *
-     * @param key     the JSON key and CSV header
-     * @param heading the text and report heading
-     * @param value   the cell: a String, a Boolean or a Double (NaN and infinities become null)
-     */
-    record Column(String key, String heading, Function<Candidate, Object> value) {
-    }
+    /** The candidate table's caption. */
+    static final String CAPTION = "Candidates (margins of the sampled loop; n/a: not applicable or not simulated)";
 
-    /** Every candidate column, in order. Margins are those of the sampled loop. */
-    static final List<Column> COLUMNS = List.of(
-            new Column("name", "candidate", Candidate::name),
-            new Column("rule", "rule", Candidate::rule),
-            new Column("type", "type", c -> c.type().name().toLowerCase(Locale.ROOT)),
-            new Column("gain", "Kc", c -> c.gains().gain()),
-            new Column("integral_time", "Ti [s]", c -> c.gains().integralTime()),
-            new Column("derivative_time", "Td [s]", c -> c.gains().derivativeTime()),
-            new Column("gain_margin", "sampled GM", Candidate::gainMargin),
-            new Column("phase_margin_deg", "sampled PM [deg]", Candidate::phaseMarginDegrees),
-            new Column("ms", "sampled Ms", Candidate::ms),
-            new Column("mt", "sampled Mt", Candidate::mt),
-            new Column("delay_margin", "delay margin [s]", Candidate::delayMarginSeconds),
-            new Column("stable", "stable", Candidate::stable),
-            new Column("overshoot_pct", "overshoot [%]", Candidate::overshootPercent),
-            new Column("settling_time", "settling [s]", Candidate::settlingTimeSeconds),
-            new Column("load_iae", "load IAE", Candidate::loadIae),
-            new Column("total_variation", "output TV", Candidate::totalVariation),
-            new Column("sweep_unstable_share", "sweep unstable", Candidate::sweepUnstableShare),
-            new Column("sweep_p90_overshoot_pct", "sweep p90 overshoot [%]", Candidate::sweepP90OvershootPercent),
-            new Column("meets_constraints", "meets", Candidate::meetsConstraints),
-            new Column("note", "note", c -> join(c.shortfall(), c.note())));
+    /**
+     * The candidate table, one declaration for the text table, the report, {@code candidates.csv} and
+     * {@code design.json}; margins are those of the sampled loop.
+     *
+     * @param result the design
+     * @param words  whether to add the note and source columns (the text and the report give them apart)
+     * @return the table
+     */
+    static ResultTable candidates(DesignResult result, boolean words) {
+        List<Column> columns = new ArrayList<>(List.of(Column.text("name", "candidate"), Column.text("rule", "rule"),
+                Column.text("type", "type"), Column.number("gain", "Kc", "", 4),
+                Column.number("integral_time", "Ti", "s", 4), Column.number("derivative_time", "Td", "s", 4),
+                Column.number("gain_margin", "GM", "", 4), Column.number("phase_margin_deg", "PM", "deg", 4),
+                Column.number("ms", "Ms", "", 4), Column.number("mt", "Mt", "", 4),
+                Column.number("delay_margin", "delay margin", "s", 4), Column.text("stable", "stable"),
+                Column.number("overshoot_pct", "overshoot", "%", 4), Column.number("settling_time", "settling", "s", 4),
+                Column.number("load_iae", "load IAE", "", 4), Column.number("total_variation", "output TV", "", 4),
+                Column.number("sweep_unstable_share", "sweep unstable", "", 4),
+                Column.number("sweep_p90_overshoot_pct", "sweep p90 overshoot", "%", 4),
+                Column.text("meets_constraints", "meets")));
+        if (words) {
+            columns.add(Column.text("note", "note"));
+            columns.add(Column.text("source", "source"));
+        }
+        ResultTable table = ResultTable.of(CAPTION, columns.toArray(Column[]::new));
+        for (Candidate c : result.candidates()) {
+            List<Object> row = new ArrayList<>(List.of(c.name(), c.rule(), OptionWords.CONTROLLER_TYPES.word(c.type()),
+                    c.gains().gain(), c.gains().integralTime(), c.gains().derivativeTime(), c.gainMargin(),
+                    c.phaseMarginDegrees(), c.ms(), c.mt(), c.delayMarginSeconds(), c.stable(), c.overshootPercent(),
+                    c.settlingTimeSeconds(), c.loadIae(), c.totalVariation(), c.sweepUnstableShare(),
+                    c.sweepP90OvershootPercent(), c.meetsConstraints()));
+            if (words) {
+                row.add(join(c.shortfall(), c.note()));
+                row.add(c.source());
+            }
+            table.row(row.toArray());
+        }
+        return table;
+    }
 
     private DesignFiles() {
     }
@@ -91,95 +99,75 @@ final class DesignFiles {
             files.add(SCENARIO);
         }
         try (Writer out = Files.newBufferedWriter(directory.resolve(CANDIDATES), StandardCharsets.UTF_8)) {
-            CSVPrinter csv = CSVFormat.DEFAULT.builder().setHeader(COLUMNS.stream().map(Column::key)
-                    .toArray(String[]::new)).setRecordSeparator('\n').get().print(out);
-            for (Candidate c : result.candidates()) {
-                List<String> row = new ArrayList<>();
-                for (Column column : COLUMNS) {
-                    Object v = column.value().apply(c);
-                    row.add(v instanceof Double d ? (Double.isFinite(d) ? Double.toString(d) : "") : String.valueOf(v));
-                }
-                csv.printRecord(row);
-            }
-            csv.flush();
+            candidates(result, true).csv(out);
         }
         files.add(CANDIDATES);
         files.add(JSON);
         files.add(org.loopwright.sim.report.HtmlReport.FILE_NAME);
-        Files.writeString(directory.resolve(JSON), Json.pretty(json(result, files)) + "\n", StandardCharsets.UTF_8);
+        Files.writeString(directory.resolve(JSON), JsonOutput.text(json(result, files)) + "\n", StandardCharsets.UTF_8);
         DesignReport.write(result, directory, record);
         return files;
     }
 
-    /** design.json. */
-    static ObjectNode json(DesignResult result, List<String> files) {
-        ObjectNode root = Json.object();
+    /**
+     * design.json (snake_case keys, null for a figure that does not exist or apply).
+     *
+     * @param model               the model designed for
+     * @param samplePeriod        h, s
+     * @param maxSensitivity      the limit on the sampled loop's Ms
+     * @param sensorDelaySamples  whole samples of measurement delay
+     * @param outputMin           lower output limit (null: none)
+     * @param outputMax           upper output limit (null: none)
+     * @param outputSlew          output slew limit per second (null: none)
+     * @param integralMethod      the controller file's word
+     * @param derivativeMethod    the controller file's word
+     * @param experiment          the simulated steps and the sweep
+     * @param candidates          the candidate table's rows
+     * @param notApplicable       the rules that do not apply, with why
+     * @param recommended         the recommended candidate's name, or null
+     * @param verdict             the verdict's word
+     * @param discretisationCheck the recommended gains with each discretisation method
+     * @param files               the files written
+     */
+    record DesignJson(ModelJson model, double samplePeriod, double maxSensitivity, int sensorDelaySamples,
+            double outputMin, double outputMax, double outputSlew, String integralMethod, String derivativeMethod,
+            ExperimentJson experiment, JsonNode candidates, List<String> notApplicable, String recommended,
+            String verdict, List<CheckJson> discretisationCheck, List<String> files) {
+    }
+
+    /** The model: its type, K, T, T2 and L in s, the fit's RMSE and R² (null without a fit), where it came from. */
+    record ModelJson(String type, double gain, double timeConstant, double secondTimeConstant, double deadTime,
+            double rmse, double rSquared, String source, String choice) {
+    }
+
+    /** The simulated steps (seconds, output units) and the robustness sweep. */
+    record ExperimentJson(double operatingOutput, double setpointStep, double loadStep, double loadAt, double duration,
+            String spread, int runs, long seed) {
+    }
+
+    /** One discretisation method pair with the recommended gains. */
+    record CheckJson(String integralMethod, String derivativeMethod, boolean chosen, double phaseMarginDeg, double ms,
+            boolean stable, String note) {
+    }
+
+    /** design.json's record. */
+    static DesignJson json(DesignResult result, List<String> files) {
         DesignModel m = result.model();
-        ObjectNode model = root.putObject("model");
-        model.put("type", m.type());
-        Json.number(model, "gain", m.model().processGain());
-        Json.number(model, "time_constant", m.timeConstantSeconds());
-        Json.number(model, "second_time_constant", m.secondTimeConstantSeconds());
-        Json.number(model, "dead_time", m.model().deadTimeSeconds());
-        Json.number(model, "rmse", m.rmse());
-        Json.number(model, "r_squared", m.rSquared());
-        model.put("source", m.source());
-        model.put("choice", m.choice());
         DesignSpec s = result.spec();
-        Json.number(root, "sample_period", s.samplePeriodSeconds());
-        Json.number(root, "max_sensitivity", s.maxSensitivity());
-        root.put("sensor_delay_samples", s.sensorDelaySamples());
-        Json.number(root, "output_min", s.outputMin());
-        Json.number(root, "output_max", s.outputMax());
-        Json.number(root, "output_slew", s.outputSlewPerSecond());
-        root.put("integral_method", ControllerFile.INTEGRAL_METHODS.word(s.integralMethod()));
-        root.put("derivative_method", ControllerFile.DERIVATIVE_METHODS.word(s.derivativeMethod()));
         DesignExperiment e = result.experiment();
-        ObjectNode experiment = root.putObject("experiment");
-        Json.number(experiment, "operating_output", e.operatingOutput());
-        Json.number(experiment, "setpoint_step", e.setpointStep());
-        Json.number(experiment, "load_step", e.loadStep());
-        Json.number(experiment, "load_at", e.loadAtSeconds());
-        Json.number(experiment, "duration", e.durationSeconds());
-        experiment.put("spread", s.spread().text());
-        experiment.put("runs", s.runs());
-        experiment.put("seed", s.seed());
-        ArrayNode candidates = root.putArray("candidates");
-        for (Candidate c : result.candidates()) {
-            ObjectNode node = candidates.addObject();
-            for (Column column : COLUMNS) {
-                Object v = column.value().apply(c);
-                if (v instanceof Double d) {
-                    Json.number(node, column.key(), d);
-                } else if (v instanceof Boolean b) {
-                    node.put(column.key(), b);
-                } else {
-                    node.put(column.key(), String.valueOf(v));
-                }
-            }
-            node.put("source", c.source());
-        }
-        result.notApplicable().forEach(root.putArray("not_applicable")::add);
-        if (result.recommended().isPresent()) {
-            root.put("recommended", result.recommended().get().name());
-        } else {
-            root.putNull("recommended");
-        }
-        root.put("verdict", result.verdict());
-        ArrayNode check = root.putArray("discretisation_check");
-        for (DiscretisationCheck row : result.discretisation()) {
-            ObjectNode node = check.addObject();
-            node.put("integral_method", ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()));
-            node.put("derivative_method", row.derivativeMethod() == null ? null
-                    : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()));
-            node.put("chosen", row.chosen());
-            Json.number(node, "phase_margin_deg", row.phaseMarginDegrees());
-            Json.number(node, "ms", row.ms());
-            node.put("stable", row.stable());
-            node.put("note", row.note());
-        }
-        files.forEach(root.putArray("files")::add);
-        return root;
+        return new DesignJson(new ModelJson(m.type(), m.model().processGain(), m.timeConstantSeconds(),
+                m.secondTimeConstantSeconds(), m.model().deadTimeSeconds(), m.rmse(), m.rSquared(), m.source(),
+                m.choice()), s.samplePeriodSeconds(), s.maxSensitivity(), s.sensorDelaySamples(), s.outputMin(),
+                s.outputMax(), s.outputSlewPerSecond(), ControllerFile.INTEGRAL_METHODS.word(s.integralMethod()),
+                ControllerFile.DERIVATIVE_METHODS.word(s.derivativeMethod()),
+                new ExperimentJson(e.operatingOutput(), e.setpointStep(), e.loadStep(), e.loadAtSeconds(),
+                        e.durationSeconds(), s.spread().text(), s.runs(), s.seed()),
+                candidates(result, true).json(), result.notApplicable(),
+                result.recommended().map(Candidate::name).orElse(null), result.verdict(),
+                result.discretisation().stream().map(row -> new CheckJson(
+                        ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()), row.derivativeMethod() == null
+                                ? null : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()), row.chosen(),
+                        row.phaseMarginDegrees(), row.ms(), row.stable(), row.note())).toList(), files);
     }
 
     /** The text output: the model, the candidate table, the recommendation, the files. */
@@ -201,18 +189,7 @@ final class DesignFiles {
                 + " load step %.4g at %.4g s, run %.4g s (around the output %s); sweep of %d plants (%s, seed %d)",
                 e.setpointStep(), e.loadStep(), e.loadAtSeconds(), e.durationSeconds(), e.operatingOutput(),
                 s.runs(), s.spread().text(), s.seed()));
-        List<Column> shown = COLUMNS.subList(0, COLUMNS.size() - 1);
-        StringBuilder format = new StringBuilder();
-        for (Column c : shown) {
-            format.append(c.key().equals("name") ? "%-24s " : c.key().equals("rule") ? "%-17s " : "%-" + Math.max(
-                    c.heading().length(), 7) + "s ");
-        }
-        format.setLength(format.length() - 1);
-        format.append("%n");
-        out.printf(Locale.ROOT, format.toString(), shown.stream().map(Column::heading).toArray());
-        for (Candidate c : result.candidates()) {
-            out.printf(Locale.ROOT, format.toString(), shown.stream().map(col -> cell(col.value().apply(c))).toArray());
-        }
+        out.print(candidates(result, false).text());
         for (Candidate c : result.candidates()) {
             String why = join(c.shortfall(), c.note());
             if (!why.isEmpty()) {
@@ -245,16 +222,6 @@ final class DesignFiles {
     /** An output limit in words: the number, or "none". */
     static String limit(double value) {
         return Double.isFinite(value) ? String.valueOf(value) : "none";
-    }
-
-    static String cell(Object value) {
-        if (value instanceof Double d) {
-            return Double.isNaN(d) ? "-" : Double.isInfinite(d) ? "inf" : String.format(Locale.ROOT, "%.4g", d);
-        }
-        if (value instanceof Boolean b) {
-            return b ? "yes" : "NO";
-        }
-        return String.valueOf(value);
     }
 
     static String join(String a, String b) {

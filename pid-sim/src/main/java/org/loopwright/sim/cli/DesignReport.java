@@ -15,7 +15,10 @@ import org.loopwright.sim.design.DesignSpec;
 import org.loopwright.sim.design.DiscretisationCheck;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.report.NumberText;
 import org.loopwright.sim.report.ReportRecord;
+import org.loopwright.sim.report.ResultTable;
+import org.loopwright.sim.report.ResultTable.Column;
 
 /**
  * The design's {@code report.html} (see {@link HtmlReport}): the verdict, the inputs, the candidate
@@ -75,17 +78,7 @@ final class DesignReport {
         List<HtmlTable> tables = new ArrayList<>();
         tables.add(new HtmlTable("Inputs", List.of("item", "value"), inputs));
         // the figures in one table, the words (shortfall, design notes, source) in the next
-        List<DesignFiles.Column> figures = DesignFiles.COLUMNS.subList(0, DesignFiles.COLUMNS.size() - 1);
-        List<List<String>> rows = new ArrayList<>();
-        for (Candidate c : result.candidates()) {
-            List<String> row = new ArrayList<>();
-            for (DesignFiles.Column column : figures) {
-                row.add(DesignFiles.cell(column.value().apply(c)));
-            }
-            rows.add(row);
-        }
-        tables.add(new HtmlTable("Candidates (margins of the sampled loop; '-': not applicable or not simulated)",
-                figures.stream().map(DesignFiles.Column::heading).toList(), rows));
+        tables.add(DesignFiles.candidates(result, false).html());
         if (!result.notApplicable().isEmpty()) {
             tables.add(new HtmlTable("Rules that do not apply", List.of("rule (type): why"),
                     result.notApplicable().stream().map(List::of).toList()));
@@ -96,17 +89,17 @@ final class DesignReport {
         tables.add(new HtmlTable("Candidates: the constraints, the design choices, the sources", List.of("candidate",
                 "constraints", "design notes", "source"), notes));
         if (!result.discretisation().isEmpty()) {
-            List<List<String>> check = new ArrayList<>();
+            ResultTable check = ResultTable.of("Discretisation check at h = " + NumberText.of(s.samplePeriodSeconds())
+                    + " s: the recommended gains with each method (sampled loop)", Column.text("integral", "integral"),
+                    Column.text("derivative", "derivative"), Column.text("chosen", ""),
+                    Column.number("phase_margin_deg", "PM", "deg", 4), Column.number("ms", "Ms", "", 4),
+                    Column.text("stable", "stable"));
             for (DiscretisationCheck row : result.discretisation()) {
-                check.add(List.of(ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()),
-                        row.derivativeMethod() == null ? "-"
-                                : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()),
-                        row.chosen() ? "chosen" : "", DesignFiles.cell(row.phaseMarginDegrees()),
-                        DesignFiles.cell(row.ms()), row.note().isEmpty() ? (row.stable() ? "yes" : "NO") : row.note()));
+                check.row(ControllerFile.INTEGRAL_METHODS.word(row.integralMethod()), row.derivativeMethod() == null
+                        ? "-" : ControllerFile.DERIVATIVE_METHODS.word(row.derivativeMethod()), row.chosen() ? "chosen"
+                        : "", row.phaseMarginDegrees(), row.ms(), row.note().isEmpty() ? row.stable() : row.note());
             }
-            tables.add(new HtmlTable("Discretisation check at h = " + s.samplePeriodSeconds() + " s: the recommended"
-                    + " gains with each method (sampled loop)", List.of("integral", "derivative", "", "PM [deg]", "Ms",
-                    "stable"), check));
+            tables.add(check.html());
         }
         tables.add(new HtmlTable("Commissioning checklist (common practice)", List.of("step", "what"), CHECKLIST));
         String title = "Design " + result.recommended().map(c -> "of " + c.name()).orElse("without a recommendation")

@@ -5,19 +5,18 @@ import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
-
 import org.loopwright.pid.tuning.FopdtModel;
-import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.identify.IdentificationPlot;
 import org.loopwright.sim.identify.IdentifiedModel;
 import org.loopwright.sim.identify.ModelKind;
 import org.loopwright.sim.identify.StepIdentification;
 import org.loopwright.sim.identify.StepTest;
 import org.loopwright.sim.identify.StepTestFile;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.PlantBlock;
 
 import picocli.CommandLine.Command;
@@ -70,10 +69,7 @@ public final class IdentifyCommand implements Callable<Integer> {
             writePlant(fit);
         }
         if (json) {
-            ObjectNode node = json(fit);
-            node.put("rows_in_file", test.rowsInFile());
-            node.put("kept_every", test.keptEvery());
-            out.println(Json.pretty(node));
+            out.println(JsonOutput.text(ModelJson.of(fit, test)));
         } else {
             if (test.keptEvery() > 1) {
                 out.println(thinningNote(test));
@@ -113,23 +109,34 @@ public final class IdentifyCommand implements Callable<Integer> {
         }
     }
 
-    private static ObjectNode json(IdentifiedModel fit) {
-        ObjectNode node = Json.object();
-        node.put("model", fit.kind().label());
-        Json.number(node, "gain", fit.gain());
-        double[] lags = fit.timeConstants();
-        if (fit.kind() == ModelKind.FOPDT) {
-            Json.number(node, "time_constant", lags[0]);
-        } else {
-            node.putArray("time_constants").add(lags[0]).add(lags[1]);
+    /**
+     * The fitted model as JSON; {@code tune --model-file} and {@code design} read it back.
+     *
+     * @param model          fopdt or sopdt
+     * @param gain           process gain K
+     * @param timeConstant   T of a first-order model, s; null for sopdt
+     * @param timeConstants  [T1, T2] of a second-order model, s; null for fopdt
+     * @param deadTime       L, s
+     * @param baseline       the output before the step
+     * @param stepTime       when the input stepped, s
+     * @param inputChange    the input's step
+     * @param rmse           root-mean-square error of the fit
+     * @param rSquared       coefficient of determination of the fit
+     * @param rowsInFile     rows read from the file
+     * @param keptEvery      every how many rows were kept (a long record is thinned)
+     */
+    record ModelJson(String model, double gain, double timeConstant, List<Double> timeConstants, double deadTime,
+            double baseline, double stepTime, double inputChange, double rmse, double rSquared, long rowsInFile,
+            int keptEvery) {
+
+        static ModelJson of(IdentifiedModel fit, StepTest test) {
+            double[] lags = fit.timeConstants();
+            boolean first = fit.kind() == ModelKind.FOPDT;
+            return new ModelJson(fit.kind().label(), fit.gain(), first ? lags[0] : Double.NaN,
+                    first ? null : List.of(lags[0], lags[1]), fit.deadTimeSeconds(), fit.baseline(),
+                    fit.step().timeSeconds(), fit.step().change(), fit.rmse(), fit.rSquared(), test.rowsInFile(),
+                    test.keptEvery());
         }
-        Json.number(node, "dead_time", fit.deadTimeSeconds());
-        Json.number(node, "baseline", fit.baseline());
-        Json.number(node, "step_time", fit.step().timeSeconds());
-        Json.number(node, "input_change", fit.step().change());
-        Json.number(node, "rmse", fit.rmse());
-        Json.number(node, "r_squared", fit.rSquared());
-        return node;
     }
 
     private static void printText(PrintWriter out, IdentifiedModel fit, Path plot) {

@@ -18,10 +18,9 @@ import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.frequency.SampledMargins;
 import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.InnerLoop;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -78,10 +77,9 @@ public final class MarginsCommand implements Callable<Integer> {
             SampledMargins outerSampled = CascadeAnalysis.outerSampled(loop.plant(), settings, innerPlant,
                     innerSettings);
             if (json) {
-                ObjectNode root = Json.object();
-                root.set("inner", loopNode(innerSettings, 0, innerContinuous, innerSampled, Optional.empty()));
-                root.set("outer", loopNode(settings, 0, outerContinuous, outerSampled, Optional.empty()));
-                out.println(Json.pretty(root));
+                out.println(JsonOutput.text(new MarginsJson.Cascade(
+                        MarginsJson.Loop.of(innerSettings, 0, innerContinuous, innerSampled, Optional.empty(), NOT_MEANINGFUL),
+                        MarginsJson.Loop.of(settings, 0, outerContinuous, outerSampled, Optional.empty(), NOT_MEANINGFUL))));
             } else {
                 out.println("Inner loop (inner.controller on inner.plant):");
                 table(out, innerSettings, 0, innerContinuous, innerSampled, Optional.empty());
@@ -97,76 +95,13 @@ public final class MarginsCommand implements Callable<Integer> {
         SampledMargins sampled = LoopAnalysis.sampled(sampledLoop);
         Optional<GainRange> range = LoopAnalysis.stableGainRange(sampledLoop);
         if (json) {
-            out.println(Json.pretty(loopNode(settings, sampledLoop.sensorDelaySamples(), continuous, sampled, range)));
+            out.println(JsonOutput.text(MarginsJson.Loop.of(settings, sampledLoop.sensorDelaySamples(), continuous,
+                    sampled, range, NOT_MEANINGFUL)));
         } else {
             table(out, settings, sampledLoop.sensorDelaySamples(), continuous, sampled, range);
         }
         out.flush();
         return 0;
-    }
-
-    /** {"continuous": {...}, "sampled": {...}} of one loop. */
-    private static ObjectNode loopNode(ControllerSettings settings, int sensorDelaySamples,
-            StabilityMargins continuous, SampledMargins sampled, Optional<GainRange> range) {
-        ObjectNode root = Json.object();
-        root.set("continuous", margins(continuous));
-        ObjectNode sampledNode = margins(sampled.margins());
-        sampledNode.put("stable", sampled.stable());
-        sampledNode.put("sensor_delay_samples", sensorDelaySamples);
-        if (!sampled.stable()) {
-            for (String key : List.of("ms", "ms_frequency", "mt", "mt_frequency", "delay_margin")) {
-                sampledNode.putNull(key);
-            }
-            sampledNode.put("note", NOT_MEANINGFUL);
-        }
-        if (range.isPresent()) {
-            ObjectNode r = sampledNode.putObject("stable_gain_range");
-            Json.number(r, "low", range.get().low());
-            Json.number(r, "high", range.get().high());
-        } else {
-            sampledNode.putNull("stable_gain_range");
-        }
-        Json.number(sampledNode, "lower_gain_margin", sampled.stable() && range.isPresent()
-                && range.get().low() > 0.0 ? range.get().low() : Double.NaN);
-        Json.number(sampledNode, "largest_pole_magnitude", sampled.largestPoleMagnitude());
-        sampledNode.put("sample_period", settings.samplePeriodSeconds());
-        sampledNode.put("integral_method", settings.parallelGains().integralGain() > 0.0
-                ? ControllerFile.INTEGRAL_METHODS.word(settings.integralMethod()) : null);
-        sampledNode.put("derivative_method", settings.parallelGains().derivativeGain() > 0.0
-                ? ControllerFile.DERIVATIVE_METHODS.word(settings.derivativeMethod()) : null);
-        root.set("sampled", sampledNode);
-        return root;
-    }
-
-    private static ObjectNode margins(StabilityMargins m) {
-        ObjectNode node = Json.object();
-        PhaseCrossing phase = m.phaseCrossover().orElse(null);
-        GainCrossing gain = m.gainCrossover().orElse(null);
-        Json.number(node, "gain_margin", phase == null ? Double.NaN : phase.gainMargin());
-        Json.number(node, "gain_margin_db", phase == null ? Double.NaN : phase.gainMarginDb());
-        Json.number(node, "phase_crossover", phase == null ? Double.NaN : phase.frequencyRadPerSecond());
-        Json.number(node, "phase_margin_deg", gain == null ? Double.NaN : gain.phaseMarginDegrees());
-        Json.number(node, "gain_crossover", gain == null ? Double.NaN : gain.frequencyRadPerSecond());
-        Json.number(node, "ms", m.sensitivityPeak().value());
-        Json.number(node, "ms_frequency", m.sensitivityPeak().frequencyRadPerSecond());
-        Json.number(node, "mt", m.complementaryPeak().value());
-        Json.number(node, "mt_frequency", m.complementaryPeak().frequencyRadPerSecond());
-        Json.number(node, "delay_margin", m.delayMarginSeconds().orElse(Double.NaN));
-        ArrayNode phases = node.putArray("phase_crossings");
-        for (PhaseCrossing c : m.phaseCrossings()) {
-            ObjectNode item = phases.addObject();
-            Json.number(item, "frequency", c.frequencyRadPerSecond());
-            Json.number(item, "gain_margin", c.gainMargin());
-            Json.number(item, "gain_margin_db", c.gainMarginDb());
-        }
-        ArrayNode gains = node.putArray("gain_crossings");
-        for (GainCrossing c : m.gainCrossings()) {
-            ObjectNode item = gains.addObject();
-            Json.number(item, "frequency", c.frequencyRadPerSecond());
-            Json.number(item, "phase_margin_deg", c.phaseMarginDegrees());
-            Json.number(item, "delay_margin", c.delayMarginSeconds());
-        }
-        return node;
     }
 
     private void table(PrintWriter out, ControllerSettings settings, int sensorDelaySamples,

@@ -1,17 +1,18 @@
 package org.loopwright.sim.cli;
 
 import java.nio.file.Path;
+import java.util.Arrays;
 import java.util.List;
+
+import com.fasterxml.jackson.databind.PropertyNamingStrategies;
 
 import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.tuning.FopdtModel;
 import org.loopwright.pid.tuning.ProcessModel;
 import org.loopwright.pid.tuning.SopdtModel;
-import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.config.NumberRule;
 import org.loopwright.sim.config.YamlDocument;
-
-import static java.util.Map.entry;
+import org.loopwright.sim.identify.ModelKind;
 
 /**
  * Reads the model that {@code identify --json} prints: {@code model} (fopdt or sopdt), {@code gain},
@@ -21,9 +22,9 @@ import static java.util.Map.entry;
  */
 final class ModelFile {
 
-    private static final Keywords<String> KINDS = Keywords.of(entry("fopdt", "fopdt"), entry("sopdt", "sopdt"));
-    private static final List<String> KEYS = List.of("model", "gain", "time_constant", "time_constants", "dead_time",
-            "baseline", "step_time", "input_change", "rmse", "r_squared");
+    /** The keys identify writes: its record's fields as JSON names them, so the two cannot drift apart. */
+    private static final List<String> KEYS = Arrays.stream(IdentifyCommand.ModelJson.class.getRecordComponents())
+            .map(c -> new PropertyNamingStrategies.SnakeCaseStrategy().translate(c.getName())).toList();
 
     private ModelFile() {
     }
@@ -31,11 +32,11 @@ final class ModelFile {
     static ProcessModel read(Path file) {
         YamlDocument doc = YamlDocument.read(file);
         doc.requireKeys("", KEYS);
-        String kind = doc.requiredChoice("/model", KINDS);
+        ModelKind kind = doc.requiredChoice("/model", OptionWords.MODEL_KINDS);
         double gain = doc.requiredNumber("/gain", NumberRule.FINITE);
         double deadTime = doc.requiredNumber("/dead_time", NumberRule.NON_NEGATIVE);
         try {
-            if (kind.equals("fopdt")) {
+            if (kind == ModelKind.FOPDT) {
                 return new FopdtModel(gain, doc.requiredNumber("/time_constant", NumberRule.POSITIVE), deadTime);
             }
             double[] lags = doc.numberList("/time_constants", NumberRule.POSITIVE);

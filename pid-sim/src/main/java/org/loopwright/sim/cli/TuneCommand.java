@@ -30,6 +30,7 @@ import org.loopwright.pid.tuning.UltimatePointRule;
 import org.loopwright.pid.tuning.UltimatePoint;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.tuning.TuningCandidate;
 import org.loopwright.sim.tuning.TuningEvaluation;
 
@@ -200,7 +201,7 @@ public final class TuneCommand implements Callable<Integer> {
             write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
         }
         if (json) {
-            out.println(Json.pretty(rule == null ? TuningReport.json(candidates)
+            out.println(JsonOutput.text(rule == null ? TuningReport.json(candidates)
                     : TuningReport.json(candidates.get(0))));
         } else {
             out.println(fromModel

@@ -7,9 +7,6 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
-
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.form.ParallelGains;
 import org.loopwright.pid.form.SeriesGains;
@@ -102,68 +99,67 @@ final class TuningReport {
                 : "continuous design";
     }
 
-    /** The JSON object of one candidate. */
-    static ObjectNode json(TuningCandidate c) {
-        ObjectNode node = Json.object();
-        node.put("rule", c.tuning().rule().label());
-        node.put("type", c.tuning().type().name().toLowerCase(Locale.ROOT));
-        node.put("citation", c.tuning().citation());
-        node.put("note", c.tuning().note());
-        IdealGains i = c.ideal();
-        ObjectNode ideal = node.putObject("ideal");
-        Json.number(ideal, "gain", i.gain());
-        Json.number(ideal, "integral_time", i.integralTime());
-        Json.number(ideal, "derivative_time", i.derivativeTime());
-        ParallelGains p = c.parallel();
-        ObjectNode parallel = node.putObject("parallel");
-        Json.number(parallel, "proportional_gain", p.proportionalGain());
-        Json.number(parallel, "integral_gain", p.integralGain());
-        Json.number(parallel, "derivative_gain", p.derivativeGain());
-        Optional<SeriesGains> series = c.series();
-        if (series.isPresent()) {
-            ObjectNode s = node.putObject("series");
-            Json.number(s, "gain", series.get().gain());
-            Json.number(s, "integral_time", series.get().integralTime());
-            Json.number(s, "derivative_time", series.get().derivativeTime());
-        } else {
-            node.putNull("series");
-        }
-        Optional<StabilityMargins> m = c.margins();
-        node.put("margins_of", m.isEmpty() ? null : c.sampledMargins() ? "sampled" : "continuous");
-        Json.number(node, "phase_margin_deg", m.map(TuningReport::phaseMargin).orElse(Double.NaN));
-        Json.number(node, "gain_margin", m.map(TuningReport::gainMargin).orElse(Double.NaN));
-        Json.number(node, "ms", m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN));
-        if (c.stable().isPresent()) {
-            node.put("stable", c.stable().get());
-        } else {
-            node.putNull("stable");
-        }
-        if (c.setpointResponse().isPresent()) {
-            ResponseMetrics r = c.setpointResponse().get();
-            ObjectNode s = node.putObject("setpoint_step");
-            Json.number(s, "rise_time", r.riseTimeSeconds());
-            Json.number(s, "settling_time", r.settlingTimeSeconds());
-            Json.number(s, "overshoot_percent", r.overshootPercent());
-            s.put("response", r.state().name().toLowerCase(Locale.ROOT).replace('_', '-'));
-            Json.number(s, "iae", r.iae());
-        } else {
-            node.putNull("setpoint_step");
-        }
-        if (c.loadResponse().isPresent()) {
-            ObjectNode l = node.putObject("load_step");
-            Json.number(l, "iae", c.loadResponse().get().iae());
-            Json.number(l, "peak_deviation", c.loadResponse().get().peakDeviation());
-        } else {
-            node.putNull("load_step");
-        }
-        return node;
+    /**
+     * One candidate as JSON (snake_case keys, null for a figure that does not exist or apply).
+     *
+     * @param rule          the rule's label
+     * @param type          pi or pid, as {@code --type} spells it
+     * @param citation      the rule's source
+     * @param note          what the rule chose (its design time, its form), or empty
+     * @param ideal         the settings in ideal form
+     * @param parallel      the settings in parallel form
+     * @param series        the settings in series form, null when there is none (Ti &lt; 4 Td)
+     * @param marginsOf     continuous or sampled, null without a model
+     * @param phaseMarginDeg the smallest phase margin, degrees
+     * @param gainMargin    the smallest gain margin
+     * @param ms            the sensitivity peak Ms
+     * @param stable        whether the sampled loop is stable, null when not checked
+     * @param setpointStep  the unit setpoint step's figures, null without a model
+     * @param loadStep      the unit load step's figures, null without a model
+     */
+    record CandidateJson(String rule, String type, String citation, String note, GainsJson ideal,
+            ParallelJson parallel, GainsJson series, String marginsOf, double phaseMarginDeg, double gainMargin,
+            double ms, Boolean stable, StepJson setpointStep, LoadJson loadStep) {
     }
 
-    /** The JSON array of candidates. */
-    static ArrayNode json(List<TuningCandidate> candidates) {
-        ArrayNode array = Json.array();
-        candidates.forEach(c -> array.add(json(c)));
-        return array;
+    /** Ideal or series settings: gain, integral time and derivative time in seconds. */
+    record GainsJson(double gain, double integralTime, double derivativeTime) {
+    }
+
+    /** Parallel settings: Kp, Ki in 1/s, Kd in s. */
+    record ParallelJson(double proportionalGain, double integralGain, double derivativeGain) {
+    }
+
+    /** A setpoint step's figures, seconds and percent; the response's state as a word. */
+    record StepJson(double riseTime, double settlingTime, double overshootPercent, String response, double iae) {
+    }
+
+    /** A load step's figures. */
+    record LoadJson(double iae, double peakDeviation) {
+    }
+
+    /** The JSON record of one candidate. */
+    static CandidateJson json(TuningCandidate c) {
+        IdealGains i = c.ideal();
+        ParallelGains p = c.parallel();
+        Optional<StabilityMargins> m = c.margins();
+        return new CandidateJson(c.tuning().rule().label(), OptionWords.CONTROLLER_TYPES.word(c.tuning().type()),
+                c.tuning().citation(), c.tuning().note(),
+                new GainsJson(i.gain(), i.integralTime(), i.derivativeTime()),
+                new ParallelJson(p.proportionalGain(), p.integralGain(), p.derivativeGain()),
+                c.series().map(s -> new GainsJson(s.gain(), s.integralTime(), s.derivativeTime())).orElse(null),
+                m.isEmpty() ? null : c.sampledMargins() ? "sampled" : "continuous",
+                m.map(TuningReport::phaseMargin).orElse(Double.NaN), m.map(TuningReport::gainMargin).orElse(Double.NaN),
+                m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN), c.stable().orElse(null),
+                c.setpointResponse().map(r -> new StepJson(r.riseTimeSeconds(), r.settlingTimeSeconds(),
+                        r.overshootPercent(), r.state().name().toLowerCase(Locale.ROOT).replace('_', '-'), r.iae()))
+                        .orElse(null),
+                c.loadResponse().map(l -> new LoadJson(l.iae(), l.peakDeviation())).orElse(null));
+    }
+
+    /** The JSON records of candidates. */
+    static List<CandidateJson> json(List<TuningCandidate> candidates) {
+        return candidates.stream().map(TuningReport::json).toList();
     }
 
     /** The smallest phase margin, NaN when |L| never crosses 1. */

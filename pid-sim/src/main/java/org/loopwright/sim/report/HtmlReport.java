@@ -144,10 +144,27 @@ public final class HtmlReport {
         }
         if (!record.controllerSettings().isEmpty()) {
             List<List<String>> rows = new ArrayList<>();
-            record.controllerSettings().forEach((key, value) -> rows.add(List.of(key, value.endsWith(".inf")
-                    ? "none (" + value + ")" : value)));
+            record.controllerSettings().forEach((key, value) -> rows.add(List.of(key, settingText(value))));
             table(html, new HtmlTable("Controller settings in full, defaults included (file keys)",
                     List.of("key", "value"), rows));
+        }
+    }
+
+    /** Significant digits of a setting in the report: enough to retype it, none of a double's noise. */
+    static final int SETTING_DIGITS = 6;
+
+    /**
+     * A setting's value for people: a number (as the file writes it) to {@value #SETTING_DIGITS}
+     * significant digits, an unlimited one ({@code .inf}) as "none", a word as it is.
+     */
+    static String settingText(String yaml) {
+        if (yaml.endsWith(".inf")) {
+            return "none";
+        }
+        try {
+            return NumberText.of(Double.parseDouble(yaml), SETTING_DIGITS);
+        } catch (NumberFormatException word) {
+            return yaml;
         }
     }
 

@@ -68,6 +68,10 @@ public final class ResultTable {
             if (cell == null) {
                 return NumberText.MISSING;
             }
+            if (cell instanceof Boolean b) {
+                // a failed check is said loudly
+                return b ? "yes" : "NO";
+            }
             return cell instanceof Double d ? NumberText.of(d, digits) : cell.toString();
         }
     }
@@ -94,7 +98,8 @@ public final class ResultTable {
 
     /**
      * Adds a row: a {@code Double} (NaN or infinite for missing) for each number column, text (or any
-     * object, printed by its {@code toString}) for each text column; null for a missing cell.
+     * object, printed by its {@code toString}; a {@code Boolean} is "yes" or "NO" for people and a
+     * boolean in JSON) for each text column; null for a missing cell.
      *
      * @param cells one cell per column
      * @return this table
@@ -205,6 +210,8 @@ public final class ResultTable {
                     object.putNull(key);
                 } else if (cell instanceof Double d) {
                     object.put(key, d == 0.0 ? 0.0 : d);
+                } else if (cell instanceof Boolean b) {
+                    object.put(key, b);
                 } else {
                     object.put(key, cell.toString());
                 }

@@ -33,6 +33,8 @@ class AutotuneCommandTest {
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode node = JSON.readTree(run.out());
+        JsonShape.keys(node, "ultimate_gain", "ultimate_period", "oscillation_amplitude", "cycles", "setpoint", "bias",
+                "relay_amplitude", "hysteresis", "warnings", "suggestions");
         // 1/(s+1)³: Ku = 8 at ω = √3, Pu = 2π/√3 (analytic); the describing function's error for
         // this plant is a few per cent (Åström & Hägglund 1984), we allow 5 %
         assertThat(node.get("ultimate_gain").asDouble()).isCloseTo(8.0, within(0.4));

@@ -52,6 +52,20 @@ class DesignCommandTest {
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode design = JSON.readTree(run.out());
         assertThat(JSON.readTree(Files.readString(dir.resolve("design.json")))).isEqualTo(design);
+        JsonShape.keys(design, "model", "sample_period", "max_sensitivity", "sensor_delay_samples", "output_min",
+                "output_max", "output_slew", "integral_method", "derivative_method", "experiment", "candidates",
+                "not_applicable", "recommended", "verdict", "discretisation_check", "files");
+        JsonShape.keys(design.get("model"), "type", "gain", "time_constant", "second_time_constant", "dead_time", "rmse",
+                "r_squared", "source", "choice");
+        JsonShape.keys(design.get("experiment"), "operating_output", "setpoint_step", "load_step", "load_at",
+                "duration", "spread", "runs", "seed");
+        JsonShape.keys(design.get("candidates").get(0), "name", "rule", "type", "gain", "integral_time",
+                "derivative_time", "gain_margin", "phase_margin_deg", "ms", "mt", "delay_margin", "stable",
+                "overshoot_pct", "settling_time", "load_iae", "total_variation", "sweep_unstable_share",
+                "sweep_p90_overshoot_pct", "meets_constraints", "note", "source");
+        assertThat(design.get("candidates").get(0).get("stable").isBoolean()).isTrue();
+        JsonShape.keys(design.get("discretisation_check").get(0), "integral_method", "derivative_method", "chosen",
+                "phase_margin_deg", "ms", "stable", "note");
         String name = design.get("recommended").asText();
         JsonNode chosen = null;
         for (JsonNode c : design.get("candidates")) {

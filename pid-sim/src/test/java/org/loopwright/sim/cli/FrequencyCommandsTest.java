@@ -124,7 +124,7 @@ class FrequencyCommandsTest {
         assertThat(tustin.get("derivative_method").asText()).isEqualTo("tustin");
         assertThat(tustin.get("sample_period").asDouble()).isEqualTo(0.05);
         JsonNode notApplicable = rows.get(1 + 5 - 1); // h = 0.05, FORWARD_EULER integral, FORWARD_EULER derivative
-        assertThat(notApplicable.get("kind").asText()).isEqualTo("not_applicable");
+        assertThat(notApplicable.get("kind").asText()).isEqualTo("not-applicable");
         assertThat(notApplicable.get("phase_margin_deg").isNull()).isTrue();
     }
 

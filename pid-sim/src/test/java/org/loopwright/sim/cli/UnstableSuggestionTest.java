@@ -12,6 +12,7 @@ import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.TunedGains;
 import org.loopwright.pid.tuning.UltimatePointRule;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.tuning.TuningCandidate;
@@ -45,7 +46,7 @@ class UnstableSuggestionTest {
         assertThat(text.toString()).contains("sampled PM", " yes ", " UNSTABLE ",
                 "WARNING: 1 of these settings make the sampled loop UNSTABLE");
 
-        JsonNode json = TuningReport.json(unstable);
+        JsonNode json = JsonOutput.mapper().valueToTree(TuningReport.json(unstable));
         assertThat(json.get("stable").asBoolean()).isFalse();
         assertThat(json.get("margins_of").asText()).isEqualTo("sampled");
     }

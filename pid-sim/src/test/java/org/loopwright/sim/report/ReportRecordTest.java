@@ -32,4 +32,16 @@ class ReportRecordTest {
                 .containsExactly("ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad");
         assertThat(record.madeAtText()).matches("\\d{4}-\\d\\d-\\d\\d \\d\\d:\\d\\d:\\d\\d UTC");
     }
+
+    /** The settings table shows what the file says without a double's noise; an unlimited value is "none". */
+    @Test
+    void settingsReadAsNumbersToSixDigitsAndUnlimitedAsNone() {
+        assertThat(HtmlReport.settingText("4.672622782438271")).isEqualTo("4.67262");
+        assertThat(HtmlReport.settingText("0.1875427614634711")).isEqualTo("0.187543");
+        assertThat(HtmlReport.settingText("0.5")).isEqualTo("0.5");
+        assertThat(HtmlReport.settingText("0.0")).isEqualTo("0");
+        assertThat(HtmlReport.settingText("-.inf")).isEqualTo("none");
+        assertThat(HtmlReport.settingText(".inf")).isEqualTo("none");
+        assertThat(HtmlReport.settingText("backward-euler")).isEqualTo("backward-euler");
+    }
 }
