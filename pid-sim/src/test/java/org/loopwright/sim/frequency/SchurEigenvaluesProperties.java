@@ -6,9 +6,12 @@ import java.util.List;
 
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
+import net.jqwik.api.Assume;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
+import org.hipparchus.complex.Complex;
+import org.hipparchus.exception.MathRuntimeException;
 import org.hipparchus.linear.EigenDecompositionNonSymmetric;
 import org.hipparchus.linear.MatrixUtils;
 import org.hipparchus.linear.RealMatrix;
@@ -16,14 +19,15 @@ import org.hipparchus.linear.RealMatrix;
 /**
  * The poles are read from the real Schur form without the eigenvectors: they must be exactly (bit for
  * bit) the eigenvalues Hipparchus' full non-symmetric eigen-decomposition gives, for companion matrices
- * of random polynomials (the matrices the pole computation builds).
+ * of random polynomials with non-zero lowest and highest coefficients (the matrices the pole computation
+ * builds: it splits exact zero roots off first).
  */
 class SchurEigenvaluesProperties {
 
     @Provide
     Arbitrary<List<Double>> coefficients() {
         return Arbitraries.doubles().between(-10.0, 10.0).list().ofMinSize(2).ofMaxSize(16)
-                .filter(c -> Math.abs(c.get(c.size() - 1)) > 1e-3);
+                .filter(c -> Math.abs(c.get(0)) > 1e-3 && Math.abs(c.get(c.size() - 1)) > 1e-3);
     }
 
     @Property(tries = 500)
@@ -37,7 +41,15 @@ class SchurEigenvaluesProperties {
                 companion.setEntry(j, j - 1, 1.0);
             }
         }
-        assertThat(PolynomialRoots.eigenvalues(companion))
-                .containsExactly(new EigenDecompositionNonSymmetric(companion).getEigenvalues());
+        Complex[] full;
+        try {
+            full = new EigenDecompositionNonSymmetric(companion).getEigenvalues();
+        } catch (MathRuntimeException noEigenvectors) {
+            // the full decomposition fails on some defective matrices (repeated roots) in its eigenvector step,
+            // which the Schur reading does not take: nothing to compare with
+            full = null;
+        }
+        Assume.that(full != null);
+        assertThat(PolynomialRoots.eigenvalues(companion)).containsExactly(full);
     }
 }
