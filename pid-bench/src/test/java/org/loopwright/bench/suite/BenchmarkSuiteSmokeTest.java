@@ -24,9 +24,9 @@ class BenchmarkSuiteSmokeTest {
 
     /**
      * 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures,
-     * 2 × 2 sweeps and the sweep's step.
+     * 2 replay figures, 2 × 2 sweeps and the sweep's step.
      */
-    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 4 + 1;
+    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2 + 4 + 1;
 
     @Test
     void everyBenchmarkAndLoopProducesAFiniteFigure(@TempDir Path out) throws Exception {

@@ -225,9 +225,8 @@ public final class Sweep {
             if (drawn.inner().isPresent()) {
                 // a cascade: the outer loop with the inner loop closed, whose poles include the inner loop's
                 InnerLoop inner = drawn.inner().get();
-                return CascadeAnalysis.outerSampled(loop.plant().withDeadTime(loop.totalDelaySeconds()),
-                        loop.controller(), inner.plant().linear().orElseThrow(), inner.controller())
-                        .largestPoleMagnitude();
+                return CascadeAnalysis.outerSampled(loop.plant(), loop.controller(), inner.plant().linear().orElseThrow(),
+                        inner.controller(), loop.sensorDelaySamples()).largestPoleMagnitude();
             }
             double largest = 0.0;
             for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(loop))) {
