@@ -7,7 +7,9 @@ public enum OutputKind {
     /**
      * The output is the change since the last sample (velocity form), for actuators that integrate
      * their input such as motor-driven valves. The first sample emits 0; a position step is at most
-     * {@link #LARGEST_INCREMENT}, so that the increment is always finite.
+     * {@link #LARGEST_INCREMENT}, so that the increment is always finite. That holds after a retune
+     * too: a range moved further than that from the last position is reached over several samples
+     * (only ranges near the ends of the double range can do this).
      */
     INCREMENT;
 

@@ -258,7 +258,7 @@ public final class PidController {
      * Conditional integration: the integral without this sample's increment when the output is
      * limited and the increment pushes further into the limit.
      */
-    private static double conditionallyIntegrated(ControllerSettings s, double proportional, double next,
+    private double conditionallyIntegrated(ControllerSettings s, double proportional, double next,
             double derivative, double uff, double increment, double lo, double hi) {
         double unlimited = proportional + next + derivative + uff;
         double output = limit(s, unlimited, lo, hi);
@@ -381,11 +381,14 @@ public final class PidController {
 
     /**
      * Within the slew bounds lo..hi, themselves within the range. Only when the last output lies
-     * outside a range that a retune narrowed can lo exceed hi; the range wins then.
+     * outside a range that a retune moved can lo exceed hi; the range wins then over the slew limit,
+     * but not over the largest position step of an increment output: a range moved further than that
+     * is reached in several such steps, so that the increment stays finite.
      */
-    private static double limit(ControllerSettings s, double value, double lo, double hi) {
+    private double limit(ControllerSettings s, double value, double lo, double hi) {
         double limited = clamp(value, lo, hi);
-        return lo > hi ? clamp(limited, s.outputMin(), s.outputMax()) : limited;
+        return lo > hi ? clamp(clamp(limited, s.outputMin(), s.outputMax()),
+                previousOutput - s.largestOutputStep, previousOutput + s.largestOutputStep) : limited;
     }
 
     private static double clamp(double value, double lo, double hi) {

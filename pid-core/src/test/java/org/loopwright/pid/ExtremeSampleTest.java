@@ -128,6 +128,40 @@ class ExtremeSampleTest {
     }
 
     @Test
+    void aRetuneThatMovesAnIncrementOutputsRangeFarAwayStillGivesFiniteIncrements() {
+        // the last position −1e308; the new range starts at 1.5e308: the range wins over the slew, but
+        // the way there (2.5e308) is beyond the largest double, so it is walked in steps of at most
+        // half of it, as every other position step of an increment output
+        double most = OutputKind.LARGEST_INCREMENT;
+        ControllerSettings.Builder wide = ControllerSettings.builder().gains(new ParallelGains(2.0, 0.0, 0.0))
+                .samplePeriodSeconds(0.1).outputRange(-1e308, 1e308).outputKind(OutputKind.INCREMENT);
+        PidController c = new PidController(wide.build());
+        c.update(0.0, 5e307);
+        assertThat(c.position()).isEqualTo(-1e308);
+        c.retune(wide.outputRange(1.5e308, 1.7e308).build());
+
+        assertThat(c.update(0.0, 5e307)).isEqualTo(most);
+        assertThat(c.fault()).isEqualTo(Fault.NONE);
+        assertThat(c.update(0.0, 5e307)).isEqualTo(most);
+        double position = c.position();
+        assertThat(c.update(0.0, 5e307)).isEqualTo(1.5e308 - position);
+        assertThat(c.position()).isEqualTo(1.5e308);
+    }
+
+    @Test
+    void aRetuneThatMovesAnIncrementOutputsRangeFarAwayStillGivesFiniteIncrementsOnABadSample() {
+        double most = OutputKind.LARGEST_INCREMENT;
+        ControllerSettings.Builder wide = ControllerSettings.builder().gains(new ParallelGains(2.0, 0.0, 0.0))
+                .samplePeriodSeconds(0.1).outputRange(-1e308, 1e308).outputKind(OutputKind.INCREMENT);
+        PidController c = new PidController(wide.build());
+        c.update(0.0, 5e307);
+        c.retune(wide.outputRange(1.5e308, 1.7e308).build());
+
+        assertThat(c.update(0.0, Double.NaN)).isEqualTo(most);
+        assertThat(c.fault()).isEqualTo(Fault.MEASUREMENT_NOT_FINITE);
+    }
+
+    @Test
     void manualObeysTheOperatorOnABadSampleToo() {
         // the safe output is for automatic and tracking; in manual the operator stays in charge
         PidController c = new PidController(piOnZeroToHundred().faultPolicy(FaultPolicy.SAFE_OUTPUT, 0.0).build());

@@ -50,7 +50,8 @@ import picocli.CommandLine.Spec;
                 "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
                 "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller.",
                 "The sampled loop includes the sensor's delay-samples. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
-                        + "; " + NumberText.MISSING + " where the response did not settle or diverged."})
+                        + "; " + NumberText.MISSING + " where the response did not settle or diverged.",
+                "Settled: " + ResponseMetrics.SETTLED_RULE + "."})
 public final class CompareCommand implements Callable<Integer> {
 
     @Spec

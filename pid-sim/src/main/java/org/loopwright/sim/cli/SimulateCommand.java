@@ -43,8 +43,9 @@ import picocli.CommandLine.Model.CommandSpec;
             "Writes trajectory.csv, response.png, response.svg and report.html; prints the metrics.",
             "Without SCENARIO.yaml, runs a built-in water-bath demo (numbers of our own invention).",
             "The first row says whether the response settled, did not settle or DIVERGED.",
-            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures are given only once the",
-            "output has settled (2 %% band), else 'not settled'.",
+            "Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + ".",
+            "Settled: " + ResponseMetrics.SETTLED_RULE + "; step figures are given only for a settled response,"
+                    + " else 'not settled'.",
             "Divergence: " + Divergence.RULE + "; such a run is stopped there and reported DIVERGED."})
 public final class SimulateCommand implements Callable<Integer> {
 

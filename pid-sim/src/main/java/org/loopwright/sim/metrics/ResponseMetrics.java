@@ -17,10 +17,21 @@ import org.loopwright.sim.simulate.Trajectory;
  * (the setpoint change when the loop starts at rest on its old setpoint) and y∞ the output at the
  * window's end,
  * <ul>
- * <li>settled: the output stays within ±2 % of |Δ| around y∞ during the window's last
- *     {@value #FINAL_SHARE_PERCENT} %;</li>
+ * <li>settled: {@value #SETTLED_RULE}. The band is ±{@link #SETTLING_BAND 2 %} of |Δ|, the final stretch
+ *     is the window's last {@value #FINAL_SHARE_PERCENT} % (at least two samples) and the line is the
+ *     least-squares fit of the output against time over that stretch. Why the line: a slow response
+ *     (a lag of 100 s watched for 60 s) moves less than the band within the final stretch and would
+ *     pass a band test alone, with y∞ far from where it is heading. For an exponential approach with
+ *     time constant τ up to the window's length the distance still to go is at most slope·τ, so a
+ *     response at rest has y∞ within the band of its true final value; a first-order response
+ *     1 − e^(−t/τ) that stops short of the setpoint (P control) is called settled once the window is
+ *     about 6τ long (its 2 % settling time is τ·ln 50 ≈ 3.9τ). A response inside the setpoint's band
+ *     and still closing on it (integral action's slow tail) cannot leave that band by doing so, and
+ *     its band is the setpoint's. The rule reads the final stretch only, so it can be judged in one
+ *     pass over the run;</li>
  * <li>rise time: from reaching y₀ + 10 % to y₀ + 90 % of y∞ − y₀ (linear interpolation between samples);</li>
- * <li>settling time: from the window's start until the output stays within that band (resolved to the sample);</li>
+ * <li>settling time: from the window's start until the output stays within the band it settled in, around
+ *     r or around y∞ (resolved to the sample);</li>
  * <li>overshoot: {@value #OVERSHOOT_DEFINITION}; peak time: when that peak occurs. A loop that settles
  *     away from the setpoint (P control, a limit) is measured against the setpoint too: a response that
  *     stops short shows 0 %, and its steady-state error says by how much;</li>
@@ -55,8 +66,17 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
     /** The share of the step that counts as settled (2 %). */
     public static final double SETTLING_BAND = 0.02;
 
-    /** The final share of the window, in percent, in which a settled response must stay within the band. */
-    public static final int FINAL_SHARE_PERCENT = 5;
+    /** The final share of the window, in percent, over which {@link #SETTLED_RULE} is judged. */
+    public static final int FINAL_SHARE_PERCENT = 10;
+
+    /**
+     * When a response counts as settled, in words, for help texts and reports (no percent sign: picocli
+     * reads help texts as format strings).
+     */
+    public static final String SETTLED_RULE = "over the last " + FINAL_SHARE_PERCENT + " percent of the window the"
+            + " output either stays within 2 percent of the step of the setpoint while the straight line fitted to"
+            + " that stretch heads toward the setpoint, or stays within 2 percent of the step of its last value"
+            + " while that line, continued for as long again as the window, would stay within that band too";
 
     /**
      * The metrics of a scenario's run over its {@link ResponseWindow#of(Scenario) response window}.
@@ -91,7 +111,7 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
         double yEnd = trajectory.process(last);
         double step = target - y0;
         double scale = Math.max(Math.abs(y0), Math.abs(target));
-        int tail = Math.max(1, (last - first + 1) * FINAL_SHARE_PERCENT / 100);
+        int tail = Math.min(last - first + 1, Math.max(2, (last - first + 1) * FINAL_SHARE_PERCENT / 100));
 
         ResponseState state = ResponseState.NO_STEP;
         double rise = Double.NaN;
@@ -100,7 +120,16 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
         double peakTime = Double.NaN;
         double steadyStateError = target - yEnd;
         if (Math.abs(step) > 1e-9 * Math.max(1.0, scale)) {
-            settling = settlingTime(trajectory, first, last - tail + 1, last, yEnd, Math.abs(step) * SETTLING_BAND);
+            double band = Math.abs(step) * SETTLING_BAND;
+            int finalStart = last - tail + 1;
+            double slope = slope(trajectory, finalStart, last);
+            double meanOffset = mean(trajectory, finalStart, last) - target;
+            settling = settlingTime(trajectory, first, finalStart, last, target, band);
+            if (Double.isNaN(settling) || slope * meanOffset > 0.0) {
+                double windowSeconds = trajectory.time(last) - t0;
+                boolean resting = Math.abs(slope) * windowSeconds <= band;
+                settling = resting ? settlingTime(trajectory, first, finalStart, last, yEnd, band) : Double.NaN;
+            }
             state = Double.isNaN(settling) ? ResponseState.NOT_SETTLED : ResponseState.SETTLED;
         }
         if (state == ResponseState.SETTLED) {
@@ -191,6 +220,35 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
             }
         }
         return Double.NaN;
+    }
+
+    /** The mean process output over samples {@code from} to {@code to}. */
+    private static double mean(Trajectory trajectory, int from, int to) {
+        double sum = 0.0;
+        for (int k = from; k <= to; k++) {
+            sum += trajectory.process(k);
+        }
+        return sum / (to - from + 1);
+    }
+
+    /** The least-squares slope of the process output against time over samples {@code from} to {@code to}. */
+    private static double slope(Trajectory trajectory, int from, int to) {
+        double origin = trajectory.time(from);
+        int n = to - from + 1;
+        double meanT = 0.0;
+        double meanY = 0.0;
+        for (int k = from; k <= to; k++) {
+            meanT += (trajectory.time(k) - origin) / n;
+            meanY += trajectory.process(k) / n;
+        }
+        double sty = 0.0;
+        double stt = 0.0;
+        for (int k = from; k <= to; k++) {
+            double dt = trajectory.time(k) - origin - meanT;
+            sty += dt * (trajectory.process(k) - meanY);
+            stt += dt * dt;
+        }
+        return stt > 0.0 ? sty / stt : 0.0;
     }
 
     /**

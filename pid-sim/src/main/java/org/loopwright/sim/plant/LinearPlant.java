@@ -22,6 +22,9 @@ import org.hipparchus.linear.RealMatrix;
  * fixed-period simulation computes them once or twice and then allocates nothing. A biproper
  * transfer function (deg N = deg D) feeds the held input straight through to {@link #output()}.
  *
+ * <p>{@link #adopt} swaps in another model of the same order without allocating, so a sweep
+ * reuses one plant per thread across its runs.
+ *
  * <p>Example: {@code Plant p = new LinearPlant(TransferFunction.fopdt(2.0, 30.0, 5.5));}
  *
  * <p>Not thread-safe: one simulation owns a plant.
@@ -38,13 +41,13 @@ public final class LinearPlant implements Plant {
      */
     private static final double SLIVER = 1e-9;
 
-    private final TransferFunction model;
     private final int order;
     private final double[] stateMatrix;
     private final double[] inputVector;
     private final double[] outputVector;
-    private final double feedthrough;
-    private final double deadTimeSeconds;
+    private TransferFunction model;
+    private double feedthrough;
+    private double deadTimeSeconds;
 
     private final double[] state;
     private final double[] scratch;
@@ -53,10 +56,14 @@ public final class LinearPlant implements Plant {
     private final double[] cachedSeconds = new double[CACHED_LENGTHS];
     private final double[][] cachedTransition;
     private final double[][] cachedInputResponse;
-    // the discretisation last used, so a fixed period looks nothing up
+    // the discretisation last used, so a fixed period looks nothing up, and the one before it, so a dead
+    // time that is not a whole number of periods (two held pieces per period, in turn) looks nothing up either
     private double currentSeconds = Double.NaN;
     private double[] currentTransition;
     private double[] currentInputResponse;
+    private double previousSeconds = Double.NaN;
+    private double[] previousTransition;
+    private double[] previousInputResponse;
     private int nextSlot;
 
     // the delay line: a ring of held pieces, oldest first
@@ -68,37 +75,62 @@ public final class LinearPlant implements Plant {
 
     /** A plant at rest for the given model. */
     public LinearPlant(TransferFunction model) {
-        this.model = model;
-        double[] den = model.denominator();
-        double[] num = model.numerator();
-        order = den.length - 1;
-        double lead = den[0];
-        double[] beta = new double[order + 1];
-        for (int i = 0; i < num.length; i++) {
-            beta[order + 1 - num.length + i] = num[i] / lead;
-        }
-        feedthrough = beta[0];
+        order = model.denominator().length - 1;
         stateMatrix = new double[order * order];
         inputVector = new double[order];
         outputVector = new double[order];
+        state = new double[order];
+        scratch = new double[order];
+        cachedTransition = new double[CACHED_LENGTHS][order * order];
+        cachedInputResponse = new double[CACHED_LENGTHS][order];
+        adopt(model);
+    }
+
+    /**
+     * Takes another model of the same order, at rest: its realisation replaces this one's and the
+     * cached discretisations are dropped (computed again as the new model meets each interval length).
+     * Allocates nothing beyond what reading the model's coefficients costs.
+     *
+     * @throws IllegalArgumentException when the model's order differs from this plant's
+     */
+    public void adopt(TransferFunction newModel) {
+        double[] den = newModel.denominator();
+        double[] num = newModel.numerator();
+        if (den.length - 1 != order) {
+            throw new IllegalArgumentException("a plant takes only a model of its own order " + order
+                    + ": denominator=" + Arrays.toString(den));
+        }
+        model = newModel;
+        double lead = den[0];
+        // beta: the numerator over the leading denominator coefficient, padded to order + 1 coefficients
+        int pad = order + 1 - num.length;
+        feedthrough = pad == 0 ? num[0] / lead : 0.0;
+        Arrays.fill(stateMatrix, 0.0);
         for (int j = 0; j + 1 < order; j++) {
             stateMatrix[j * order + j + 1] = 1.0;
         }
         for (int j = 0; j < order; j++) {
             double a = den[order - j] / lead;
+            int betaIndex = order - j;
+            double beta = betaIndex >= pad ? num[betaIndex - pad] / lead : 0.0;
             stateMatrix[(order - 1) * order + j] = -a;
-            outputVector[j] = beta[order - j] - feedthrough * a;
+            outputVector[j] = beta - feedthrough * a;
         }
         if (order > 0) {
             inputVector[order - 1] = 1.0;
         }
-        deadTimeSeconds = model.deadTimeSeconds();
-        state = new double[order];
-        scratch = new double[order];
-        cachedTransition = new double[CACHED_LENGTHS][order * order];
-        cachedInputResponse = new double[CACHED_LENGTHS][order];
+        deadTimeSeconds = newModel.deadTimeSeconds();
         Arrays.fill(cachedSeconds, Double.NaN);
+        currentSeconds = Double.NaN;
+        currentTransition = null;
+        previousSeconds = Double.NaN;
+        nextSlot = 0;
         reset();
+    }
+
+    /** Whether {@link #adopt} takes this model: a transfer function of this plant's order. */
+    public boolean fits(TransferFunction candidate) {
+        return candidate.denominator().length - 1 == order;
     }
 
     /** The transfer function this plant realises. */
@@ -198,6 +230,22 @@ public final class LinearPlant implements Plant {
 
     /** Makes Φ(τ), Γ(τ) for τ = seconds current, from the cache or computed into its oldest slot. */
     private void select(double seconds) {
+        double[] transition = currentTransition;
+        double[] inputResponse = currentInputResponse;
+        double lastSeconds = currentSeconds;
+        if (seconds == previousSeconds) {
+            currentSeconds = previousSeconds;
+            currentTransition = previousTransition;
+            currentInputResponse = previousInputResponse;
+        } else {
+            lookUp(seconds);
+        }
+        previousSeconds = lastSeconds;
+        previousTransition = transition;
+        previousInputResponse = inputResponse;
+    }
+
+    private void lookUp(double seconds) {
         int slot = -1;
         for (int i = 0; i < CACHED_LENGTHS && slot < 0; i++) {
             if (cachedSeconds[i] == seconds) {
@@ -205,6 +253,9 @@ public final class LinearPlant implements Plant {
             }
         }
         if (slot < 0) {
+            if (cachedTransition[nextSlot] == currentTransition) {
+                nextSlot = (nextSlot + 1) % CACHED_LENGTHS; // the current one is about to be the previous: keep it
+            }
             slot = nextSlot;
             nextSlot = (nextSlot + 1) % CACHED_LENGTHS;
             discretise(seconds, cachedTransition[slot], cachedInputResponse[slot]);

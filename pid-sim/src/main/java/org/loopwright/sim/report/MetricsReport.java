@@ -81,7 +81,8 @@ public final class MetricsReport {
      */
     public static ResultTable table(ResponseMetrics m, Optional<LimitCycle> cycle, Units units) {
         ResultTable table = ResultTable.of("Response metrics (" + NumberText.MISSING + ": the figure does not apply)."
-                + " Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + "; step figures only once settled (2 % band).",
+                + " Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + ". Step figures only once settled: "
+                + ResponseMetrics.SETTLED_RULE + ".",
                 ResultTable.Column.text("figure", "figure"), ResultTable.Column.number("value", "value", "", 4),
                 ResultTable.Column.text("unit", "unit"));
         boolean unsettled = m.state() == ResponseState.NOT_SETTLED || m.state() == ResponseState.DIVERGED;

@@ -8,7 +8,10 @@ import org.loopwright.pid.multiloop.SplitRange;
 import org.loopwright.pid.onoff.OnOffController;
 import org.loopwright.sim.nonideal.Actuator;
 import org.loopwright.sim.nonideal.Sensor;
+import org.loopwright.sim.plant.LinearPlant;
 import org.loopwright.sim.plant.Plant;
+import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.LoadStep;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.SetpointChange;
@@ -37,14 +40,15 @@ import org.loopwright.sim.scenario.SetpointChange;
  *
  * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
  * cached its discretisation after the first samples). Usable from a benchmark:
- * {@code if (!loop.step()) loop.rewind();}.
+ * {@code if (!loop.step()) loop.rewind();}. A sweep runs many plants on one loop with
+ * {@link #rewind(PlantModel)}.
  *
  * <p>Not thread-safe: one thread runs a loop; build one loop per thread from a shared scenario.
  */
 public final class ClosedLoop {
 
     private final Scenario scenario;
-    private final Plant plant;
+    private Plant plant;
     private final SeriesPlant series;
     private final SplitRange split;
     private final FeedbackLaw law;
@@ -145,6 +149,26 @@ public final class ClosedLoop {
         rampFrom = rest;
         rampTo = rest;
         rampSeconds = 0.0;
+    }
+
+    /**
+     * Back to rest at sample 0 as {@link #rewind()} does, on another model of the scenario's plant (the
+     * outer plant of a cascade): everything else — controller, setpoint, loads, actuator, sensor and its
+     * random streams — stays the scenario's. A linear plant of the same order takes the model in place
+     * ({@link LinearPlant#adopt}), allocating nothing per step afterwards; any other model gets a new
+     * plant. {@link #scenario()} stays the scenario the loop was built for.
+     */
+    public void rewind(PlantModel model) {
+        Plant current = series != null ? series.outer() : plant;
+        if (current instanceof LinearPlant linear && model instanceof TransferFunction transfer
+                && linear.fits(transfer)) {
+            linear.adopt(transfer);
+        } else if (series != null) {
+            series.replaceOuter(model.newPlant());
+        } else {
+            plant = model.newPlant();
+        }
+        rewind();
     }
 
     /**

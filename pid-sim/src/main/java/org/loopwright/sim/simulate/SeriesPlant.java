@@ -18,7 +18,7 @@ final class SeriesPlant implements Plant {
     static final int SUB_STEPS = 10;
 
     private final Plant inner;
-    private final Plant outer;
+    private Plant outer;
 
     SeriesPlant(Plant inner, Plant outer) {
         this.inner = inner;
@@ -35,6 +35,16 @@ final class SeriesPlant implements Plant {
     @Override
     public double output() {
         return outer.output();
+    }
+
+    /** The outer plant: the scenario's own. */
+    Plant outer() {
+        return outer;
+    }
+
+    /** Puts another outer plant in place (at rest); the inner plant stays. */
+    void replaceOuter(Plant replacement) {
+        outer = replacement;
     }
 
     /** The inner plant's output: the inner measurement before any sensor. */

@@ -8,6 +8,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 
 import org.hipparchus.complex.Complex;
@@ -15,10 +16,11 @@ import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.Scenario;
-import org.loopwright.sim.simulate.Simulation;
+import org.loopwright.sim.simulate.ClosedLoop;
 import org.loopwright.sim.simulate.Trajectory;
 
 /**
@@ -82,7 +84,10 @@ public final class Sweep {
     }
 
     /**
-     * Runs {@code runs} simulations on {@code threads} threads.
+     * Runs {@code runs} simulations on {@code threads} threads. Each thread builds one closed loop and
+     * rewinds it onto the next run's plant ({@link ClosedLoop#rewind(PlantModel)}), taking run indices
+     * one at a time from a shared counter, so a slow run does not hold up a fixed share of the work;
+     * each result goes to its index's slot, whichever thread ran it.
      *
      * @param runs          how many plants to draw, at least 1
      * @param threads       the pool's size, at least 1
@@ -92,23 +97,26 @@ public final class Sweep {
         if (runs < 1 || threads < 1) {
             throw new IllegalArgumentException("runs and threads must be >= 1: runs=" + runs + ", threads=" + threads);
         }
-        ExecutorService pool = Executors.newFixedThreadPool(threads);
+        int workers = Math.min(threads, runs);
+        ExecutorService pool = Executors.newFixedThreadPool(workers);
         try {
-            List<Future<SweepRun>> futures = new ArrayList<>(runs);
-            for (int i = 0; i < runs; i++) {
-                int index = i;
+            SweepRun[] results = new SweepRun[runs];
+            AtomicInteger next = new AtomicInteger();
+            List<Future<?>> futures = new ArrayList<>(workers);
+            for (int w = 0; w < workers; w++) {
                 futures.add(pool.submit(() -> {
-                    SweepRun run = run(index, draw(index));
-                    onRunFinished.accept(index);
-                    return run;
+                    ClosedLoop loop = new ClosedLoop(scenario);
+                    for (int index = next.getAndIncrement(); index < runs; index = next.getAndIncrement()) {
+                        results[index] = run(loop, index, draw(index));
+                        onRunFinished.accept(index);
+                    }
                 }));
             }
-            SweepRun nominal = run(NOMINAL_INDEX, PlantDraw.NOMINAL);
-            List<SweepRun> results = new ArrayList<>(runs);
-            for (Future<SweepRun> future : futures) {
-                results.add(future.get());
+            SweepRun nominal = run(new ClosedLoop(scenario), NOMINAL_INDEX, PlantDraw.NOMINAL);
+            for (Future<?> future : futures) {
+                future.get();
             }
-            return new SweepResult(scenario, spread, seed, nominal, results);
+            return new SweepResult(scenario, spread, seed, nominal, List.of(results));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("sweep interrupted", e);
@@ -122,10 +130,12 @@ public final class Sweep {
         }
     }
 
-    private SweepRun run(int index, PlantDraw draw) {
+    /** One run on a thread's own loop, rewound onto the drawn plant. */
+    private SweepRun run(ClosedLoop loop, int index, PlantDraw draw) {
         TransferFunction plant = draw.apply(nominalPlant);
         Scenario drawn = scenario.withPlant(plant);
-        Trajectory trajectory = Simulation.run(drawn);
+        loop.rewind(plant);
+        Trajectory trajectory = loop.run();
         ResponseMetrics metrics = ResponseMetrics.of(drawn, trajectory);
         double poleMagnitude = largestPoleMagnitude(drawn);
         LoopStability stability = trajectory.diverged() ? LoopStability.DIVERGED

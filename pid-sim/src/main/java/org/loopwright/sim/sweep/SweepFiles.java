@@ -22,7 +22,8 @@ import org.loopwright.sim.report.ResponsePlot;
 
 /**
  * A sweep's files: {@value #CSV} with one row per run (Commons CSV) and {@value #PLOT_NAME}.png/.svg
- * with every run's measurement overlaid, the nominal run in black (XChart). The CSV's columns are
+ * with the runs' measurement as an envelope (min to max, 10th to 90th percentile, median), the nominal
+ * run in black (XChart). The CSV's columns are
  * {@link #HEADER}: the run's index, its three factors, the plant simulated (coefficients in descending
  * powers of s, separated by spaces; dead time in seconds), the stability verdict
  * ({@code stable}, {@code unstable}, {@code diverged}, {@code not-assessed}), the largest closed-loop pole magnitude,
@@ -39,12 +40,14 @@ public final class SweepFiles {
             "dead_time_factor", "numerator", "denominator", "dead_time", "stability", "largest_pole_magnitude",
             "rise_time", "settling_time", "overshoot_percent", "steady_state_error", "iae", "saturated_fraction");
 
-    private static final Color RUN_COLOUR = new Color(31, 119, 180, 70);
+    private static final Color OUTER_BAND = new Color(31, 119, 180, 60);
+    private static final Color INNER_BAND = new Color(31, 119, 180, 120);
+    private static final Color MEDIAN_COLOUR = new Color(31, 119, 180);
     private static final Color UNSTABLE_COLOUR = new Color(214, 39, 40, 110);
     /** Unstable runs are clipped to the stable runs' range widened by this share of it. */
     private static final double CLIP_MARGIN = 0.25;
-    /** About the most points all runs together are drawn with. */
-    private static final int PLOT_POINT_BUDGET = 40_000;
+    /** The most unstable or diverged runs drawn one by one. */
+    private static final int UNSTABLE_DRAWN = 20;
 
     private SweepFiles() {
     }
@@ -89,38 +92,62 @@ public final class SweepFiles {
         return Double.isNaN(value) ? "" : Double.toString(value);
     }
 
-    /** Every run's measurement against time, the nominal run on top. */
+    /**
+     * The runs' measurement against time as an envelope, drawn at the same cost for 10 or 10,000 runs:
+     * at each thinned instant, over the stable runs (neither unstable nor diverged), the band from the
+     * smallest to the largest value and the band from the 10th to the 90th percentile, with the median
+     * dashed; the nominal run in black on top; and the first {@value #UNSTABLE_DRAWN} unstable or diverged
+     * runs in red, each clipped to the stable runs' range widened by a quarter of it.
+     */
     public static XYChart plot(SweepResult result, String title) {
+        double[] times = result.nominal().plotTimes();
+        List<double[]> stable = new ArrayList<>();
+        List<SweepRun> unstable = new ArrayList<>();
+        for (SweepRun run : result.runs()) {
+            if (run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.DIVERGED) {
+                unstable.add(run);
+            } else if (run.plotMeasurements().length == times.length) {
+                stable.add(run.plotMeasurements());
+            }
+        }
+        double[][] envelope = envelope(stable, times.length);
         double low = Double.POSITIVE_INFINITY;
         double high = Double.NEGATIVE_INFINITY;
-        boolean anyUnstable = false;
-        for (SweepRun run : plotted(result)) {
-            if (run.stability() == LoopStability.UNSTABLE) {
-                anyUnstable = true;
-                continue;
-            }
-            for (double y : run.plotMeasurements()) {
-                if (Double.isFinite(y)) {
-                    low = Math.min(low, y);
-                    high = Math.max(high, y);
-                }
+        for (double y : concat(envelope[0], envelope[4], result.nominal().plotMeasurements())) {
+            if (Double.isFinite(y)) {
+                low = Math.min(low, y);
+                high = Math.max(high, y);
             }
         }
-        boolean clip = anyUnstable && low < high;
-        double margin = CLIP_MARGIN * (high - low);
+        int drawn = Math.min(UNSTABLE_DRAWN, unstable.size());
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
-                + (clip ? " (unstable runs in red, clipped)" : ""), "time (s)", "measurement");
-        // the SVG grows with every point: many runs are thinned further, the nominal run is not
-        int stride = Math.max(1, result.runs().size() * Sweep.PLOT_POINTS / PLOT_POINT_BUDGET);
-        for (SweepRun run : result.runs()) {
-            XYSeries series = add(chart, "run " + run.index(), run, stride, clip, low - margin, high + margin);
-            if (series != null) {
-                series.setLineColor(run.stability() == LoopStability.UNSTABLE ? UNSTABLE_COLOUR : RUN_COLOUR);
-                series.setLineStyle(new BasicStroke(1.0f));
-                series.setShowInLegend(false);
+                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " unstable ("
+                        + (drawn < unstable.size() ? "first " + drawn + " shown" : "shown") + " in red, clipped)"),
+                "time (s)", "measurement");
+        if (!stable.isEmpty()) {
+            band(chart, stable.size() + " stable runs: min to max", times, envelope[0], envelope[4], OUTER_BAND);
+            band(chart, "10th to 90th percentile", times, envelope[1], envelope[3], INNER_BAND);
+            XYSeries median = line(chart, "median", times, envelope[2], low, high, false);
+            if (median != null) {
+                median.setLineColor(MEDIAN_COLOUR);
+                median.setLineStyle(new BasicStroke(1.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10.0f,
+                        new float[] {6.0f, 4.0f}, 0.0f));
             }
         }
-        XYSeries nominal = add(chart, "nominal plant", result.nominal(), 1, clip, low - margin, high + margin);
+        boolean clip = low < high;
+        double margin = CLIP_MARGIN * (high - low);
+        for (int i = 0; i < drawn; i++) {
+            SweepRun run = unstable.get(i);
+            XYSeries series = line(chart, i == 0 ? "unstable runs" : "run " + run.index(), run.plotTimes(), run.plotMeasurements(), low - margin,
+                    high + margin, clip);
+            if (series != null) {
+                series.setLineColor(UNSTABLE_COLOUR);
+                series.setLineStyle(new BasicStroke(1.0f));
+                series.setShowInLegend(i == 0);
+            }
+        }
+        XYSeries nominal = line(chart, "nominal plant", times, result.nominal().plotMeasurements(), low - margin,
+                high + margin, clip);
         if (nominal != null) {
             nominal.setLineColor(Color.BLACK);
             nominal.setLineStyle(new BasicStroke(2.0f));
@@ -129,34 +156,71 @@ public final class SweepFiles {
         return chart;
     }
 
-    private static List<SweepRun> plotted(SweepResult result) {
-        List<SweepRun> all = new ArrayList<>(result.runs());
-        all.add(result.nominal());
-        return all;
+    /**
+     * Min, 10th percentile, median, 90th percentile and max at each instant over the runs (NaN where no
+     * run has a value: a dropout in every run), percentiles as {@link Distribution} defines them.
+     */
+    private static double[][] envelope(List<double[]> runs, int instants) {
+        double[][] envelope = new double[5][instants];
+        double[] column = new double[runs.size()];
+        for (int i = 0; i < instants; i++) {
+            int n = 0;
+            for (double[] run : runs) {
+                if (!Double.isNaN(run[i])) {
+                    column[n++] = run[i];
+                }
+            }
+            Arrays.sort(column, 0, n);
+            double[] sorted = Arrays.copyOf(column, n);
+            envelope[0][i] = n == 0 ? Double.NaN : sorted[0];
+            envelope[1][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 10.0);
+            envelope[2][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 50.0);
+            envelope[3][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 90.0);
+            envelope[4][i] = n == 0 ? Double.NaN : sorted[n - 1];
+        }
+        return envelope;
     }
 
-    private static XYSeries add(XYChart chart, String name, SweepRun run, int stride, boolean clip, double low,
-            double high) {
-        double[] t = run.plotTimes();
-        double[] y = run.plotMeasurements();
+    /** A filled band between two curves: one polygon, along the upper curve and back along the lower. */
+    private static void band(XYChart chart, String name, double[] times, double[] lower, double[] upper, Color fill) {
+        List<Double> x = new ArrayList<>();
+        List<Double> y = new ArrayList<>();
+        for (int i = 0; i < times.length; i++) {
+            if (Double.isFinite(upper[i])) {
+                x.add(times[i]);
+                y.add(upper[i]);
+            }
+        }
+        for (int i = times.length - 1; i >= 0; i--) {
+            if (Double.isFinite(lower[i])) {
+                x.add(times[i]);
+                y.add(lower[i]);
+            }
+        }
+        if (!x.isEmpty()) {
+            XYSeries series = ResponsePlot.line(chart, name, x, y, 0);
+            series.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.PolygonArea);
+            series.setFillColor(fill);
+            series.setLineColor(fill);
+        }
+    }
+
+    /** A line through the finite points (clipped to [low, high] when asked); null when there is none. */
+    private static XYSeries line(XYChart chart, String name, double[] t, double[] y, double low, double high,
+            boolean clip) {
         List<Double> times = new ArrayList<>();
         List<Double> values = new ArrayList<>();
-        int last = t.length - 1;
-        for (int i = 0; i <= last; i += stride) {
-            point(t[i], y[i], clip, low, high, times, values);
-        }
-        if (last % stride != 0) {
-            point(t[last], y[last], clip, low, high, times, values);
+        for (int i = 0; i < t.length; i++) {
+            if (Double.isNaN(y[i]) || !clip && Double.isInfinite(y[i])) {
+                continue; // a dropout, or a diverged run with nothing stable to clip it to
+            }
+            times.add(t[i]);
+            values.add(clip ? Math.max(low, Math.min(high, y[i])) : y[i]);
         }
         return times.isEmpty() ? null : ResponsePlot.line(chart, name, times, values, 0);
     }
 
-    private static void point(double t, double y, boolean clip, double low, double high, List<Double> times,
-            List<Double> values) {
-        if (Double.isNaN(y) || !clip && Double.isInfinite(y)) {
-            return; // a dropout, or a diverged run with nothing stable to clip it to
-        }
-        times.add(t);
-        values.add(clip ? Math.max(low, Math.min(high, y)) : y);
+    private static double[] concat(double[]... arrays) {
+        return Arrays.stream(arrays).flatMapToDouble(Arrays::stream).toArray();
     }
 }

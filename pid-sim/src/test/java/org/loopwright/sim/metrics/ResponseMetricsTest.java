@@ -4,6 +4,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.sim.plant.TransferFunction;
@@ -44,6 +46,70 @@ class ResponseMetricsTest {
     }
 
     /**
+     * A slow lag is not settled just because it moves little near the window's end. PI with Ti = T on
+     * K/(Ts + 1) gives the first-order closed loop 1/(τs + 1), τ = T/(Kc·K) (the analytic anchor of the
+     * design notes); here τ = 10/(0.1·1) = 100 s watched for 60 s: y(60) = 1 − e^(−0.6) = 0.451, still
+     * 0.55 from its final value. It moves only 0.017 over the last 3 s, inside the ±0.02 band, which the
+     * old rule (band around the last value over the last 5 %) called settled with settling time 55 s.
+     * It is far outside the setpoint's band, and its slope over the last 6 s, about e^(−0.57)/100 ≈
+     * 0.0057 /s, continued for 60 s is 0.34, far beyond the band around its last value.
+     */
+    @Test
+    void slowLagWatchedForLessThanItsTimeConstantIsNotSettled() {
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0), pi(0.1, 10.0, 0.1), 1.0, 60.0);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(ResponseState.NOT_SETTLED);
+        assertThat(m.settlingTimeSeconds()).isNaN();
+        assertThat(m.steadyStateError()).isNaN();
+        assertThat(m.overshootPercent()).isNaN();
+    }
+
+    /**
+     * Where the rule puts the line for a first-order loop that stops short of the setpoint: P control
+     * Kc = 1 of 1/(10s + 1) gives (Kc/(1 + Kc))·(1 − e^(−t/τ)) with τ = 10/(1 + Kc) = 5 s (analytic; the
+     * steady state of P control on a first-order plant). The final value 0.5 is outside the setpoint's
+     * band, so the output must be at rest. Watched for 4τ it still climbs at 0.5·e^(−3.8)/τ, which over
+     * 4τ is 4.5 % of the step: not settled. Watched for 7τ that figure is 0.45 %: settled, when the
+     * output comes within 0.02 of the window's last value 0.5·(1 − e^(−7)), at t = τ·ln(1/(0.04 + e^(−7))).
+     */
+    @ParameterizedTest
+    @CsvSource({"20, false", "35, true"})
+    void loopStoppingShortIsSettledOnceItHasBeenSeenToRest(double windowSeconds, boolean settled) {
+        double tau = 5.0;
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0),
+                pi(1.0, Double.POSITIVE_INFINITY, 0.002), 1.0, windowSeconds);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(settled ? ResponseState.SETTLED : ResponseState.NOT_SETTLED);
+        if (settled) {
+            assertThat(m.settlingTimeSeconds()).isCloseTo(tau * Math.log(1.0 / (0.04 + Math.exp(-7.0))), within(0.01));
+            assertThat(m.steadyStateError()).isCloseTo(0.5 + 0.5 * Math.exp(-7.0), within(1e-4));
+        } else {
+            assertThat(m.settlingTimeSeconds()).isNaN();
+        }
+    }
+
+    /**
+     * The same first-order closed loop with integral action (PI with Ti = T, τ = 5 s, as in the first
+     * test) heads for the setpoint: watched for 3.5τ it is e^(−3.15) = 4.3 % away at the start of the
+     * final stretch, outside the setpoint's band, and its slope continued for 3.5τ is about 12 % of the step:
+     * not settled. Watched for 4.4τ it is inside the setpoint's band over the whole final stretch
+     * (e^(−3.96) = 1.9 %) and still closing on it: settled, at τ·ln 50 against the setpoint, though its
+     * slope continued for the window (about 7 % of the step) would fail the at-rest test.
+     */
+    @ParameterizedTest
+    @CsvSource({"17.5, false", "22, true"})
+    void loopClosingOnTheSetpointIsSettledInsideItsBand(double windowSeconds, boolean settled) {
+        double tau = 5.0;
+        Scenario s = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 10.0), pi(2.0, 10.0, 0.002), 1.0,
+                windowSeconds);
+        ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
+        assertThat(m.state()).isEqualTo(settled ? ResponseState.SETTLED : ResponseState.NOT_SETTLED);
+        if (settled) {
+            assertThat(m.settlingTimeSeconds()).isCloseTo(tau * Math.log(50.0), within(0.01));
+        }
+    }
+
+    /**
      * Analytic (Åström &amp; Murray 2021, §5.3 / the standard second-order step response): a loop
      * that is ωn²/(s² + 2ζωn·s + ωn²) overshoots by 100·e^(−πζ/√(1−ζ²)) % at t = π/(ωn√(1−ζ²)).
      * P control Kc = 1 of ωn²/(s(s + 2ζωn)) gives exactly that closed loop.
@@ -56,6 +122,7 @@ class ResponseMetricsTest {
         Scenario s = Scenario.setpointStep(openLoop, pi(1.0, Double.POSITIVE_INFINITY, 0.001), 1.0, 40.0);
         ResponseMetrics m = ResponseMetrics.of(s, Simulation.run(s));
         double damped = wn * Math.sqrt(1 - zeta * zeta);
+        assertThat(m.state()).as("ringing decayed to e^(-0.4*36) long before the end").isEqualTo(ResponseState.SETTLED);
         assertThat(m.overshootPercent()).isCloseTo(100 * Math.exp(-Math.PI * zeta / Math.sqrt(1 - zeta * zeta)),
                 within(0.2));
         assertThat(m.peakTimeSeconds()).isCloseTo(Math.PI / damped, within(0.01));
