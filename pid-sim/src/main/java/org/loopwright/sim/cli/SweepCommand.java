@@ -11,13 +11,18 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.HtmlReport;
-import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.report.JsonOutput;
+import org.loopwright.sim.report.NumberText;
+import org.loopwright.sim.report.ResultTable;
+import org.loopwright.sim.report.ResultTable.Column;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.sweep.Distribution;
 import org.loopwright.sim.sweep.LoopStability;
 import org.loopwright.sim.sweep.Spread;
@@ -25,9 +30,6 @@ import org.loopwright.sim.sweep.Sweep;
 import org.loopwright.sim.sweep.SweepFiles;
 import org.loopwright.sim.sweep.SweepResult;
 import org.loopwright.sim.sweep.SweepRun;
-
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -92,37 +94,27 @@ public final class SweepCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        Scenario scenario;
-        Spread spread;
         int threadCount = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        try {
-            if (runs < 1 || runs > MAX_RUNS) {
-                throw new IllegalArgumentException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
-            }
-            if (threadCount < 1 || threadCount > MAX_THREADS) {
-                throw new IllegalArgumentException("--threads must be from 1 to " + MAX_THREADS + ": --threads="
-                        + threadCount);
-            }
-            spread = Spread.parse(spreadText);
-            scenario = ScenarioFile.read(scenarioFile);
-            if (scenario.linearPlant().isEmpty()) {
-                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
-                        + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
-            }
-            if (scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
-                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
-                        + PlantType.linearWords() + "): inner.plant.type=" + scenario.inner().get().plant().type().word());
-            }
-            if (scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
-                throw InputFileException.whole(scenarioFile.toString(), "sweep judges stability on a loop with fixed"
-                        + " gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
-                        : "split-range") + " is given");
-            }
-        } catch (InputFileException | IllegalArgumentException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        if (runs < 1 || runs > MAX_RUNS) {
+            throw InputException.option("--runs", runs, "must be from 1 to " + MAX_RUNS);
+        }
+        if (threadCount < 1 || threadCount > MAX_THREADS) {
+            throw InputException.option("--threads", threadCount, "must be from 1 to " + MAX_THREADS);
+        }
+        Spread spread = Spread.parse(spreadText);
+        Scenario scenario = ScenarioFile.read(scenarioFile);
+        if (scenario.linearPlant().isEmpty()) {
+            throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear plant ("
+                    + PlantType.linearWords() + "): plant.type=" + scenario.plant().type().word());
+        }
+        if (scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
+            throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
+                    + PlantType.linearWords() + "): inner.plant.type=" + scenario.inner().get().plant().type().word());
+        }
+        if (scenario.schedule().isPresent() || scenario.splitRange().isPresent()) {
+            throw InputFileException.whole(scenarioFile.toString(), "sweep judges stability on a loop with fixed"
+                    + " gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
+                    : "split-range") + " is given");
         }
         boolean json = output.json();
         Path outDirectory = output.directory("sweep");
@@ -132,27 +124,24 @@ public final class SweepCommand implements Callable<Integer> {
             result = new Sweep(scenario, spread, seed).run(runs, threadCount, progress);
         }
         String title = String.valueOf(scenarioFile.getFileName());
+        Units units = scenario.units();
         List<Path> written;
         // staged, then moved: a run that fails half way leaves no half-written file behind
         try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-            written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title));
+            written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title, units));
             written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
-                    HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
-                    List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
+                    HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)),
+                    List.of(table(result, units).html(), runsTable(result, units).html()), List.of(written.get(1)),
+                    title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
             stage.commit();
-        } catch (IOException e) {
-            err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)
-                    .getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
         }
         if (json) {
-            out.println(Json.pretty(json(result, threadCount)));
+            out.println(JsonOutput.text(SweepJson.of(result, threadCount)));
         } else {
             out.println(header(result, threadCount));
-            out.print(text(table(result)));
-            out.println(describe("worst run", result.worst()));
-            out.println(describe("nominal plant", result.nominal()));
+            out.print(table(result, units).text());
+            out.println(describe("worst run", result.worst(), units));
+            out.println(describe("nominal plant", result.nominal(), units));
             out.println("Wrote " + written.stream().map(p -> String.valueOf(p.getFileName())).toList() + " in "
                     + outDirectory);
         }
@@ -192,112 +181,57 @@ public final class SweepCommand implements Callable<Integer> {
         return String.format(Locale.ROOT, "%.1f %%", 100.0 * share);
     }
 
-    private static HtmlTable table(SweepResult result) {
-        List<List<String>> rows = new ArrayList<>();
-        rows.add(row("overshoot (%)", result.overshootPercent()));
-        rows.add(row("settling time (2 %, s)", result.settlingTimeSeconds()));
-        rows.add(row("IAE", result.iae()));
-        rows.add(row("time saturated (%)", result.saturatedPercent()));
-        return new HtmlTable("Distribution over the runs (runs: how many have the figure)",
-                List.of("figure", "runs", "min", "median", "p90", "max"), rows);
+    /** The figures' distribution over the runs, with their units. */
+    private static ResultTable table(SweepResult result, Units units) {
+        ResultTable table = ResultTable.of("Distribution over the runs (runs: how many have the figure)",
+                Column.text("figure", "figure"), Column.text("runs", "runs"), Column.number("min", "min", "", 4),
+                Column.number("median", "median", "", 4), Column.number("p90", "p90", "", 4),
+                Column.number("max", "max", "", 4));
+        row(table, "overshoot (%)", result.overshootPercent());
+        row(table, "settling time (2 %, s)", result.settlingTimeSeconds());
+        row(table, "IAE (" + units.processSeconds() + ")", result.iae());
+        row(table, "time saturated (%)", result.saturatedPercent());
+        return table;
     }
 
-    private static List<String> row(String name, Distribution d) {
-        return List.of(name, String.valueOf(d.count()), number(d.min()), number(d.median()), number(d.p90()),
-                number(d.max()));
+    private static void row(ResultTable table, String name, Distribution d) {
+        table.row(name, String.valueOf(d.count()), d.min(), d.median(), d.p90(), d.max());
     }
 
-    private static HtmlTable runsTable(SweepResult result) {
-        List<List<String>> rows = new ArrayList<>();
-        rows.add(runRow("nominal", result.nominal()));
-        rows.add(runRow("worst (#" + result.worst().index() + ")", result.worst()));
-        return new HtmlTable("The nominal and the worst run (unstable first, then unsettled, then the largest IAE)",
-                List.of("run", "gain x", "time constants x", "dead time x", "stability", "overshoot (%)",
-                        "settling time (s)", "IAE"), rows);
-    }
-
-    private static List<String> runRow(String name, SweepRun run) {
-        return List.of(name, number(run.draw().gainFactor()), number(run.draw().timeConstantFactor()),
-                number(run.draw().deadTimeFactor()), word(run.stability()), number(run.metrics().overshootPercent()),
-                number(run.metrics().settlingTimeSeconds()), number(run.metrics().iae()));
+    /** The nominal and the worst run: the plant factors, the verdict and the figures, with their units. */
+    private static ResultTable runsTable(SweepResult result, Units units) {
+        ResultTable table = ResultTable.of("The nominal and the worst run (unstable first, then unsettled, then the"
+                + " largest IAE)", Column.text("run", "run"), Column.number("gain_factor", "gain x", "", 4),
+                Column.number("time_constant_factor", "time constants x", "", 4),
+                Column.number("dead_time_factor", "dead time x", "", 4), Column.text("stability", "stability"),
+                Column.number("overshoot_percent", "overshoot", "%", 4),
+                Column.number("settling_time", "settling time", "s", 4),
+                Column.number("iae", "IAE", units.processSeconds(), 4));
+        for (SweepRun run : List.of(result.nominal(), result.worst())) {
+            table.row(run == result.nominal() ? "nominal" : "worst (#" + run.index() + ")", run.draw().gainFactor(),
+                    run.draw().timeConstantFactor(), run.draw().deadTimeFactor(), word(run.stability()),
+                    run.metrics().overshootPercent(), run.metrics().settlingTimeSeconds(), run.metrics().iae());
+        }
+        return table;
     }
 
     private static String word(LoopStability stability) {
         return stability.name().toLowerCase(Locale.ROOT).replace('_', ' ');
     }
 
-    private static String text(HtmlTable table) {
-        StringBuilder t = new StringBuilder();
-        String format = "  %-24s %6s %12s %12s %12s %12s%n";
-        t.append(String.format(Locale.ROOT, format, table.header().toArray()));
-        for (List<String> row : table.rows()) {
-            t.append(String.format(Locale.ROOT, format, row.toArray()));
-        }
-        return t.toString();
-    }
-
-    private static String describe(String name, SweepRun run) {
+    private static String describe(String name, SweepRun run, Units units) {
         TransferFunction plant = run.plant();
         return String.format(Locale.ROOT, "%s%s: %s; gain x%s, time constants x%s, dead time x%s: plant %s/%s,"
-                + " dead time %s s; overshoot %s %%, settling time %s s, IAE %s", name,
+                + " dead time %s s; overshoot %s %%, settling time %s s, IAE %s %s", name,
                 run.index() == Sweep.NOMINAL_INDEX ? "" : " #" + run.index(), word(run.stability()),
                 number(run.draw().gainFactor()), number(run.draw().timeConstantFactor()),
                 number(run.draw().deadTimeFactor()), Arrays.toString(plant.numerator()),
                 Arrays.toString(plant.denominator()), number(plant.deadTimeSeconds()),
                 number(run.metrics().overshootPercent()), number(run.metrics().settlingTimeSeconds()),
-                number(run.metrics().iae()));
+                number(run.metrics().iae()), units.processSeconds());
     }
 
     private static String number(double value) {
-        return Double.isNaN(value) ? "n/a" : String.format(Locale.ROOT, "%.4g", value);
-    }
-
-    private static ObjectNode json(SweepResult result, int threadCount) {
-        ObjectNode root = Json.object();
-        root.put("runs", result.runs().size());
-        root.put("seed", result.seed());
-        root.put("threads", threadCount);
-        root.put("distribution", "uniform");
-        ObjectNode spread = root.putObject("spread");
-        spread.put("gain", result.spread().gain());
-        spread.put("time_constant", result.spread().timeConstant());
-        spread.put("dead_time", result.spread().deadTime());
-        Json.number(root, "unstable_share", result.unstableShare());
-        Json.number(root, "not_assessed_share", result.notAssessedShare());
-        Json.number(root, "not_settled_share", result.notSettledShare());
-        distribution(root.putObject("overshoot_percent"), result.overshootPercent());
-        distribution(root.putObject("settling_time"), result.settlingTimeSeconds());
-        distribution(root.putObject("iae"), result.iae());
-        distribution(root.putObject("saturated_percent"), result.saturatedPercent());
-        run(root.putObject("worst_run"), result.worst());
-        run(root.putObject("nominal_run"), result.nominal());
-        return root;
-    }
-
-    private static void distribution(ObjectNode node, Distribution d) {
-        node.put("count", d.count());
-        Json.number(node, "min", d.min());
-        Json.number(node, "median", d.median());
-        Json.number(node, "p90", d.p90());
-        Json.number(node, "max", d.max());
-    }
-
-    private static void run(ObjectNode node, SweepRun run) {
-        node.put("run", run.index());
-        node.put("stability", run.stability().name().toLowerCase(Locale.ROOT).replace('_', '-'));
-        Json.number(node, "gain_factor", run.draw().gainFactor());
-        Json.number(node, "time_constant_factor", run.draw().timeConstantFactor());
-        Json.number(node, "dead_time_factor", run.draw().deadTimeFactor());
-        ArrayNode numerator = node.putArray("numerator");
-        Arrays.stream(run.plant().numerator()).forEach(numerator::add);
-        ArrayNode denominator = node.putArray("denominator");
-        Arrays.stream(run.plant().denominator()).forEach(denominator::add);
-        Json.number(node, "dead_time", run.plant().deadTimeSeconds());
-        Json.number(node, "largest_pole_magnitude", run.largestPoleMagnitude());
-        Json.number(node, "overshoot_percent", run.metrics().overshootPercent());
-        Json.number(node, "settling_time", run.metrics().settlingTimeSeconds());
-        Json.number(node, "steady_state_error", run.metrics().steadyStateError());
-        Json.number(node, "iae", run.metrics().iae());
-        Json.number(node, "saturated_fraction", run.metrics().saturatedFraction());
+        return NumberText.of(value);
     }
 }

@@ -14,7 +14,6 @@ import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.runner.WaitStrategy;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.timing.LoopTiming;
 import org.loopwright.sim.timing.TimedRun;
 import org.loopwright.sim.timing.TimingFiles;
