@@ -232,10 +232,6 @@ class TuneCommandTest {
     @ParameterizedTest(name = "{1}")
     @MethodSource("badInput")
     void badInputExitsWithTwoAndSaysWhy(String[] args, String message) {
-        CommandRun run = CommandRun.of(args);
-
-        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
-        assertThat(run.err().strip()).isEqualTo(message);
-        assertThat(run.out()).isEmpty();
+        CommandRun.assertBadInput(args, message);
     }
 }
