@@ -3,13 +3,18 @@ package org.loopwright.pid;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
-import java.util.Random;
+import java.util.List;
 
+import net.jqwik.api.Arbitraries;
+import net.jqwik.api.Arbitrary;
+import net.jqwik.api.Combinators;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
+import net.jqwik.api.Provide;
+import net.jqwik.api.Tuple;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.discrete.IntegralMethod;
-import org.loopwright.pid.form.IdealGains;
+import org.loopwright.pid.testing.Draws;
 
 /**
  * The properties of issue 3 over random operation: a random industrial configuration runs through
@@ -32,20 +37,53 @@ import org.loopwright.pid.form.IdealGains;
  *       term, u and v the last output after and before the limits. The proportional term, whose
  *       gain or weight may have changed, contributes nothing: that is the rebalance.</li>
  * </ul>
+ * The settings and the operations are drawn through jqwik arbitraries, so a failure shrinks.
  */
 class IndustrialProperties {
 
     private static final int STEPS = 80;
 
-    /** A retune of the same plant interface: new gains, form, weights, filter and methods. */
-    private static ControllerSettings retuned(Random rnd, ControllerSettings from) {
-        ControllerSettings.Builder b = from.toBuilder()
-                .gains(RandomSettings.inRandomForm(rnd, RandomSettings.idealGains(rnd)))
-                .setpointWeights(from.wrapSpan() > 0.0 ? 1.0 : rnd.nextDouble(), rnd.nextDouble())
-                .derivativeFilterRatio(2.0 + 18.0 * rnd.nextDouble())
-                .integralMethod(RandomSettings.pick(rnd, IntegralMethod.values()))
-                .windupProtection(RandomSettings.pick(rnd, WindupProtection.values()));
-        return RandomSettings.stableDerivative(b, RandomSettings.pick(rnd, DerivativeMethod.values())).build();
+    /** What one step of a run does. */
+    enum Act { GOOD_SAMPLE, FAULTY_SAMPLE, SWITCH_MODE, OPERATOR_VALUE, TRACK_VALUE, RETUNE, SWITCH_FEEDFORWARD }
+
+    /**
+     * One step: a and b within ±3 (offsets and steps, scaled where used), u and v within 0..1,
+     * choice 0–11 (read modulo the number of options), flag a coin. What each act reads is in
+     * {@link Run#apply}.
+     */
+    record Step(Act act, double a, double b, double u, double v, int choice, boolean flag) {
+    }
+
+    /** The first settings, two retunes of the same plant interface, the first inputs and the steps. */
+    record Scenario(ControllerSettings first, ControllerSettings second, ControllerSettings third,
+            double setpoint, double measurement, List<Step> steps) {
+    }
+
+    @Provide
+    Arbitrary<Scenario> scenarios() {
+        Arbitrary<Act> acts = Arbitraries.frequency(Tuple.of(55, Act.GOOD_SAMPLE), Tuple.of(12, Act.FAULTY_SAMPLE),
+                Tuple.of(10, Act.SWITCH_MODE), Tuple.of(5, Act.OPERATOR_VALUE), Tuple.of(3, Act.TRACK_VALUE),
+                Tuple.of(8, Act.RETUNE), Tuple.of(7, Act.SWITCH_FEEDFORWARD));
+        Arbitrary<Double> offset = Draws.between(-3.0, 3.0);
+        Arbitrary<Double> unit = Draws.between(0.0, 1.0);
+        Arbitrary<List<Step>> steps = Combinators.combine(acts, offset, offset, unit, unit,
+                Arbitraries.integers().between(0, 11), Arbitraries.of(true, false)).as(Step::new).list().ofSize(STEPS);
+        return SettingsArbitraries.industrial().flatMap(first -> Combinators.combine(retuned(first), retuned(first),
+                offset, offset, steps).as((second, third, r, dy, list) ->
+                        new Scenario(first, second, third, 20.0 * r, 20.0 * r + 5.0 * dy, list)));
+    }
+
+    /** A retune of the same plant interface: new gains (any form), weights, filter and methods. */
+    private static Arbitrary<ControllerSettings> retuned(ControllerSettings from) {
+        Arbitrary<Double> unit = Draws.between(0.0, 1.0);
+        return Combinators.combine(SettingsArbitraries.gains(), unit, unit, Draws.between(2.0, 20.0),
+                Arbitraries.of(IntegralMethod.values()), Arbitraries.of(WindupProtection.values()))
+                .as((gains, b, c, ratio, integralMethod, windup) -> from.toBuilder().gains(gains)
+                        .setpointWeights(from.wrapSpan() > 0.0 ? 1.0 : b, c).derivativeFilterRatio(ratio)
+                        .integralMethod(integralMethod).windupProtection(windup)
+                        // a method every period allows, until withDerivativeMethod picks one these settings allow
+                        .derivativeMethod(DerivativeMethod.BACKWARD_EULER).build())
+                .flatMap(SettingsArbitraries::withDerivativeMethod);
     }
 
     /** The error the settings see, as the controller forms it: action, wrap and deadband. */
@@ -90,7 +128,6 @@ class IndustrialProperties {
     }
 
     private static final class Run {
-        final Random rnd;
         final ControllerSettings[] settings;
         final PidController c;
         ControllerSettings current;
@@ -100,22 +137,41 @@ class IndustrialProperties {
         double feedforward;
         boolean feedforwardOn;
 
-        Run(long seed) {
-            rnd = new Random(seed);
-            IdealGains gains = RandomSettings.idealGains(rnd);
-            ControllerSettings first = RandomSettings.full(rnd, RandomSettings.inRandomForm(rnd, gains)).build();
-            settings = new ControllerSettings[] {first, retuned(rnd, first), retuned(rnd, first)};
-            current = first;
-            c = new PidController(first);
-            r = 20.0 * rnd.nextGaussian();
-            y = r + 5.0 * rnd.nextGaussian();
+        Run(Scenario scenario) {
+            settings = new ControllerSettings[] {scenario.first(), scenario.second(), scenario.third()};
+            current = scenario.first();
+            c = new PidController(current);
+            r = scenario.setpoint();
+            y = scenario.measurement();
         }
 
-        /** One good sample at the given inputs, with every invariant of a good sample checked. */
-        double goodSample(double setpoint, double measurement, boolean fixedPeriod) {
+        void apply(Step step) {
+            switch (step.act()) {
+                // a new setpoint (20·a) one time in five, the measurement 5·b from it
+                case GOOD_SAMPLE -> {
+                    double setpoint = step.u() < 0.2 ? 20.0 * step.a() : r;
+                    goodSample(setpoint, setpoint + 5.0 * step.b(), step.flag(), step.v());
+                }
+                case FAULTY_SAMPLE -> faultySample(step);
+                case SWITCH_MODE -> switchMode(step);
+                // the operator's value anywhere from 10 below the range to 10 above it
+                case OPERATOR_VALUE -> c.manualOutput(current.outputMin() - 10.0
+                        + step.u() * (current.outputMax() - current.outputMin() + 20.0));
+                // NaN (hold) one time in four, else within 15 of the position
+                case TRACK_VALUE -> c.trackValue(step.u() < 0.25 ? Double.NaN : c.position() + 5.0 * step.a());
+                case RETUNE -> retune(settings[step.choice() % settings.length]);
+                case SWITCH_FEEDFORWARD -> switchFeedforward(10.0 * step.a());
+            }
+        }
+
+        /**
+         * One good sample at the given inputs, with every invariant of a good sample checked; a
+         * variable period is 0.5–2 times the configured one.
+         */
+        double goodSample(double setpoint, double measurement, boolean fixedPeriod, double periodShare) {
             double before = c.position();
             double h = fixedPeriod ? current.samplePeriodSeconds()
-                    : current.samplePeriodSeconds() * (0.5 + 1.5 * rnd.nextDouble());
+                    : current.samplePeriodSeconds() * (0.5 + 1.5 * periodShare);
             double u = fixedPeriod ? c.update(setpoint, measurement) : c.update(setpoint, measurement, h);
             c.actuatorPosition(c.position());
             assertThat(c.fault()).isEqualTo(Fault.NONE);
@@ -141,17 +197,18 @@ class IndustrialProperties {
             }
         }
 
-        void faultySample() {
+        /** A bad setpoint, measurement, period or feedforward (choice), NaN or ±∞ (u), a bad period of 0, −0.1, NaN or ±∞ (v). */
+        void faultySample(Step step) {
             StateSnapshot.Values before = c.snapshot().values();
             double position = c.position();
             long faults = c.faultCount();
-            double bad = RandomSettings.pick(rnd,
-                    new Double[] {Double.NaN, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY});
+            double bad = BAD_VALUES[(int) (step.u() * BAD_VALUES.length) % BAD_VALUES.length];
+            double[] badPeriods = {0.0, -0.1, Double.NaN, bad};
             double u;
-            switch (rnd.nextInt(4)) {
+            switch (step.choice() % 4) {
                 case 0 -> u = c.update(bad, y);
                 case 1 -> u = c.update(r, bad);
-                case 2 -> u = c.update(r, y, RandomSettings.pick(rnd, new Double[] {0.0, -0.1, Double.NaN, bad}));
+                case 2 -> u = c.update(r, y, badPeriods[(int) (step.v() * badPeriods.length) % badPeriods.length]);
                 default -> {
                     c.feedforward(bad);
                     c.feedforwardOn(true);
@@ -178,8 +235,9 @@ class IndustrialProperties {
             assertThat(sameCounters(after, before.previousOutput(), before.faultCount())).isEqualTo(before);
         }
 
-        void switchMode() {
-            Mode target = RandomSettings.pick(rnd, Mode.values());
+        /** To the mode of choice, then a good sample at inputs moved by a and b. */
+        void switchMode(Step step) {
+            Mode target = Mode.values()[step.choice() % Mode.values().length];
             Mode from = c.mode();
             double last = c.position();
             switch (target) {
@@ -192,22 +250,21 @@ class IndustrialProperties {
             }
             double scale = roundingScale(c);
             boolean wasStarted = started;
-            goodSample(r + rnd.nextGaussian(), y + rnd.nextGaussian(), rnd.nextBoolean());
+            goodSample(r + step.a(), y + step.b(), step.flag(), step.v());
             if (wasStarted && target != from) {
                 assertThat(c.position()).as("first output after %s -> %s", from, target)
                         .isCloseTo(last, within(target == Mode.AUTOMATIC ? scale : 0.0));
             }
         }
 
-        void retune() {
-            ControllerSettings next = settings[rnd.nextInt(settings.length)];
+        void retune(ControllerSettings next) {
             boolean atRest = started && c.snapshot().values().previousSetpoint() == r;
             double last = c.position();
             double bound = ownIncrement(c, next, r, y);
             double scale = roundingScale(c);
             c.retune(next);
             current = next;
-            goodSample(r, y, true);
+            goodSample(r, y, true, 0.0);
             if (atRest && c.mode() == Mode.AUTOMATIC) {
                 assertThat(Math.abs(c.position() - last)).as("retune bump").isLessThanOrEqualTo(bound + scale);
             }
@@ -216,47 +273,32 @@ class IndustrialProperties {
             }
         }
 
-        void switchFeedforward() {
+        /** Feedforward on (at the value given) or off, then a good sample at unchanged inputs. */
+        void switchFeedforward(double value) {
             boolean atRest = started && c.snapshot().values().previousSetpoint() == r;
             double last = c.position();
             if (!feedforwardOn) {
-                feedforward = 10.0 * rnd.nextGaussian();
+                feedforward = value;
                 c.feedforward(feedforward);
             }
             double bound = ownIncrement(c, current, r, y);
             double scale = roundingScale(c) + 1e-9 * Math.abs(feedforward);
             feedforwardOn = !feedforwardOn;
             c.feedforwardOn(feedforwardOn);
-            goodSample(r, y, true);
+            goodSample(r, y, true, 0.0);
             if (atRest && c.mode() == Mode.AUTOMATIC) {
                 assertThat(Math.abs(c.position() - last)).as("feedforward bump").isLessThanOrEqualTo(bound + scale);
             }
         }
     }
 
+    private static final double[] BAD_VALUES = {Double.NaN, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+
     @Property(tries = 1000)
-    void randomOperationKeepsEveryGuarantee(@ForAll long seed) {
-        Run run = new Run(seed);
-        Random rnd = run.rnd;
-        for (int step = 0; step < STEPS; step++) {
-            int action = rnd.nextInt(100);
-            if (action < 55) {
-                double r = rnd.nextInt(5) == 0 ? 20.0 * rnd.nextGaussian() : run.r;
-                run.goodSample(r, r + 5.0 * rnd.nextGaussian(), rnd.nextBoolean());
-            } else if (action < 67) {
-                run.faultySample();
-            } else if (action < 77) {
-                run.switchMode();
-            } else if (action < 82) {
-                run.c.manualOutput(run.current.outputMin() - 10.0 + rnd.nextDouble() * (run.current.outputMax()
-                        - run.current.outputMin() + 20.0));
-            } else if (action < 85) {
-                run.c.trackValue(rnd.nextInt(4) == 0 ? Double.NaN : run.c.position() + 5.0 * rnd.nextGaussian());
-            } else if (action < 93) {
-                run.retune();
-            } else {
-                run.switchFeedforward();
-            }
+    void randomOperationKeepsEveryGuarantee(@ForAll("scenarios") Scenario scenario) {
+        Run run = new Run(scenario);
+        for (Step step : scenario.steps()) {
+            run.apply(step);
         }
     }
 }

@@ -11,6 +11,7 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 import net.jqwik.api.Tuple;
+import org.loopwright.pid.testing.Draws;
 
 /**
  * Long random runs (issue 11): the controller driven by {@link #OPERATIONS} random operations per
@@ -55,7 +56,7 @@ class LongRandomRunProperties {
 
     static Arbitrary<Double> periods() {
         return Arbitraries.frequencyOf(
-                Tuple.of(12, SettingsArbitraries.logUniform(1e-4, 2.0)),
+                Tuple.of(12, Draws.logUniform(1e-4, 2.0)),
                 Tuple.of(1, Arbitraries.of(0.0, -0.1, -Double.MIN_VALUE, Double.MIN_VALUE, Double.NaN,
                         Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, 1e308)));
     }

@@ -2,37 +2,60 @@ package org.loopwright.pid.form;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
+import static org.loopwright.pid.testing.Draws.logUniform;
+import static org.loopwright.pid.testing.Draws.zeroOrLogUniform;
 
-import java.util.Random;
-
+import net.jqwik.api.Arbitraries;
+import net.jqwik.api.Arbitrary;
+import net.jqwik.api.Combinators;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
+import net.jqwik.api.Provide;
+import net.jqwik.api.Tuple;
+import org.loopwright.pid.testing.Draws;
 
 /**
  * Round trips between the forms, and equal frequency responses for equivalent forms. Values are
- * drawn log-uniformly over several decades from one seed per try.
+ * drawn log-uniformly over several decades through jqwik arbitraries, so a failure shrinks.
  */
 class FormProperties {
-
-    private static double logUniform(Random rnd, double min, double max) {
-        return min * Math.pow(max / min, rnd.nextDouble());
-    }
-
-    /** Zero a quarter of the time, else log-uniform. */
-    private static double zeroOr(Random rnd, double min, double max) {
-        return rnd.nextInt(4) == 0 ? 0.0 : logUniform(rnd, min, max);
-    }
 
     private static void assertRelative(double actual, double expected) {
         assertThat(actual).isCloseTo(expected, within(1e-10 * Math.max(1.0, Math.abs(expected))));
     }
 
+    @Provide
+    Arbitrary<Double> gains() {
+        return logUniform(1e-3, 1e3);
+    }
+
+    @Provide
+    Arbitrary<Double> integralTimes() {
+        return logUniform(1e-3, 1e4);
+    }
+
+    @Provide
+    Arbitrary<Double> zeroOrGains() {
+        return zeroOrLogUniform(1e-3, 1e3);
+    }
+
+    /** Td/Ti up to the limit where the series form exists, the limit itself one time in eight. */
+    @Provide
+    Arbitrary<Double> seriesDerivativeFractions() {
+        return Arbitraries.frequencyOf(Tuple.of(1, Arbitraries.just(0.25)),
+                Tuple.of(7, Draws.between(0.0, 0.25)));
+    }
+
+    /** Td'/Ti' up to 1, 1 itself one time in eight. */
+    @Provide
+    Arbitrary<Double> idealDerivativeFractions() {
+        return Arbitraries.frequencyOf(Tuple.of(1, Arbitraries.just(1.0)),
+                Tuple.of(7, Draws.between(0.0, 1.0)));
+    }
+
     @Property(tries = 1000)
-    void idealToParallelAndBackIsTheIdentity(@ForAll long seed) {
-        Random rnd = new Random(seed);
-        double gain = logUniform(rnd, 1e-3, 1e3);
-        double integralTime = logUniform(rnd, 1e-3, 1e4);
-        double derivativeTime = zeroOr(rnd, 1e-3, 1e3);
+    void idealToParallelAndBackIsTheIdentity(@ForAll("gains") double gain,
+            @ForAll("integralTimes") double integralTime, @ForAll("zeroOrGains") double derivativeTime) {
         IdealGains ideal = new IdealGains(gain, integralTime, derivativeTime);
         IdealGains back = ideal.toParallel().toIdeal();
         assertRelative(back.gain(), gain);
@@ -41,11 +64,8 @@ class FormProperties {
     }
 
     @Property(tries = 1000)
-    void parallelToIdealAndBackIsTheIdentity(@ForAll long seed) {
-        Random rnd = new Random(seed);
-        double kp = logUniform(rnd, 1e-3, 1e3);
-        double ki = zeroOr(rnd, 1e-3, 1e3);
-        double kd = zeroOr(rnd, 1e-3, 1e3);
+    void parallelToIdealAndBackIsTheIdentity(@ForAll("gains") double kp, @ForAll("zeroOrGains") double ki,
+            @ForAll("zeroOrGains") double kd) {
         ParallelGains back = new ParallelGains(kp, ki, kd).toIdeal().toParallel();
         assertRelative(back.proportionalGain(), kp);
         assertRelative(back.integralGain(), ki);
@@ -53,11 +73,8 @@ class FormProperties {
     }
 
     @Property(tries = 1000)
-    void idealToSeriesAndBackIsTheIdentity(@ForAll long seed) {
-        Random rnd = new Random(seed);
-        double gain = logUniform(rnd, 1e-3, 1e3);
-        double integralTime = logUniform(rnd, 1e-3, 1e4);
-        double derivativeFraction = rnd.nextInt(8) == 0 ? 0.25 : 0.25 * rnd.nextDouble();
+    void idealToSeriesAndBackIsTheIdentity(@ForAll("gains") double gain, @ForAll("integralTimes") double integralTime,
+            @ForAll("seriesDerivativeFractions") double derivativeFraction) {
         IdealGains ideal = new IdealGains(gain, integralTime, derivativeFraction * integralTime);
         IdealGains back = ideal.toSeries().toIdeal();
         assertRelative(back.gain(), gain);
@@ -66,11 +83,8 @@ class FormProperties {
     }
 
     @Property(tries = 1000)
-    void seriesToIdealAndBackIsTheIdentityWhenTiIsAtLeastTd(@ForAll long seed) {
-        Random rnd = new Random(seed);
-        double gain = logUniform(rnd, 1e-3, 1e3);
-        double integralTime = logUniform(rnd, 1e-3, 1e4);
-        double derivativeFraction = rnd.nextInt(8) == 0 ? 1.0 : rnd.nextDouble();
+    void seriesToIdealAndBackIsTheIdentityWhenTiIsAtLeastTd(@ForAll("gains") double gain,
+            @ForAll("integralTimes") double integralTime, @ForAll("idealDerivativeFractions") double derivativeFraction) {
         // The series form with Ti' < Td' is the same controller as the one with Ti' and Td' swapped;
         // the conversion back picks the root with Ti' >= Td'.
         SeriesGains series = new SeriesGains(gain, integralTime, derivativeFraction * integralTime);
@@ -86,13 +100,19 @@ class FormProperties {
         }
     }
 
+    /** Gain, Ti, Td and ω of the frequency-response check: four decades of gain, five of time. */
+    @Provide
+    Arbitrary<double[]> responseCases() {
+        return Combinators.combine(logUniform(1e-2, 1e2), logUniform(1e-2, 1e3), zeroOrLogUniform(1e-3, 1e2),
+                logUniform(1e-3, 1e2)).as((k, ti, td, w) -> new double[] {k, ti, td, w});
+    }
+
     @Property(tries = 1000)
-    void equivalentFormsHaveTheSameFrequencyResponse(@ForAll long seed) {
-        Random rnd = new Random(seed);
-        double gain = logUniform(rnd, 1e-2, 1e2);
-        double integralTime = logUniform(rnd, 1e-2, 1e3);
-        double derivativeTime = zeroOr(rnd, 1e-3, 1e2);
-        double omega = logUniform(rnd, 1e-3, 1e2);
+    void equivalentFormsHaveTheSameFrequencyResponse(@ForAll("responseCases") double[] c) {
+        double gain = c[0];
+        double integralTime = c[1];
+        double derivativeTime = c[2];
+        double omega = c[3];
         // series C(jω) = Kc'·(1 + 1/(jωTi'))·(1 + jωTd'), multiplied out with complex numbers by hand
         SeriesGains series = new SeriesGains(gain, integralTime, derivativeTime);
         double aRe = 1.0;

@@ -217,6 +217,138 @@ class RelayExperimentTest {
 
 
 
+    /**
+     * Feeds the relay a measurement whose error is a train of triangle cycles (analytic: linear
+     * between its corners), cycle n of period periods[n] and amplitude amplitudes[n]; each cycle
+     * starts at e = 0 rising, peaks at a quarter of its period and bottoms at three quarters.
+     * Stops when the relay finishes or the cycles run out.
+     */
+    private static void feedTriangles(RelayExperiment relay, double h, double[] periods, double[] amplitudes) {
+        double start = 0.0;
+        int cycle = 0;
+        for (long k = 0; cycle < periods.length && !relay.status().finished(); k++) {
+            double t = k * h;
+            while (cycle < periods.length && t >= start + periods[cycle]) {
+                start += periods[cycle];
+                cycle++;
+            }
+            if (cycle == periods.length) {
+                return;
+            }
+            double phase = (t - start) / periods[cycle];
+            double a = amplitudes[cycle];
+            double error = phase < 0.25 ? 4.0 * a * phase : phase < 0.75 ? 2.0 * a - 4.0 * a * phase : 4.0 * a * phase - 4.0 * a;
+            // setpoint 0, reverse action: e = r − y
+            relay.step(h, -error);
+        }
+    }
+
+    private static double[] repeated(double value, int count) {
+        double[] values = new double[count];
+        java.util.Arrays.fill(values, value);
+        return values;
+    }
+
+    @Test
+    void switchingTimesAreInterpolatedBetweenSamples() {
+        // Triangle cycles of period P = 1 + 0.37·h: the crossings of +ε fall at a different place
+        // between samples in every cycle. On a linear segment the linear interpolation of the
+        // crossing time is exact (analytic), so the measured period is P to rounding; without it each
+        // switch would be late by up to h and the mean of three periods off by up to h/3.
+        double h = 0.002;
+        double period = 1.0 + 0.37 * h;
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().hysteresis(0.1).excursionLimit(2.0)
+                .build(), 0.0);
+        feedTriangles(relay, h, repeated(period, 20), repeated(1.0, 20));
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(relay.ultimatePeriodSeconds()).isCloseTo(period, within(1e-9));
+        // the sampled peaks miss the corners by at most the slope times h/2: 4·h/(2·P) = 0.4 %
+        assertThat(relay.oscillationAmplitude()).isCloseTo(1.0, within(0.004));
+    }
+
+    @Test
+    void theNoOscillationTimeoutCountsFromTheInterpolatedSwitch() {
+        // e = 0.1, 0, −0.1 at t = 0.1, 0.2, 0.3 s, then −0.1 held, sampled every 0.01 s: it crosses
+        // −ε = −0.05 at t = 0.25 s (linear interpolation, exact on this line). With
+        // maxHalfPeriodSeconds = 1.005 the relay gives up at the first sample after 1.255 s: 1.26 s
+        // (from the sample before the crossing it would be 1.21 s, from the one after it 1.31 s).
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().hysteresis(0.05)
+                .maxHalfPeriodSeconds(1.005).build(), 0.0);
+        relay.step(0.1, -0.1);
+        relay.step(0.1, 0.0);
+        relay.step(0.1, 0.1);
+        while (!relay.status().finished()) {
+            relay.step(0.01, 0.1);
+        }
+        assertThat(relay.status()).isEqualTo(RelayStatus.ABORTED_NO_OSCILLATION);
+        assertThat(relay.elapsedSeconds()).isCloseTo(1.26, within(1e-9));
+    }
+
+    @Test
+    void cyclesAgreeWhenEachLiesWithinTheToleranceOfTheMeanBoundaryIncluded() {
+        // h = 2⁻¹⁰ s and periods that are multiples of 4·h make every time and peak exact in binary:
+        // periods 0.75 and 1.25 s alternate, mean 1 s, each 25 % from it; amplitude 1 throughout.
+        // The rule (common practice for a relay test: accept a cycle train whose periods and
+        // amplitudes all lie within a relative tolerance of their mean) accepts 25 % at a tolerance
+        // of 25 % and refuses it at any tolerance below.
+        double h = 1.0 / 1024.0;
+        double[] periods = {1.0, 0.75, 1.25, 0.75, 1.25, 1.0, 1.0};
+        RelaySettings.Builder settings = thirdOrderLagSettings().settlingCycles(0).measuredCycles(4).excursionLimit(2.0);
+
+        RelayExperiment atTolerance = new RelayExperiment(settings.cycleTolerance(0.25).build(), 0.0);
+        feedTriangles(atTolerance, h, periods, repeated(1.0, periods.length));
+        assertThat(atTolerance.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(atTolerance.ultimatePeriodSeconds()).isEqualTo(1.0);
+        assertThat(atTolerance.oscillationAmplitude()).isEqualTo(1.0);
+        // ε = 0: Ku = 4d/(π·a)
+        assertThat(atTolerance.ultimateGain()).isCloseTo(4.0 / Math.PI, within(1e-15));
+
+        RelayExperiment belowTolerance = new RelayExperiment(settings.cycleTolerance(Math.nextDown(0.25)).build(), 0.0);
+        feedTriangles(belowTolerance, h, periods, repeated(1.0, periods.length));
+        assertThat(belowTolerance.status()).isEqualTo(RelayStatus.RUNNING);
+        assertThat(belowTolerance.completedCycles()).isEqualTo(5);
+    }
+
+    @Test
+    void amplitudesMustAgreeToo() {
+        // equal periods of 1 s, amplitudes 0.75 and 1.25 alternating (mean 1, each 25 % from it)
+        double h = 1.0 / 1024.0;
+        double[] amplitudes = {1.0, 0.75, 1.25, 0.75, 1.25, 1.0, 1.0};
+        RelaySettings.Builder settings = thirdOrderLagSettings().settlingCycles(0).measuredCycles(4).excursionLimit(2.0);
+
+        RelayExperiment atTolerance = new RelayExperiment(settings.cycleTolerance(0.25).build(), 0.0);
+        feedTriangles(atTolerance, h, repeated(1.0, amplitudes.length), amplitudes);
+        assertThat(atTolerance.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(atTolerance.oscillationAmplitude()).isEqualTo(1.0);
+
+        RelayExperiment belowTolerance = new RelayExperiment(settings.cycleTolerance(Math.nextDown(0.25)).build(), 0.0);
+        feedTriangles(belowTolerance, h, repeated(1.0, amplitudes.length), amplitudes);
+        assertThat(belowTolerance.status()).isEqualTo(RelayStatus.RUNNING);
+    }
+
+    @Test
+    void settlingCyclesAreDiscardedBeforeTheMeasuredOnes() {
+        // three short cycles (0.5 s, amplitude 0.5) then steady ones (1 s, amplitude 1): with the two
+        // default settling cycles discarded, the result waits for three steady cycles in a row; with
+        // none discarded, the three short ones agree and are taken
+        double h = 1.0 / 1024.0;
+        double[] periods = {1.0, 0.5, 0.5, 0.5, 1.0, 1.0, 1.0, 1.0};
+        RelayExperiment discarding = new RelayExperiment(thirdOrderLagSettings().excursionLimit(2.0).build(), 0.0);
+        feedTriangles(discarding, h, periods, periods);
+        assertThat(discarding.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(discarding.completedCycles()).isEqualTo(6);
+        assertThat(discarding.ultimatePeriodSeconds()).isEqualTo(1.0);
+        assertThat(discarding.oscillationAmplitude()).isEqualTo(1.0);
+
+        RelayExperiment keeping = new RelayExperiment(thirdOrderLagSettings().settlingCycles(0).excursionLimit(2.0)
+                .build(), 0.0);
+        feedTriangles(keeping, h, periods, periods);
+        assertThat(keeping.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(keeping.completedCycles()).isEqualTo(3);
+        assertThat(keeping.ultimatePeriodSeconds()).isEqualTo(0.5);
+        assertThat(keeping.oscillationAmplitude()).isEqualTo(0.5);
+    }
+
     private static double[] exactLimitCycle() throws IOException {
         try (InputStream in = RelayExperimentTest.class.getResourceAsStream("relay-third-order-lag.csv")) {
             String[] lines = new String(in.readAllBytes(), StandardCharsets.UTF_8).trim().split("\n");
