@@ -22,8 +22,11 @@ import picocli.CommandLine;
  */
 class BenchmarkSuiteSmokeTest {
 
-    /** 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures. */
-    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3;
+    /**
+     * 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures,
+     * 2 replay figures.
+     */
+    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2;
 
     @Test
     void everyBenchmarkAndLoopProducesAFiniteFigure(@TempDir Path out) throws Exception {

@@ -97,6 +97,7 @@ public final class LoopRunner {
     private long failedTicks;
     private int inARow;
     private long rejectedCommands;
+    private long appliedEnd; // commands applied by the loop, released to waiters after the status shows them
     private long lastPeriodError;
     private double ownSetpoint;
     private double tickSetpoint = Double.NaN;
@@ -285,6 +286,7 @@ public final class LoopRunner {
             channel.close();
             applyCommands(); // what was taken before the close is applied, never dropped
             publishStatus();
+            releaseApplied();
         }
         if (reason == StopReason.CONSECUTIVE_FAILURES) {
             LOG.warn("loop runner '{}' stopped after {} failed ticks in a row; last failed callback: {}",
@@ -340,6 +342,7 @@ public final class LoopRunner {
             }
             ticks++;
             publishStatus();
+            releaseApplied();
             listener.onTick(scheduled, start, end, overrun);
             if (inARow >= failureLimit) {
                 return StopReason.CONSECUTIVE_FAILURES;
@@ -371,7 +374,7 @@ public final class LoopRunner {
         s.fault = controller.fault();
         s.faultCount = controller.faultCount();
         s.lastPeriodErrorNanos = lastPeriodError;
-        s.appliedCommandCount = channel.nextToApply();
+        s.appliedCommandCount = appliedEnd;
         if (monitor != null) {
             for (LoopCondition c : CONDITIONS) {
                 s.conditions[c.ordinal()] = monitor.status(c);
@@ -412,7 +415,17 @@ public final class LoopRunner {
                 default -> throw new IllegalStateException("unknown operator command " + channel.kind(n));
             }
         }
-        channel.appliedUpTo(end);
+        appliedEnd = end;
+    }
+
+    /**
+     * Tells waiting operators what the tick applied, only after its status is published: a status read
+     * after {@code awaitApplied} returns then shows the command's effect, never the tick before it.
+     */
+    private void releaseApplied() {
+        if (appliedEnd != channel.nextToApply()) {
+            channel.appliedUpTo(appliedEnd);
+        }
     }
 
     private void switchMode(Mode mode) {

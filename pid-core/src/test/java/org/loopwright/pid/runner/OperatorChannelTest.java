@@ -4,6 +4,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.time.Duration;
+import java.util.concurrent.Semaphore;
+import java.util.concurrent.atomic.AtomicBoolean;
 
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.Action;
@@ -118,6 +120,35 @@ class OperatorChannelTest {
         // commands set is compared, never the whole state (an update changes the previous output)
         assertThat(capture.toSnapshot().toString()).contains(" mode=manual ");
         assertThat(runner.status().appliedCommandCount()).isEqualTo(last);
+    }
+
+    @Test
+    void aCommandCountsAsAppliedOnlyOnceTheStatusShowsIt() throws InterruptedException {
+        // the tick after the command is held inside its measurement read, between applying and publishing
+        Semaphore heldRead = new Semaphore(0);
+        AtomicBoolean holdNextRead = new AtomicBoolean();
+        GatedClock clock = new GatedClock();
+        LoopRunner runner = new LoopRunner(RunnerSettings.builder().clock(clock).waitStrategy(WaitStrategy.PARK)
+                .commandCapacity(4).daemon(true).build(), new PidController(settings()), 20.0, () -> {
+                    if (holdNextRead.getAndSet(false)) {
+                        heldRead.acquireUninterruptibly();
+                    }
+                    return 18.0;
+                }, u -> { }, TimingListener.NONE);
+        runner.start();
+        clock.awaitParked();
+        OperatorChannel operator = runner.operator();
+        long manual = operator.requestMode(Mode.MANUAL);
+        holdNextRead.set(true);
+        clock.open();
+
+        assertThat(operator.awaitApplied(manual, Duration.ofMillis(200))).isFalse();
+        heldRead.release();
+        assertThat(operator.awaitApplied(manual, PATIENCE)).isTrue();
+        LoopStatus status = runner.status();
+        assertThat(status.mode()).isEqualTo(Mode.MANUAL);
+        assertThat(status.appliedCommandCount()).isGreaterThanOrEqualTo(manual);
+        runner.stop();
     }
 
     @Test

@@ -74,18 +74,22 @@ public final class MarginsCommand implements Callable<Integer> {
             SampledMargins innerSampled = LoopAnalysis.sampled(SampledLoop.of(innerPlant, innerSettings));
             StabilityMargins outerContinuous = CascadeAnalysis.outerContinuous(loop.plant(), settings, innerPlant,
                     innerSettings);
+            int sensorDelay = loop.scenario().sensor().delaySamples();
             SampledMargins outerSampled = CascadeAnalysis.outerSampled(loop.plant(), settings, innerPlant,
-                    innerSettings);
+                    innerSettings, sensorDelay);
             if (json) {
                 out.println(JsonOutput.text(new MarginsJson.Cascade(
                         MarginsJson.Loop.of(innerSettings, 0, innerContinuous, innerSampled, Optional.empty(), NOT_MEANINGFUL),
-                        MarginsJson.Loop.of(settings, 0, outerContinuous, outerSampled, Optional.empty(), NOT_MEANINGFUL))));
+                        MarginsJson.Loop.of(settings, sensorDelay, outerContinuous, outerSampled, Optional.empty(),
+                                NOT_MEANINGFUL))));
             } else {
                 out.println("Inner loop (inner.controller on inner.plant):");
                 table(out, innerSettings, 0, innerContinuous, innerSampled, Optional.empty());
                 out.println();
-                out.println("Outer loop (controller on plant, with the inner loop closed):");
-                table(out, settings, 0, outerContinuous, outerSampled, Optional.empty());
+                out.println("Outer loop (controller on plant, with the inner loop closed"
+                        + (sensorDelay > 0 ? "; the sensor's delay on the outer measurement counts samples of the"
+                                + " inner period, " + innerSettings.samplePeriodSeconds() + " s):" : "):"));
+                table(out, settings, sensorDelay, outerContinuous, outerSampled, Optional.empty());
             }
             out.flush();
             return 0;

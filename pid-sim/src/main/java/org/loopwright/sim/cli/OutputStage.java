@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.DirectoryStream;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
@@ -57,11 +58,21 @@ final class OutputStage implements AutoCloseable {
         return staging;
     }
 
-    /** Moves every staged file to the output directory, replacing files of the same name. */
+    /**
+     * Moves every staged file to the output directory, replacing files of the same name. A directory
+     * standing where a file should go fails the commit before anything is moved, so the output
+     * directory keeps its old files rather than a mix of old and new.
+     */
     void commit() throws IOException {
         List<Path> files = new ArrayList<>();
         try (DirectoryStream<Path> stream = Files.newDirectoryStream(staging)) {
             stream.forEach(files::add);
+        }
+        for (Path file : files) {
+            Path destination = target.resolve(file.getFileName().toString());
+            if (Files.isDirectory(destination)) {
+                throw new FileSystemException(destination.toString(), null, "a directory is in the way");
+            }
         }
         for (Path file : files) {
             Path destination = target.resolve(file.getFileName().toString());

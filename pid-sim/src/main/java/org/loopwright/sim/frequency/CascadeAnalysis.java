@@ -31,6 +31,10 @@ import org.loopwright.sim.plant.TransferFunction;
  * a multiple of its period). Margins come from its frequency response C·(zI − A^n)⁻¹·B_n at
  * z = e^{jωh1}, and stability from the eigenvalues of the whole outer closed loop.
  *
+ * <p>The sensor of a cascade scenario reads the outer measurement, every inner sample, N inner samples
+ * late ({@code sensor: {delay-samples: N}}, as the simulation runs it): a factor z^(−N) on G(z) at h2,
+ * before the lifting, as {@link SampledLoop} adds it to a single loop.
+ *
  * <p>Thread-safe: stateless.
  */
 public final class CascadeAnalysis {
@@ -69,14 +73,29 @@ public final class CascadeAnalysis {
     /**
      * The margins and closed-loop poles of the sampled outer loop with the sampled inner loop closed.
      *
+     * @param outerPlant         the outer plant, driven by the inner plant's output
+     * @param outer              the outer controller
+     * @param innerPlant         the inner plant
+     * @param inner              the inner controller, whose period h2 the loop runs at
+     * @param sensorDelaySamples whole inner samples by which the outer measurement is late, 0 to
+     *                           {@value SampledLoop#MAX_DELAY_SAMPLES}
+     * @return the outer loop's margins and poles
      * @throws org.loopwright.pid.InvalidSettingException when the periods are not in a whole ratio
+     * @throws IllegalArgumentException when the sensor delay is out of range
      */
     public static SampledMargins outerSampled(TransferFunction outerPlant, ControllerSettings outer,
-            TransferFunction innerPlant, ControllerSettings inner) {
+            TransferFunction innerPlant, ControllerSettings inner, int sensorDelaySamples) {
+        if (sensorDelaySamples < 0 || sensorDelaySamples > SampledLoop.MAX_DELAY_SAMPLES) {
+            throw new IllegalArgumentException("delay-samples must be 0 to " + SampledLoop.MAX_DELAY_SAMPLES
+                    + ": delay-samples=" + sensorDelaySamples);
+        }
         int ratio = Cascade.samplesPerOuterSample(outer.samplePeriodSeconds(), inner.samplePeriodSeconds());
         double h2 = inner.samplePeriodSeconds();
         double h1 = outer.samplePeriodSeconds();
-        StateModel plant = StateModel.of(innerSetpointToOuterMeasurement(outerPlant, innerPlant, inner)).lifted(ratio);
+        PulseTransferFunction g = innerSetpointToOuterMeasurement(outerPlant, innerPlant, inner);
+        PulseTransferFunction sensed = new PulseTransferFunction(g.numerator(), g.denominator(),
+                g.delaySamples() + sensorDelaySamples, h2);
+        StateModel plant = StateModel.of(sensed).lifted(ratio);
         StateModel controller = StateModel.of(LoopAnalysis.discreteController(outer, h1)
                 .times(outer.action().sign()));
         FrequencyResponse loop = omega -> {
@@ -86,7 +105,8 @@ public final class CascadeAnalysis {
         };
         double nyquist = Math.PI / h1;
         double low = Math.min(LoopAnalysis.continuousBand(outerPlant, outer).lowestRadPerSecond(), nyquist * 1e-4);
-        double delay = outerPlant.deadTimeSeconds() + innerPlant.deadTimeSeconds() + 2.0 * h1 + h2;
+        double delay = outerPlant.deadTimeSeconds() + innerPlant.deadTimeSeconds() + (sensorDelaySamples + 1) * h2
+                + 2.0 * h1;
         StabilityMargins margins = MarginSearch.search(loop, new FrequencyBand(low, nyquist, POINTS_PER_DECADE,
                 delay, true));
         return new SampledMargins(margins, closedLoopPoles(plant, controller));
@@ -101,11 +121,45 @@ public final class CascadeAnalysis {
         PulseTransferFunction series = ZeroOrderHoldEquivalent.of(series(innerPlant, outerPlant), h);
         PolynomialFunction shift = shift(p.delaySamples());
         // u/r2 = Nc·D2·z^d2 / (Dc·D2·z^d2 + Nc·N2)
-        PolynomialFunction numerator = c.numerator().multiply(p.denominator()).multiply(shift);
         PolynomialFunction denominator = c.denominator().multiply(p.denominator()).multiply(shift)
                 .add(c.numerator().multiply(p.numerator()));
+        // the series' poles are the inner plant's and the outer plant's: D2 cancels against u/r2's D2, or
+        // it would stay as a hidden mode among the closed-loop poles (at z = 1 for an integrating inner plant)
+        PolynomialFunction outerPoles = quotient(series.denominator(), p.denominator());
+        if (outerPoles != null) {
+            return new PulseTransferFunction(series.numerator().multiply(c.numerator()).multiply(shift),
+                    outerPoles.multiply(denominator), series.delaySamples(), h);
+        }
+        PolynomialFunction numerator = c.numerator().multiply(p.denominator()).multiply(shift);
         return new PulseTransferFunction(series.numerator().multiply(numerator),
                 series.denominator().multiply(denominator), series.delaySamples(), h);
+    }
+
+    /** dividend/divisor when the division leaves no remainder (to rounding), else null. */
+    private static PolynomialFunction quotient(PolynomialFunction dividend, PolynomialFunction divisor) {
+        double[] rest = dividend.getCoefficients();
+        double[] by = divisor.getCoefficients();
+        int degree = by.length - 1;
+        if (rest.length <= degree) {
+            return null;
+        }
+        double size = 0.0;
+        for (double value : rest) {
+            size = Math.max(size, Math.abs(value));
+        }
+        double[] q = new double[rest.length - degree];
+        for (int i = q.length - 1; i >= 0; i--) {
+            q[i] = rest[i + degree] / by[degree];
+            for (int j = 0; j <= degree; j++) {
+                rest[i + j] -= q[i] * by[j];
+            }
+        }
+        for (int j = 0; j < degree; j++) {
+            if (Math.abs(rest[j]) > 1e-9 * size) {
+                return null;
+            }
+        }
+        return new PolynomialFunction(q);
     }
 
     private static TransferFunction series(TransferFunction first, TransferFunction second) {

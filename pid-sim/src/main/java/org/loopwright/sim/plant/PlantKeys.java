@@ -2,6 +2,8 @@ package org.loopwright.sim.plant;
 
 import static java.util.Map.entry;
 
+import java.util.List;
+
 import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.config.NumberRule;
@@ -28,6 +30,9 @@ final class PlantKeys {
             .orElse(0.0);
     static final FileKey<double[]> NUMERATOR = FileKey.numbers("numerator", "numerator", NumberRule.FINITE);
     static final FileKey<double[]> DENOMINATOR = FileKey.numbers("denominator", "denominator", NumberRule.FINITE);
+
+    /** What a sweep spreads on every linear type: its transfer function's gain, time constants and dead time. */
+    static final List<FileKey<Double>> LINEAR_SPREAD = List.of(GAIN, TIME_CONSTANT, DEAD_TIME);
 
     static final FileKey<Double> RESISTANCE = FileKey.number("resistance", "resistanceOhms", NumberRule.POSITIVE);
     static final FileKey<Double> INDUCTANCE = FileKey.number("inductance", "inductanceHenries", NumberRule.POSITIVE);

@@ -12,6 +12,7 @@ import static org.loopwright.sim.plant.PlantKeys.HEAT_CAPACITY;
 import static org.loopwright.sim.plant.PlantKeys.INDUCTANCE;
 import static org.loopwright.sim.plant.PlantKeys.INERTIA;
 import static org.loopwright.sim.plant.PlantKeys.INITIAL_LEVEL;
+import static org.loopwright.sim.plant.PlantKeys.LINEAR_SPREAD;
 import static org.loopwright.sim.plant.PlantKeys.LOAD_TORQUE;
 import static org.loopwright.sim.plant.PlantKeys.LOSS_COEFFICIENT;
 import static org.loopwright.sim.plant.PlantKeys.MAX_POWER;
@@ -51,30 +52,33 @@ import org.loopwright.sim.config.YamlDocument;
  */
 public enum PlantType {
     /** K/(Ts+1). */
-    FIRST_ORDER("first-order", true, List.of(GAIN, TIME_CONSTANT),
+    FIRST_ORDER("first-order", true, List.of(GAIN, TIME_CONSTANT), LINEAR_SPREAD,
             f -> TransferFunction.firstOrder(f.get(GAIN), f.get(TIME_CONSTANT))),
     /** K·e^(−Ls)/(Ts+1). */
-    FOPDT("fopdt", true, List.of(GAIN, TIME_CONSTANT, DEAD_TIME),
+    FOPDT("fopdt", true, List.of(GAIN, TIME_CONSTANT, DEAD_TIME), LINEAR_SPREAD,
             f -> TransferFunction.fopdt(f.get(GAIN), f.get(TIME_CONSTANT), f.get(DEAD_TIME))),
     /** Second order plus dead time, from two time constants or a natural frequency and damping. */
-    SOPDT("sopdt", true, List.of(GAIN, TIME_CONSTANTS, NATURAL_FREQUENCY, DAMPING, DEAD_TIME), PlantType::sopdt),
+    SOPDT("sopdt", true, List.of(GAIN, TIME_CONSTANTS, NATURAL_FREQUENCY, DAMPING, DEAD_TIME), LINEAR_SPREAD,
+            PlantType::sopdt),
     /** K·e^(−Ls)/s. */
-    INTEGRATING("integrating", true, List.of(GAIN, DEAD_TIME),
+    INTEGRATING("integrating", true, List.of(GAIN, DEAD_TIME), LINEAR_SPREAD,
             f -> TransferFunction.integrating(f.get(GAIN), f.get(DEAD_TIME))),
     /** N(s)/D(s)·e^(−Ls). */
-    TRANSFER_FUNCTION("transfer-function", true, List.of(NUMERATOR, DENOMINATOR, DEAD_TIME),
+    TRANSFER_FUNCTION("transfer-function", true, List.of(NUMERATOR, DENOMINATOR, DEAD_TIME), LINEAR_SPREAD,
             f -> new TransferFunction(f.get(NUMERATOR), f.get(DENOMINATOR), f.get(DEAD_TIME))),
     /** A DC motor with friction ({@link DcMotorModel}). */
     DC_MOTOR("dc-motor", false, List.of(RESISTANCE, INDUCTANCE, TORQUE_CONSTANT, BACK_EMF_CONSTANT, INERTIA,
             VISCOUS_FRICTION, LOAD_TORQUE, COULOMB_FRICTION, STATIC_FRICTION, MOTOR_OUTPUT,
-            MOTOR_INTEGRATION_STEP), PlantType::motor),
+            MOTOR_INTEGRATION_STEP), List.of(RESISTANCE, INDUCTANCE, TORQUE_CONSTANT, BACK_EMF_CONSTANT, INERTIA,
+            VISCOUS_FRICTION, LOAD_TORQUE, COULOMB_FRICTION, STATIC_FRICTION), PlantType::motor),
     /** A heated zone ({@link ThermalZoneModel}). */
     THERMAL_ZONE("thermal-zone", false, List.of(HEAT_CAPACITY, LOSS_COEFFICIENT, AMBIENT, MAX_POWER,
-            THERMAL_INTEGRATION_STEP),
+            THERMAL_INTEGRATION_STEP), List.of(HEAT_CAPACITY, LOSS_COEFFICIENT, MAX_POWER),
             f -> new ThermalZoneModel(f.get(HEAT_CAPACITY), f.get(LOSS_COEFFICIENT), f.get(AMBIENT),
                     f.get(MAX_POWER), f.get(THERMAL_INTEGRATION_STEP))),
     /** A draining tank ({@link TankModel}). */
     TANK("tank", false, List.of(AREA, OUTLET_COEFFICIENT, INITIAL_LEVEL, TANK_INTEGRATION_STEP),
+            List.of(AREA, OUTLET_COEFFICIENT, INITIAL_LEVEL),
             f -> new TankModel(f.get(AREA), f.get(OUTLET_COEFFICIENT), f.get(INITIAL_LEVEL),
                     f.get(TANK_INTEGRATION_STEP)));
 
@@ -86,12 +90,15 @@ public enum PlantType {
     private final String word;
     private final boolean linear;
     private final List<FileKey<?>> keys;
+    private final List<FileKey<Double>> spreadKeys;
     private final Function<FileMapping, PlantModel> make;
 
-    PlantType(String word, boolean linear, List<FileKey<?>> keys, Function<FileMapping, PlantModel> make) {
+    PlantType(String word, boolean linear, List<FileKey<?>> keys, List<FileKey<Double>> spreadKeys,
+            Function<FileMapping, PlantModel> make) {
         this.word = word;
         this.linear = linear;
         this.keys = keys;
+        this.spreadKeys = spreadKeys;
         this.make = make;
     }
 
@@ -108,6 +115,21 @@ public enum PlantType {
     /** @return the keys this type takes besides {@code type}, in the order messages list them */
     public List<FileKey<?>> keys() {
         return keys;
+    }
+
+    /**
+     * The keys a sweep may spread ({@code --spread KEY=P%}), in the order a sweep draws their factors.
+     * A linear type's keys act on its transfer function as a whole: {@code gain} scales the numerator,
+     * {@code time-constant} every time constant, {@code dead-time} the dead time (whatever keys its
+     * file used). A nonlinear type's keys are its physical parameters, each scaling the model field
+     * it fills; left out are the integration step (a numerical setting, not the plant), the motor's
+     * output (a word) and the thermal zone's ambient (a Celsius temperature, whose zero is arbitrary,
+     * so a percentage of it means nothing).
+     *
+     * @return the keys, in draw order
+     */
+    public List<FileKey<Double>> spreadKeys() {
+        return spreadKeys;
     }
 
     /** @return the linear types' words, for a message: "first-order, fopdt, sopdt, integrating or transfer-function" */

@@ -4,10 +4,11 @@ import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 
-import org.apache.commons.csv.CSVFormat;
+import com.fasterxml.jackson.core.io.NumberOutput;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
+import org.loopwright.sim.config.CsvRows;
 import org.loopwright.sim.config.InputFileException;
 
 /**
@@ -76,14 +77,14 @@ public final class Replay {
         Engine engine = new Engine(settings, measuredPeriod, startFromLoggedOutput, trace.hasFeedforward(),
                 trace.hasTrackValue());
         ReplaySummary.Accumulator summary = new ReplaySummary.Accumulator(settings, measuredPeriod);
-        CSVFormat format = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
-        printRow(format, out, resultHeader(trace.header()));
+        printRow(out, resultHeader(trace.header()));
         TraceRow row = new TraceRow();
+        StringBuilder line = new StringBuilder();
         while (trace.next(row)) {
             engine.step(row);
             PidController c = engine.controller;
             summary.add(row.number(), row.timeSeconds(), c.fault(), c.output(), c.position());
-            printResultRow(format, out, row.cells(), c.output(), c.proportionalTerm(), c.integralTerm(),
+            printResultRow(line, out, row.cells(), c.output(), c.proportionalTerm(), c.integralTerm(),
                     c.derivativeTerm(), ReplayResult.statusWord(c.fault()));
         }
         if (summary.rows() == 0) {
@@ -102,26 +103,39 @@ public final class Replay {
         return header;
     }
 
-    /** One result row: the trace's cells as read, then the replay's columns. Numbers in Java's shortest exact form. */
-    static void printResultRow(CSVFormat format, Appendable out, List<String> cells, double output,
+    /**
+     * One result row: the trace's cells as read, then the replay's columns, built in {@code line}
+     * (reused from row to row) and appended to {@code out} at once. Numbers in Java's shortest exact form.
+     */
+    static void printResultRow(StringBuilder line, Appendable out, List<String> cells, double output,
             double proportional, double integral, double derivative, String status) throws IOException {
+        line.setLength(0);
         for (int i = 0; i < cells.size(); i++) {
-            format.print(cells.get(i), out, i == 0);
+            CsvRows.appendCell(line, cells.get(i), i == 0);
         }
-        format.print(Double.toString(output), out, false);
-        format.print(Double.toString(proportional), out, false);
-        format.print(Double.toString(integral), out, false);
-        format.print(Double.toString(derivative), out, false);
-        format.print(status, out, false);
-        format.println(out);
+        line.append(',').append(number(output)).append(',').append(number(proportional)).append(',')
+                .append(number(integral)).append(',').append(number(derivative));
+        CsvRows.appendCell(line, status, false);
+        out.append(line.append('\n'));
     }
 
-    /** One record, quoted where RFC 4180 needs it (the format's own printer, without CSVPrinter). */
-    static void printRow(CSVFormat format, Appendable out, List<String> cells) throws IOException {
+    /**
+     * The shortest decimal that reads back to the same double, in {@link Double#toString}'s format,
+     * by Jackson's Schubfach writer (Giulietti's algorithm, the one Java 19 adopted for
+     * {@code Double.toString}): Java 17's own is several times slower and, for a few values,
+     * longer than it needs to be.
+     */
+    static String number(double value) {
+        return NumberOutput.toString(value, true);
+    }
+
+    /** One record, quoted where the harness's CSV dialect needs it. */
+    static void printRow(Appendable out, List<String> cells) throws IOException {
+        StringBuilder line = new StringBuilder();
         for (int i = 0; i < cells.size(); i++) {
-            format.print(cells.get(i), out, i == 0);
+            CsvRows.appendCell(line, cells.get(i), i == 0);
         }
-        format.println(out);
+        out.append(line.append('\n'));
     }
 
     /** The controller and what one row's update needs from the rows before it. */

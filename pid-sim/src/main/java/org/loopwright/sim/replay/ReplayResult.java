@@ -3,7 +3,6 @@ package org.loopwright.sim.replay;
 import java.io.IOException;
 import java.util.Locale;
 
-import org.apache.commons.csv.CSVFormat;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.Fault;
 import org.loopwright.pid.Mode;
@@ -127,10 +126,10 @@ public final class ReplayResult {
      * {@link Replay#stream} does. Numbers are written in Java's shortest exact form.
      */
     public void writeCsv(Appendable out) throws IOException {
-        CSVFormat format = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
-        Replay.printRow(format, out, Replay.resultHeader(trace.header()));
+        Replay.printRow(out, Replay.resultHeader(trace.header()));
+        StringBuilder line = new StringBuilder();
         for (int k = 0; k < rowCount(); k++) {
-            Replay.printResultRow(format, out, trace.row(k).cells(), output(k), proportional(k), integral(k),
+            Replay.printResultRow(line, out, trace.row(k).cells(), output(k), proportional(k), integral(k),
                     derivative(k), statusWord(status(k)));
         }
     }

@@ -8,15 +8,15 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.regex.Pattern;
 
+import com.fasterxml.jackson.core.io.NumberInput;
 import org.loopwright.pid.Mode;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.IoWords;
 import org.loopwright.sim.config.Keywords;
 
 /**
- * Reads a logged trace from CSV (Apache Commons CSV, RFC 4180 quoting). The first row is the header.
+ * Reads a logged trace from CSV ({@link org.loopwright.sim.config.CsvRows}, RFC 4180 quoting). The first row is the header.
  * Lines starting with {@code #} are comments. Columns, in any order:
  * <ul>
  *   <li>{@code time} (required): seconds, a finite number in every row;</li>
@@ -54,9 +54,6 @@ public final class TraceFile {
     /** The words of the {@code mode} column. */
     public static final Keywords<Mode> MODES = Keywords.of(entry("auto", Mode.AUTOMATIC), entry("manual", Mode.MANUAL),
             entry("track", Mode.TRACKING));
-
-    // possessive quantifiers: a long run of digits followed by a letter fails in linear time, with no backtracking
-    private static final Pattern DECIMAL = Pattern.compile("[+-]?+(\\d++\\.?+\\d*+|\\.\\d++)([eE][+-]?+\\d++)?+");
 
     /** What a numeric column allows besides finite numbers. */
     enum CellRule {
@@ -132,9 +129,51 @@ public final class TraceFile {
      * The cell as a number: a decimal (with optional exponent), blank or {@code nan} as NaN, and
      * {@code inf}/{@code infinity} with an optional sign; NaN for anything else.
      */
+    /**
+     * Whether a cell is a plain decimal number, {@code [+-]? (digits [. digits?] | . digits) ([eE] [+-]? digits)?}:
+     * what {@link Double#parseDouble} reads, without its hexadecimal forms, type suffixes and words.
+     * Scanned by hand, once per numeric cell of a trace of millions of rows.
+     */
+    static boolean isDecimal(String cell) {
+        int n = cell.length();
+        int i = n > 0 && (cell.charAt(0) == '+' || cell.charAt(0) == '-') ? 1 : 0;
+        int whole = digits(cell, i);
+        i += whole;
+        int fraction = 0;
+        if (i < n && cell.charAt(i) == '.') {
+            i++;
+            fraction = digits(cell, i);
+            i += fraction;
+        }
+        if (whole == 0 && fraction == 0) {
+            return false;
+        }
+        if (i < n && (cell.charAt(i) == 'e' || cell.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (cell.charAt(i) == '+' || cell.charAt(i) == '-')) {
+                i++;
+            }
+            int exponent = digits(cell, i);
+            if (exponent == 0) {
+                return false;
+            }
+            i += exponent;
+        }
+        return i == n;
+    }
+
+    private static int digits(String cell, int from) {
+        int i = from;
+        while (i < cell.length() && cell.charAt(i) >= '0' && cell.charAt(i) <= '9') {
+            i++;
+        }
+        return i - from;
+    }
+
     static double parseNumber(String cell) {
-        if (DECIMAL.matcher(cell).matches()) {
-            return Double.parseDouble(cell);
+        if (isDecimal(cell)) {
+            // Jackson's fast parser (FastDoubleParser) rounds correctly, as Double.parseDouble does
+            return NumberInput.parseDouble(cell, true);
         }
         String word = cell.toLowerCase(Locale.ROOT);
         boolean negative = word.startsWith("-");

@@ -3,18 +3,15 @@ package org.loopwright.sim.replay;
 import java.io.Closeable;
 import java.io.IOException;
 import java.io.Reader;
-import java.io.UncheckedIOException;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.HashSet;
-import java.util.Iterator;
 import java.util.List;
 import java.util.Set;
 
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
+import org.loopwright.sim.config.CsvRows;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.InputText;
-import org.loopwright.sim.config.IoWords;
 
 /**
  * Reads a trace in the format of {@link TraceFile} one row at a time, checking each row as it comes,
@@ -24,8 +21,7 @@ import org.loopwright.sim.config.IoWords;
 public final class TraceReader implements Closeable {
 
     private final String fileName;
-    private final CSVParser parser;
-    private final Iterator<CSVRecord> records;
+    private final CsvRows rows;
     private final List<String> header;
     private final int time;
     private final int setpoint;
@@ -38,13 +34,13 @@ public final class TraceReader implements Closeable {
 
     private TraceReader(String fileName, Reader reader) {
         this.fileName = fileName;
-        this.parser = InputText.csvParser(fileName, reader);
-        this.records = parser.iterator();
-        if (!hasNextRecord()) {
+        this.rows = new CsvRows(fileName, reader);
+        List<String> names = new ArrayList<>();
+        if (!rows.next(names)) {
             throw InputFileException.whole(fileName, "has no header row; required columns: "
                     + String.join(", ", TraceFile.REQUIRED_COLUMNS));
         }
-        this.header = List.copyOf(InputText.withinLimits(fileName, 1, records.next().toList()));
+        this.header = List.copyOf(names);
         checkHeader();
         time = header.indexOf("time");
         setpoint = header.indexOf("setpoint");
@@ -107,71 +103,44 @@ public final class TraceReader implements Closeable {
      * @throws InputFileException when the row's width or a cell is not allowed
      */
     public boolean next(TraceRow row) {
-        if (!hasNextRecord()) {
+        List<String> cells = row.cells;
+        if (!rows.next(cells)) {
             return false;
         }
-        CSVRecord record = nextRecord();
-        long number = record.getRecordNumber();
-        InputText.withinLimits(fileName, number, record.toList());
-        if (record.size() != header.size()) {
-            String column = record.size() < header.size() ? header.get(record.size()) : "#" + (header.size() + 1);
-            throw InputFileException.inRow(fileName, number, column, "the row has " + record.size()
+        long number = rows.recordNumber();
+        row.number = number;
+        if (cells.size() != header.size()) {
+            String column = cells.size() < header.size() ? header.get(cells.size()) : "#" + (header.size() + 1);
+            throw InputFileException.inRow(fileName, number, column, "the row has " + cells.size()
                     + " cells; the header has " + header.size() + " columns");
         }
-        row.number = number;
-        row.cells.clear();
-        for (int i = 0; i < record.size(); i++) {
-            row.cells.add(record.get(i));
-        }
-        row.timeSeconds = number(record, time, TraceFile.CellRule.FINITE);
-        row.setpoint = number(record, setpoint, TraceFile.CellRule.SAMPLE);
-        row.measurement = number(record, measurement, TraceFile.CellRule.SAMPLE);
-        row.feedforward = number(record, feedforward, TraceFile.CellRule.SAMPLE);
-        row.manualOutput = number(record, manualOutput, TraceFile.CellRule.KEEP);
-        row.trackValue = number(record, trackValue, TraceFile.CellRule.KEEP);
-        row.loggedOutput = number(record, loggedOutput, TraceFile.CellRule.SAMPLE);
+        row.timeSeconds = number(row, time, TraceFile.CellRule.FINITE);
+        row.setpoint = number(row, setpoint, TraceFile.CellRule.SAMPLE);
+        row.measurement = number(row, measurement, TraceFile.CellRule.SAMPLE);
+        row.feedforward = number(row, feedforward, TraceFile.CellRule.SAMPLE);
+        row.manualOutput = number(row, manualOutput, TraceFile.CellRule.KEEP);
+        row.trackValue = number(row, trackValue, TraceFile.CellRule.KEEP);
+        row.loggedOutput = number(row, loggedOutput, TraceFile.CellRule.SAMPLE);
         row.mode = null;
-        if (mode >= 0 && !record.get(mode).isEmpty()) {
-            String cell = record.get(mode);
+        if (mode >= 0 && !cells.get(mode).isEmpty()) {
+            String cell = cells.get(mode);
             row.mode = TraceFile.MODES.value(cell).orElseThrow(() -> InputFileException.inRow(fileName, number, "mode",
                     "must be " + TraceFile.MODES.describe() + ", or blank to keep the mode: mode=" + cell));
         }
         return true;
     }
 
-    private double number(CSVRecord record, int index, TraceFile.CellRule rule) {
+    private double number(TraceRow row, int index, TraceFile.CellRule rule) {
         if (index < 0) {
             return Double.NaN;
         }
-        String cell = record.get(index);
+        String cell = row.cells.get(index);
         double value = TraceFile.parseNumber(cell);
         if (!rule.accepts(cell, value)) {
             String name = header.get(index);
-            throw InputFileException.inRow(fileName, record.getRecordNumber(), name, rule.text() + ": " + name + "="
-                    + cell);
+            throw InputFileException.inRow(fileName, row.number, name, rule.text() + ": " + name + "=" + cell);
         }
         return value;
-    }
-
-    private boolean hasNextRecord() {
-        try {
-            return records.hasNext();
-        } catch (UncheckedIOException | IllegalStateException e) {
-            throw unreadable(e);
-        }
-    }
-
-    private CSVRecord nextRecord() {
-        try {
-            return records.next();
-        } catch (UncheckedIOException | IllegalStateException e) {
-            throw unreadable(e);
-        }
-    }
-
-    private InputFileException unreadable(RuntimeException e) {
-        Throwable cause = e.getCause() != null ? e.getCause() : e;
-        return InputFileException.whole(fileName, "not valid CSV (" + IoWords.of(cause) + ")", e);
     }
 
     private void checkHeader() {
@@ -201,6 +170,6 @@ public final class TraceReader implements Closeable {
 
     @Override
     public void close() throws IOException {
-        parser.close();
+        rows.close();
     }
 }

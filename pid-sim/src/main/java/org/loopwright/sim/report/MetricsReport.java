@@ -89,19 +89,27 @@ public final class MetricsReport {
         Object stepMissing = unsettled ? m.state().words() : null;
         Object runMissing = m.state() == ResponseState.DIVERGED ? m.state().words() : null;
         table.row("response", m.state().words(), "");
-        table.row("rise time (10-90 %)", or(m.riseTimeSeconds(), stepMissing), "s");
-        table.row("settling time (2 %)", or(m.settlingTimeSeconds(), stepMissing), "s");
-        table.row("overshoot", or(m.overshootPercent(), stepMissing), "%");
-        table.row("peak time", or(m.peakTimeSeconds(), m.state() == ResponseState.SETTLED ? null : stepMissing), "s");
-        table.row("steady-state error", or(m.steadyStateError(), stepMissing), units.processOrWord());
-        table.row("IAE", or(m.iae(), runMissing), units.processSeconds());
-        table.row("ISE", or(m.ise(), runMissing), units.processOrWord() + "²·s");
-        table.row("ITAE", or(m.itae(), runMissing), units.processOrWord() + "·s²");
-        table.row("total variation of output", or(m.totalVariation(), runMissing), units.outputOrWord());
-        table.row("time saturated", or(100.0 * m.saturatedFraction(), runMissing), "%");
-        table.row("limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN), units.processOrWord());
-        table.row("limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
+        figure(table, "rise time (10-90 %)", or(m.riseTimeSeconds(), stepMissing), "s");
+        figure(table, "settling time (2 %)", or(m.settlingTimeSeconds(), stepMissing), "s");
+        figure(table, "overshoot", or(m.overshootPercent(), stepMissing), "%");
+        figure(table, "peak time", or(m.peakTimeSeconds(), m.state() == ResponseState.SETTLED ? null : stepMissing),
+                "s");
+        figure(table, "steady-state error", or(m.steadyStateError(), stepMissing), units.processOrWord());
+        figure(table, "IAE", or(m.iae(), runMissing), units.processSeconds());
+        figure(table, "ISE", or(m.ise(), runMissing), units.processOrWord() + "²·s");
+        figure(table, "ITAE", or(m.itae(), runMissing), units.processOrWord() + "·s²");
+        figure(table, "total variation of output", or(m.totalVariation(), runMissing), units.outputOrWord());
+        figure(table, "time saturated", or(100.0 * m.saturatedFraction(), runMissing), "%");
+        figure(table, "limit cycle amplitude", cycle.map(LimitCycle::amplitude).orElse(Double.NaN),
+                units.processOrWord());
+        figure(table, "limit cycle period", cycle.map(LimitCycle::periodSeconds).orElse(Double.NaN), "s");
         return table;
+    }
+
+    /** A figure's row; a figure that is missing has no unit beside it ("not settled", not "not settled s"). */
+    private static void figure(ResultTable table, String name, Object value, String unit) {
+        boolean number = value instanceof Double d && Double.isFinite(d);
+        table.row(name, value, number ? unit : "");
     }
 
     /** The figure, or the reason it is missing when there is one (null leaves the table's own mark). */

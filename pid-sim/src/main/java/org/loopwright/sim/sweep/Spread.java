@@ -1,34 +1,39 @@
 package org.loopwright.sim.sweep;
 
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.stream.Collectors;
 
+import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.plant.PlantType;
 
 /**
- * How far each plant parameter may stray from its nominal value, as fractions: a drawn plant's
- * parameter is the nominal one times a factor drawn uniformly from [1 − s, 1 + s], independently per
- * parameter. Each fraction is 0 ≤ s &lt; 1, so every factor stays positive.
+ * How far each plant parameter may stray from its nominal value, as fractions by the parameter's key:
+ * a drawn plant's parameter is the nominal one times a factor drawn uniformly from [1 − s, 1 + s],
+ * independently per parameter. Each fraction is 0 ≤ s &lt; 1, so every factor stays positive.
  *
- * <p>Written on the command line as {@code gain=20%,time-constant=10%,dead-time=30%}; parameters left
- * out do not vary. Example: {@code Spread.parse("gain=20%")} gives a gain factor in [0.8, 1.2].
+ * <p>The keys are the plant type's {@link PlantType#spreadKeys()}: {@code gain}, {@code time-constant}
+ * and {@code dead-time} for a linear plant, the file keys of its physical parameters for a nonlinear
+ * one. Written on the command line as {@code gain=20%,time-constant=10%,dead-time=30%} or
+ * {@code static-friction=30%,inertia=10%}; keys left out do not vary. Example:
+ * {@code Spread.parse("gain=20%")} gives a gain factor in [0.8, 1.2].
  *
- * @param gain         the spread of the process gain
- * @param timeConstant the spread of every time constant (poles and zeros together)
- * @param deadTime     the spread of the dead time
+ * @param fractions the spread of each key named, in the order given
  */
-public record Spread(double gain, double timeConstant, double deadTime) {
+public record Spread(Map<String, Double> fractions) {
 
     /** No spread: every drawn plant is the nominal plant. */
-    public static final Spread NONE = new Spread(0.0, 0.0, 0.0);
+    public static final Spread NONE = new Spread(Map.of());
 
-    /** The keys of the text form, in the order of the record's components. */
-    public static final String KEYS = "gain, time-constant or dead-time";
-
-    /** Validates the fractions. */
+    /** Validates the fractions and keeps their order. */
     public Spread {
-        check("gain", gain);
-        check("time-constant", timeConstant);
-        check("dead-time", deadTime);
+        fractions.forEach(Spread::check);
+        fractions = Collections.unmodifiableMap(new LinkedHashMap<>(fractions));
     }
 
     private static void check(String key, double fraction) {
@@ -39,35 +44,26 @@ public record Spread(double gain, double timeConstant, double deadTime) {
     }
 
     /**
-     * Reads the text form {@code key=P%[,key=P%...]} with keys {@value #KEYS}.
+     * Reads the text form {@code key=P%[,key=P%...]}; which keys a plant takes is checked by
+     * {@link #requireKeysOf}.
      *
      * @throws InputException naming the entry, the value and what is allowed
      */
     public static Spread parse(String text) {
-        double[] fractions = {0.0, 0.0, 0.0};
-        boolean[] seen = new boolean[3];
+        Map<String, Double> fractions = new LinkedHashMap<>();
         for (String entry : text.split(",", -1)) {
             String trimmed = entry.strip();
             int equals = trimmed.indexOf('=');
-            if (equals < 0) {
-                throw new InputException("--spread entries must be key=P% with key " + KEYS
-                        + ": --spread=" + text);
+            if (equals <= 0) {
+                throw new InputException("--spread entries must be key=P% with a plant parameter's key:"
+                        + " --spread=" + text);
             }
             String key = trimmed.substring(0, equals).strip();
-            String value = trimmed.substring(equals + 1).strip();
-            int index = switch (key) {
-                case "gain" -> 0;
-                case "time-constant" -> 1;
-                case "dead-time" -> 2;
-                default -> throw new InputException("--spread key must be " + KEYS + ": --spread=" + text);
-            };
-            if (seen[index]) {
+            if (fractions.put(key, fraction(key, trimmed.substring(equals + 1).strip())) != null) {
                 throw new InputException("--spread must name " + key + " once: --spread=" + text);
             }
-            seen[index] = true;
-            fractions[index] = fraction(key, value);
         }
-        return new Spread(fractions[0], fractions[1], fractions[2]);
+        return new Spread(fractions);
     }
 
     private static double fraction(String key, String value) {
@@ -85,9 +81,42 @@ public record Spread(double gain, double timeConstant, double deadTime) {
         return percent / 100.0;
     }
 
-    /** The text form, every key with its percentage. */
+    /**
+     * Checks that every key named is one of the plant type's spread keys.
+     *
+     * @throws InputException naming the key, the plant type and the keys it takes
+     */
+    public void requireKeysOf(PlantType type) {
+        List<String> allowed = type.spreadKeys().stream().map(FileKey::word).toList();
+        for (String key : fractions.keySet()) {
+            if (!allowed.contains(key)) {
+                throw new InputException("--spread key " + key + " is not a parameter of plant type "
+                        + type.word() + ": use " + String.join(", ", allowed.subList(0, allowed.size() - 1)) + " or "
+                        + allowed.get(allowed.size() - 1));
+            }
+        }
+    }
+
+    /** The spread of one key, 0 when it is not named. */
+    public double fraction(String key) {
+        return fractions.getOrDefault(key, 0.0);
+    }
+
+    /** The text form of the keys named, in their order ({@code gain=20%,dead-time=12.5%}); empty for no spread. */
     public String text() {
-        return "gain=" + percent(gain) + ",time-constant=" + percent(timeConstant) + ",dead-time=" + percent(deadTime);
+        return fractions.entrySet().stream().map(e -> e.getKey() + "=" + percent(e.getValue()))
+                .collect(Collectors.joining(","));
+    }
+
+    /** The keys with a spread above 0, as a sentence names them: {@code gain ±20%, dead-time ±12.5%}. */
+    public List<String> nonZero() {
+        List<String> named = new ArrayList<>();
+        fractions.forEach((key, fraction) -> {
+            if (fraction > 0.0) {
+                named.add(key + " ±" + percent(fraction));
+            }
+        });
+        return named;
     }
 
     private static String percent(double fraction) {

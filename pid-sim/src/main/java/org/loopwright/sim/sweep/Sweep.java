@@ -1,7 +1,9 @@
 package org.loopwright.sim.sweep;
 
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.SplittableRandom;
 import java.util.concurrent.ExecutionException;
@@ -12,11 +14,16 @@ import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 
 import org.hipparchus.complex.Complex;
+import org.loopwright.pid.InvalidSettingException;
+import org.loopwright.sim.config.FileKey;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.PlantParameters;
+import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.Scenario;
@@ -25,7 +32,9 @@ import org.loopwright.sim.simulate.Trajectory;
 
 /**
  * A parameter sweep: runs the scenario's closed loop on many plants drawn around its nominal
- * (linear) plant, in parallel, and keeps every run's figures.
+ * plant, in parallel, and keeps every run's figures. A linear plant's gain, time constants and dead
+ * time are spread and its runs judged by their closed-loop poles; a nonlinear plant's parameters are
+ * spread by their file keys and its runs judged by the simulation alone ({@link StabilityBasis}).
  *
  * <p>Run i draws its plant from a random stream seeded by (seed, i) alone (see {@link PlantDraw#draw}),
  * so the result for a seed is the same whatever the number of threads and the order the runs finish
@@ -52,35 +61,93 @@ public final class Sweep {
     public static final int NOMINAL_INDEX = -1;
 
     private final Scenario scenario;
-    private final TransferFunction nominalPlant;
+    private final PlantModel nominalPlant;
     private final Spread spread;
     private final long seed;
 
     /**
      * A sweep around the scenario's plant.
      *
-     * @param scenario the nominal scenario; its plant must be linear
-     * @param spread   how far the plant parameters stray
+     * @param scenario the nominal scenario
+     * @param spread   how far the plant parameters stray, by the plant type's spread keys
      * @param seed     the seed of the plant draws
-     * @throws IllegalArgumentException for a nonlinear plant
+     * @throws InputException for a key the plant type does not take, a spread of a parameter whose
+     *                                  nominal value is 0 or infinite (a factor cannot move it), or a spread
+     *                                  whose extremes give a plant the model refuses
      */
     public Sweep(Scenario scenario, Spread spread, long seed) {
         this.scenario = Objects.requireNonNull(scenario, "scenario");
         this.spread = Objects.requireNonNull(spread, "spread");
-        this.nominalPlant = scenario.linearPlant().orElseThrow(() -> new IllegalArgumentException(
-                "a sweep needs a linear plant (its gain, time constants and dead time are varied): plant="
-                        + scenario.plant()));
+        this.nominalPlant = scenario.plant();
         this.seed = seed;
+        spread.requireKeysOf(nominalPlant.type());
+        if (!(nominalPlant instanceof TransferFunction)) {
+            requireDrawable(nominalPlant, spread);
+        }
+    }
+
+    /**
+     * Checks a nonlinear plant's spread before any run: each key spread must have a finite, non-zero
+     * nominal value, and every corner of the spread (each factor at 1 − s or 1 + s) must give a plant the
+     * model accepts. The models' rules are bounds on single values or on pairs (static friction at
+     * least Coulomb friction), so the corners are where they fail first.
+     */
+    private static void requireDrawable(PlantModel nominal, Spread spread) {
+        List<FileKey<Double>> spreadKeys = new ArrayList<>();
+        for (FileKey<Double> key : nominal.type().spreadKeys()) {
+            double value = PlantParameters.value(nominal, key);
+            if (spread.fraction(key.word()) > 0.0) {
+                if (value == 0.0 || Double.isInfinite(value)) {
+                    throw new InputException("--spread " + key.word() + " cannot vary on plant type "
+                            + nominal.type().word() + ": its nominal value is " + value
+                            + " and a spread multiplies it; give the scenario a finite non-zero " + key.word());
+                }
+                spreadKeys.add(key);
+            }
+        }
+        for (int corner = 0; corner < 1 << spreadKeys.size(); corner++) {
+            Map<FileKey<Double>, Double> factors = new LinkedHashMap<>();
+            for (int i = 0; i < spreadKeys.size(); i++) {
+                double s = spread.fraction(spreadKeys.get(i).word());
+                factors.put(spreadKeys.get(i), (corner >> i & 1) == 0 ? 1.0 - s : 1.0 + s);
+            }
+            try {
+                PlantParameters.scaled(nominal, factors);
+            } catch (InvalidSettingException refused) {
+                StringBuilder drawn = new StringBuilder();
+                factors.forEach((key, factor) -> drawn.append(drawn.length() == 0 ? "" : ", ").append(key.word())
+                        .append(" x").append(factor));
+                throw new InputException("--spread " + spread.text() + " can draw a " + nominal.type().word()
+                        + " the model refuses: " + fileTerms(nominal.type(), refused.field()) + " "
+                        + fileTerms(nominal.type(), refused.rule()) + ": " + fileTerms(nominal.type(), refused.field())
+                        + "=" + refused.value() + ", at " + drawn
+                        + "; narrow the spread or change the nominal values");
+            }
+        }
+    }
+
+    /** The model's field names in a text replaced by the file keys that fill them. */
+    private static String fileTerms(PlantType type, String text) {
+        String terms = text;
+        for (FileKey<?> key : type.keys()) {
+            terms = terms.replaceAll("\\b" + key.field() + "\\b", key.word());
+        }
+        return terms;
     }
 
     /** The factors of run {@code index}: the same for the same seed and index, whatever else runs. */
     public PlantDraw draw(int index) {
-        return PlantDraw.draw(spread, new SplittableRandom(runSeed(seed, index)));
+        return PlantDraw.draw(nominalPlant.type(), spread, new SplittableRandom(runSeed(seed, index)));
     }
 
     /** The scenario of run {@code index}: the nominal one with the drawn plant. */
     public Scenario scenario(int index) {
         return scenario.withPlant(draw(index).apply(nominalPlant));
+    }
+
+    /** What this sweep's stability verdicts rest on. */
+    public StabilityBasis stabilityBasis() {
+        return StabilityBasis.of(scenario);
     }
 
     /**
@@ -132,15 +199,27 @@ public final class Sweep {
 
     /** One run on a thread's own loop, rewound onto the drawn plant. */
     private SweepRun run(ClosedLoop loop, int index, PlantDraw draw) {
-        TransferFunction plant = draw.apply(nominalPlant);
+        PlantModel plant = draw.apply(nominalPlant);
         Scenario drawn = scenario.withPlant(plant);
         loop.rewind(plant);
         Trajectory trajectory = loop.run();
         ResponseMetrics metrics = ResponseMetrics.of(drawn, trajectory);
-        double poleMagnitude = largestPoleMagnitude(drawn);
-        LoopStability stability = trajectory.diverged() ? LoopStability.DIVERGED
-                : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
-                : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
+        double poleMagnitude = Double.NaN;
+        double decayRatio = Double.NaN;
+        LoopStability stability;
+        if (StabilityBasis.of(drawn) == StabilityBasis.POLES) {
+            poleMagnitude = largestPoleMagnitude(drawn);
+            stability = trajectory.diverged() ? LoopStability.DIVERGED
+                    : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
+                    : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
+        } else {
+            SustainedOscillation oscillation = SustainedOscillation.of(drawn).feed(trajectory);
+            decayRatio = oscillation.decayRatio();
+            // an on-off loop cycles by design: its cycling is not instability
+            stability = trajectory.diverged() ? LoopStability.DIVERGED
+                    : drawn.onOffController().isPresent() ? LoopStability.NOT_ASSESSED
+                    : oscillation.sustained() ? LoopStability.OSCILLATING : LoopStability.STABLE;
+        }
         int stride = Math.max(1, (trajectory.length() + PLOT_POINTS - 1) / PLOT_POINTS);
         int count = (trajectory.length() + stride - 1) / stride;
         boolean lastKept = (trajectory.length() - 1) % stride == 0;
@@ -154,7 +233,8 @@ public final class Sweep {
             times[count] = trajectory.time(trajectory.length() - 1);
             measurements[count] = trajectory.measurement(trajectory.length() - 1);
         }
-        return new SweepRun(index, draw, plant, metrics, stability, poleMagnitude, times, measurements);
+        return new SweepRun(index, draw, plant, metrics, stability, poleMagnitude, decayRatio, times,
+                measurements);
     }
 
     /**
@@ -171,9 +251,8 @@ public final class Sweep {
             if (drawn.inner().isPresent()) {
                 // a cascade: the outer loop with the inner loop closed, whose poles include the inner loop's
                 InnerLoop inner = drawn.inner().get();
-                return CascadeAnalysis.outerSampled(loop.plant().withDeadTime(loop.totalDelaySeconds()),
-                        loop.controller(), inner.plant().linear().orElseThrow(), inner.controller())
-                        .largestPoleMagnitude();
+                return CascadeAnalysis.outerSampled(loop.plant(), loop.controller(), inner.plant().linear().orElseThrow(),
+                        inner.controller(), loop.sensorDelaySamples()).largestPoleMagnitude();
             }
             double largest = 0.0;
             for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(loop))) {

@@ -17,18 +17,25 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
+import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.plant.PlantModel;
+import org.loopwright.sim.plant.PlantParameters;
+import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.ResponsePlot;
 import org.loopwright.sim.scenario.Units;
 
 /**
  * A sweep's files: {@value #CSV} with one row per run (Commons CSV) and {@value #PLOT_NAME}.png/.svg
  * with the runs' measurement as an envelope (min to max, 10th to 90th percentile, median), the nominal
- * run in black (XChart). The CSV's columns are
- * {@link #HEADER}: the run's index, its three factors, the plant simulated (coefficients in descending
- * powers of s, separated by spaces; dead time in seconds), the stability verdict
- * ({@code stable}, {@code unstable}, {@code diverged}, {@code not-assessed}), the largest closed-loop pole magnitude,
- * and the response figures (seconds, percent, process units; empty where a figure does not apply).
+ * run in black (XChart). The CSV's columns ({@link #header(PlantModel)}): the run's index, its factor
+ * per spread key ({@code gain_factor}, ...), the plant simulated, the stability verdict ({@code stable},
+ * {@code unstable}, {@code oscillating}, {@code diverged}, {@code not-assessed}) with its evidence, and
+ * the response figures (seconds, percent, process units; empty where a figure does not apply). For a
+ * linear plant ({@link #HEADER}) the plant is its coefficients in descending powers of s, separated by
+ * spaces, and dead time in seconds, and the evidence the largest closed-loop pole magnitude; for a
+ * nonlinear plant the plant is the drawn value of each spread key (in the file's units) and the
+ * evidence the decay ratio of {@link SustainedOscillation}.
  */
 public final class SweepFiles {
 
@@ -40,6 +47,7 @@ public final class SweepFiles {
     public static final List<String> HEADER = List.of("run", "gain_factor", "time_constant_factor",
             "dead_time_factor", "numerator", "denominator", "dead_time", "stability", "largest_pole_magnitude",
             "rise_time", "settling_time", "overshoot_percent", "steady_state_error", "iae", "saturated_fraction");
+    private static final List<String> FIGURES = HEADER.subList(HEADER.indexOf("rise_time"), HEADER.size());
 
     private static final Color OUTER_BAND = new Color(31, 119, 180, 60);
     private static final Color INNER_BAND = new Color(31, 119, 180, 120);
@@ -67,22 +75,59 @@ public final class SweepFiles {
         return List.of(csv, directory.resolve(PLOT_NAME + ".png"), directory.resolve(PLOT_NAME + ".svg"));
     }
 
+    /**
+     * The CSV's header for a sweep around a plant: {@link #HEADER} for a transfer function; for another model the
+     * run, a factor and a drawn value per spread key, the stability and its evidence (the largest pole magnitude
+     * when the model is linear, a motor without friction or load; the decay ratio otherwise), and the figures.
+     */
+    public static List<String> header(PlantModel nominal) {
+        if (nominal instanceof TransferFunction) {
+            return HEADER;
+        }
+        List<String> header = new ArrayList<>();
+        header.add("run");
+        List<String> columns = nominal.type().spreadKeys().stream().map(k -> k.word().replace('-', '_')).toList();
+        columns.forEach(column -> header.add(column + "_factor"));
+        header.addAll(columns);
+        header.add("stability");
+        header.add(nominal.linear().isPresent() ? "largest_pole_magnitude" : "decay_ratio");
+        header.addAll(FIGURES);
+        return header;
+    }
+
     /** Writes one row per run. */
     public static void writeCsv(SweepResult result, Path file) throws IOException {
+        PlantModel nominal = result.scenario().plant();
         try (Writer out = Files.newBufferedWriter(file, StandardCharsets.UTF_8);
-                CSVPrinter csv = CSVFormat.DEFAULT.builder().setHeader(HEADER.toArray(String[]::new))
+                CSVPrinter csv = CSVFormat.DEFAULT.builder().setHeader(header(nominal).toArray(String[]::new))
                         .setRecordSeparator('\n').get().print(out)) {
             for (SweepRun run : result.runs()) {
+                List<Object> row = new ArrayList<>();
+                row.add(run.index());
+                for (FileKey<Double> key : nominal.type().spreadKeys()) {
+                    row.add(run.draw().factor(key.word()));
+                }
+                if (run.plant() instanceof TransferFunction plant) {
+                    row.addAll(List.of(coefficients(plant.numerator()), coefficients(plant.denominator()),
+                            plant.deadTimeSeconds(), word(run.stability()), cell(run.largestPoleMagnitude())));
+                } else {
+                    for (FileKey<Double> key : nominal.type().spreadKeys()) {
+                        row.add(PlantParameters.value(run.plant(), key));
+                    }
+                    row.addAll(List.of(word(run.stability()), cell(nominal.linear().isPresent()
+                            ? run.largestPoleMagnitude() : run.decayRatio())));
+                }
                 ResponseMetrics m = run.metrics();
-                csv.printRecord(run.index(), run.draw().gainFactor(), run.draw().timeConstantFactor(),
-                        run.draw().deadTimeFactor(), coefficients(run.plant().numerator()),
-                        coefficients(run.plant().denominator()), run.plant().deadTimeSeconds(),
-                        run.stability().name().toLowerCase(Locale.ROOT).replace('_', '-'),
-                        cell(run.largestPoleMagnitude()), cell(m.riseTimeSeconds()), cell(m.settlingTimeSeconds()),
+                row.addAll(List.of(cell(m.riseTimeSeconds()), cell(m.settlingTimeSeconds()),
                         cell(m.overshootPercent()), cell(m.steadyStateError()), cell(m.iae()),
-                        cell(m.saturatedFraction()));
+                        cell(m.saturatedFraction())));
+                csv.printRecord(row);
             }
         }
+    }
+
+    private static String word(LoopStability stability) {
+        return stability.name().toLowerCase(Locale.ROOT).replace('_', '-');
     }
 
     private static String coefficients(double[] values) {
@@ -95,10 +140,10 @@ public final class SweepFiles {
 
     /**
      * The runs' measurement against time as an envelope, drawn at the same cost for 10 or 10,000 runs:
-     * at each thinned instant, over the stable runs (neither unstable nor diverged), the band from the
-     * smallest to the largest value and the band from the 10th to the 90th percentile, with the median
-     * dashed; the nominal run in black on top; and the first {@value #UNSTABLE_DRAWN} unstable or diverged
-     * runs in red, each clipped to the stable runs' range widened by a quarter of it.
+     * at each thinned instant, over the stable runs (not unstable, oscillating or diverged), the band
+     * from the smallest to the largest value and the band from the 10th to the 90th percentile, with the
+     * median dashed; the nominal run in black on top; and the first {@value #UNSTABLE_DRAWN} unstable,
+     * oscillating or diverged runs in red, each clipped to the stable runs' range widened by a quarter of it.
      */
     public static XYChart plot(SweepResult result, String title) {
         return plot(result, title, Units.NONE);
@@ -110,7 +155,8 @@ public final class SweepFiles {
         List<double[]> stable = new ArrayList<>();
         List<SweepRun> unstable = new ArrayList<>();
         for (SweepRun run : result.runs()) {
-            if (run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.DIVERGED) {
+            if (run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.OSCILLATING
+                    || run.stability() == LoopStability.DIVERGED) {
                 unstable.add(run);
             } else if (run.plotMeasurements().length == times.length) {
                 stable.add(run.plotMeasurements());

@@ -26,10 +26,18 @@ public record SweepResult(Scenario scenario, Spread spread, long seed, SweepRun 
         runs = List.copyOf(runs);
     }
 
-    /** The share of runs judged {@link LoopStability#UNSTABLE} or {@link LoopStability#DIVERGED}, 0 to 1. */
+    /**
+     * The share of runs judged {@link LoopStability#UNSTABLE}, {@link LoopStability#OSCILLATING} or
+     * {@link LoopStability#DIVERGED}, 0 to 1.
+     */
     public double unstableShare() {
-        return (double) runs.stream().filter(r -> r.stability() == LoopStability.UNSTABLE
-                || r.stability() == LoopStability.DIVERGED).count() / runs.size();
+        return (double) runs.stream().filter(r -> r.stability() != LoopStability.STABLE
+                && r.stability() != LoopStability.NOT_ASSESSED).count() / runs.size();
+    }
+
+    /** What the stability verdicts rest on: poles for a linear plant, the simulation for a nonlinear one. */
+    public StabilityBasis stabilityBasis() {
+        return StabilityBasis.of(scenario);
     }
 
     /** The share of runs whose simulation diverged and was stopped, 0 to 1. */
@@ -77,12 +85,12 @@ public record SweepResult(Scenario scenario, Spread spread, long seed, SweepRun 
     }
 
     /**
-     * The worst run: diverged runs first, then unstable ones, then runs that never settled, then the largest IAE (a NaN
+     * The worst run: diverged runs first, then unstable or oscillating ones, then runs that never settled, then the largest IAE (a NaN
      * IAE counts as the largest); ties go to the lowest index.
      */
     public SweepRun worst() {
         Comparator<SweepRun> badness = Comparator.<SweepRun>comparingInt(r -> r.stability() == LoopStability.DIVERGED
-                ? 3 : r.stability() == LoopStability.UNSTABLE ? 2 : !r.settled() && r.metrics().state()
+                ? 3 : r.stability() == LoopStability.UNSTABLE || r.stability() == LoopStability.OSCILLATING ? 2 : !r.settled() && r.metrics().state()
                         == ResponseState.NOT_SETTLED ? 1 : 0)
                 .thenComparingDouble(r -> Double.isNaN(r.metrics().iae()) ? Double.POSITIVE_INFINITY : r.metrics().iae())
                 .thenComparing(Comparator.comparingInt(SweepRun::index).reversed());

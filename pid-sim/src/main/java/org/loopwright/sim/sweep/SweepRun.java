@@ -2,7 +2,7 @@ package org.loopwright.sim.sweep;
 
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.metrics.ResponseState;
-import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.plant.PlantModel;
 
 /**
  * One run of a sweep: the plant it drew, its response figures, its stability verdict, and its
@@ -14,11 +14,14 @@ import org.loopwright.sim.plant.TransferFunction;
  * @param metrics              the response figures over the scenario's response window
  * @param stability            the stability verdict
  * @param largestPoleMagnitude the largest closed-loop pole magnitude of the sampled loop (NaN when not computed)
+ * @param decayRatio           for a plant judged by simulation, the process error's last swing over the swing
+ *                             a cycle before ({@link SustainedOscillation}; NaN with fewer swings or a linear plant)
  * @param plotTimes            sample instants of the thinned measurement, seconds
  * @param plotMeasurements     the measurement y(k) at those instants (NaN for a dropout)
  */
-public record SweepRun(int index, PlantDraw draw, TransferFunction plant, ResponseMetrics metrics,
-        LoopStability stability, double largestPoleMagnitude, double[] plotTimes, double[] plotMeasurements) {
+public record SweepRun(int index, PlantDraw draw, PlantModel plant, ResponseMetrics metrics,
+        LoopStability stability, double largestPoleMagnitude, double decayRatio, double[] plotTimes,
+        double[] plotMeasurements) {
 
     /** Copies the arrays. */
     public SweepRun {

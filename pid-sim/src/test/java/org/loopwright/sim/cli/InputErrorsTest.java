@@ -89,7 +89,7 @@ class InputErrorsTest {
         assertThat(run.err()).contains("DIVERGED");
         // the verdict row, and no figure that assumes a settled loop
         assertThat(run.out()).containsPattern("response +DIVERGED\\n").containsPattern("settling time \\(2 %\\) +DIVERGED")
-                .containsPattern("IAE +DIVERGED");
+                .containsPattern("IAE +DIVERGED\\n");
         String csv = Files.readString(dir.resolve("out/trajectory.csv"));
         assertThat(csv).doesNotContain("Infinity", "NaN", "E307");
     }

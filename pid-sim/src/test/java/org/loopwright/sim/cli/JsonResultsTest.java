@@ -105,22 +105,6 @@ class JsonResultsTest {
         assertThat(tuned.exitCode()).as(tuned.err()).isZero();
     }
 
-    @Test
-    void sweepHasTheDistributionsAndTwoRuns(@TempDir Path dir) throws Exception {
-        JsonNode root = JSON.readTree(CommandRun.of("sweep", FrequencyCommandsTest.scenario("booster-pump.yaml"),
-                "--runs", "5", "--threads", "1", "--out", dir.toString(), "--json").out());
-
-        keys(root, "runs", "seed", "threads", "distribution", "spread", "unstable_share", "not_assessed_share",
-                "not_settled_share", "overshoot_percent", "settling_time", "iae", "saturated_percent", "worst_run",
-                "nominal_run");
-        keys(root.get("spread"), "gain", "time_constant", "dead_time");
-        keys(root.get("iae"), "count", "min", "median", "p90", "max");
-        keys(root.get("nominal_run"), "run", "stability", "gain_factor", "time_constant_factor", "dead_time_factor",
-                "numerator", "denominator", "dead_time", "largest_pole_magnitude", "overshoot_percent", "settling_time",
-                "steady_state_error", "iae", "saturated_fraction");
-        assertThat(root.get("nominal_run").get("stability").asText()).isEqualTo("stable");
-    }
-
     private static String[] concat(String[] first, String... more) {
         String[] all = java.util.Arrays.copyOf(first, first.length + more.length);
         System.arraycopy(more, 0, all, first.length, more.length);

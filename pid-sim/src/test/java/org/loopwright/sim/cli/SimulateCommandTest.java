@@ -67,8 +67,8 @@ class SimulateCommandTest {
                 """);
         assertThat(run("simulate", scenario.toString(), "--out", dir.resolve("t").toString())).as(err.toString()).isZero();
         assertThat(out.toString()).containsPattern("response +not settled\\n")
-                .containsPattern("settling time \\(2 %\\) +not settled").containsPattern("overshoot +not settled")
-                .containsPattern("steady-state error +not settled");
+                .containsPattern("settling time \\(2 %\\) +not settled\\n").containsPattern("overshoot +not settled\\n")
+                .as("no unit beside a missing figure").containsPattern("steady-state error +not settled\\n");
         out.getBuffer().setLength(0);
         assertThat(run("simulate", scenario.toString(), "--out", dir.resolve("j").toString(), "--json")).isZero();
         JsonNode metrics = new ObjectMapper().readTree(out.toString());

@@ -117,7 +117,8 @@ class SweepCommandTest {
                 Arguments.of(List.of("--spread", "gain=20"),
                         "--spread gain must be a percentage from 0% to below 100%: gain=20"),
                 Arguments.of(List.of("--spread", "lag=20%"),
-                        "--spread key must be gain, time-constant or dead-time: --spread=lag=20%"),
+                        "--spread key lag is not a parameter of plant type transfer-function: use gain,"
+                                + " time-constant or dead-time"),
                 Arguments.of(List.of("--runs", "0"), "--runs must be from 1 to 10000: --runs=0"),
                 Arguments.of(List.of("--threads", "0"), "--threads must be from 1 to 256: --threads=0"));
     }
@@ -135,13 +136,56 @@ class SweepCommandTest {
         assertThat(run.out()).isEmpty();
     }
 
-    @Test
-    void aNonlinearPlantIsRefusedWithTheFileAndThePlantType(@TempDir Path dir) throws Exception {
+    static Stream<Arguments> badNonlinearSpreads() {
+        return Stream.of(
+                Arguments.of(List.of(), "--spread is needed for plant type tank (no default: name the parameters that"
+                        + " are uncertain), keys area, outlet-coefficient, initial-level"),
+                Arguments.of(List.of("--spread", "outflow-coefficient=20%"), "--spread key outflow-coefficient is not a"
+                        + " parameter of plant type tank: use area, outlet-coefficient or initial-level"),
+                Arguments.of(List.of("--spread", "gain=20%"), "--spread key gain is not a parameter of plant type"
+                        + " tank: use area, outlet-coefficient or initial-level"));
+    }
+
+    @ParameterizedTest
+    @MethodSource("badNonlinearSpreads")
+    void aNonlinearPlantsSpreadNamesTheKeyThePlantTypeAndItsKeys(List<String> options, String message,
+            @TempDir Path dir) throws Exception {
         String tank = Path.of(SweepCommandTest.class.getResource("/scenarios/tank.yaml").toURI()).toString();
-        CommandRun run = CommandRun.of("sweep", tank, "--out", dir.toString());
+        String[] args = Stream.concat(Stream.of("sweep", tank, "--out", dir.resolve("out").toString()),
+                options.stream()).toArray(String[]::new);
+        CommandRun run = CommandRun.of(args);
         assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
-        assertThat(run.err().trim()).isEqualTo(tank + ": sweep needs a linear plant (first-order, fopdt, sopdt,"
-                + " integrating or transfer-function): plant.type=tank");
+        assertThat(run.err().trim()).isEqualTo(message);
+        assertThat(dir.resolve("out")).doesNotExist();
+    }
+
+    @Test
+    void aNonlinearPlantIsSweptByItsFileKeysAndJudgedBySimulation(@TempDir Path dir) throws Exception {
+        String tank = Path.of(SweepCommandTest.class.getResource("/scenarios/tank.yaml").toURI()).toString();
+        Path out = dir.resolve("out");
+        CommandRun run = CommandRun.of("sweep", tank, "--runs", "6", "--spread", "outlet-coefficient=20%,area=10%",
+                "--seed", "2", "--threads", "2", "--out", out.toString(), "--no-progress");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).contains("outlet-coefficient ±20%, area ±10% of the nominal")
+                .contains("Stability judged by simulation (nonlinear plant, no poles)")
+                .contains("nominal plant: stable; area x1.000 = 0.5000, outlet-coefficient x1.000 = 0.01000; decay ratio n/a");
+        List<CSVRecord> rows;
+        try (var reader = Files.newBufferedReader(out.resolve(SweepFiles.CSV))) {
+            rows = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).get().parse(reader).getRecords();
+        }
+        assertThat(rows.get(0).getParser().getHeaderNames()).containsSubsequence("run", "area_factor",
+                "outlet_coefficient_factor", "initial_level_factor", "area", "outlet_coefficient", "initial_level",
+                "stability", "decay_ratio", "rise_time");
+        for (CSVRecord row : rows) {
+            // the drawn value is the file's nominal value times the factor (tank.yaml: outlet-coefficient 0.01)
+            assertThat(Double.parseDouble(row.get("outlet_coefficient")))
+                    .isEqualTo(0.01 * Double.parseDouble(row.get("outlet_coefficient_factor")));
+            assertThat(Double.parseDouble(row.get("outlet_coefficient_factor"))).isBetween(0.8, 1.2);
+            assertThat(row.get("initial_level_factor")).isEqualTo("1.0");
+        }
+        CommandRun help = CommandRun.of("sweep", "--help");
+        assertThat(help.out()).contains("tank: area, outlet-coefficient, initial-level")
+                .contains("nonlinear plant: the simulation alone");
     }
 
     @Test

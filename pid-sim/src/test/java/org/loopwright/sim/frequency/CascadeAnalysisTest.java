@@ -65,7 +65,7 @@ class CascadeAnalysisTest {
             assertThat(gap).as("phase-margin gap at ratio %f", ratio).isPositive().isLessThan(previousGap);
             previousGap = gap;
 
-            SampledMargins sampled = CascadeAnalysis.outerSampled(OUTER_PLANT, outer(), INNER_PLANT, inner(tau));
+            SampledMargins sampled = CascadeAnalysis.outerSampled(OUTER_PLANT, outer(), INNER_PLANT, inner(tau), 0);
             assertThat(sampled.stable()).isTrue();
             double sampledGap = aloneSampled.margins().gainCrossover().orElseThrow().phaseMarginDegrees()
                     - sampled.margins().gainCrossover().orElseThrow().phaseMarginDegrees();
@@ -85,11 +85,37 @@ class CascadeAnalysisTest {
         PulseTransferFunction loop = LoopAnalysis.discreteController(outerFast, INNER_PERIOD).times(g);
         SampledMargins direct = new SampledMargins(MarginSearch.search(loop,
                 new FrequencyBand(1e-3, Math.PI / INNER_PERIOD, 200, 1.0, true)), LoopAnalysis.closedLoopPoles(loop));
-        SampledMargins state = CascadeAnalysis.outerSampled(OUTER_PLANT, outerFast, INNER_PLANT, inner(0.1));
+        SampledMargins state = CascadeAnalysis.outerSampled(OUTER_PLANT, outerFast, INNER_PLANT, inner(0.1), 0);
         // the polynomials have degree ~45 (40 samples of dead time) and lose digits near z = 1, where the
         // crossover lies (ωh = 0.005): agreement to 10⁻³ degrees is what their evaluation allows
         assertThat(state.margins().gainCrossover().orElseThrow().phaseMarginDegrees())
                 .isCloseTo(direct.margins().gainCrossover().orElseThrow().phaseMarginDegrees(), within(1e-3));
         assertThat(state.largestPoleMagnitude()).isCloseTo(direct.largestPoleMagnitude(), within(1e-4));
+    }
+    /**
+     * The sensor's delay on the outer measurement is in the analysed loop. Inner plant 1/s under P with
+     * Kp2·h = 1 is deadbeat (y2/r2 = 1/z); the outer plant 1/s behind it makes the series 1/s², whose
+     * zero-order-hold equivalent is h²(z + 1)/(2(z − 1)²), so the inner setpoint to the outer measurement
+     * is G(z) = h(z + 1)/(2z(z − 1)) (Åström &amp; Wittenmark, Computer-Controlled Systems, 3rd ed., 1997,
+     * §2.3 table of zero-order-hold equivalents, and §3.2 for the Jury test). Outer P control Kp1 with
+     * b = Kp1·h/2 at the same period and N samples of sensor delay gives the characteristic polynomial
+     * z^(N+2) − z^(N+1) + b·z + b. N = 0: z² + (b − 1)z + b, stable for 0 &lt; b &lt; 1, complex poles of
+     * magnitude √b. N = 1: z³ − z² + b·z + b, whose Jury condition 1 − b² &gt; 2b needs b &lt; √2 − 1.
+     * With b = 0.6 the loop is stable without the delay and unstable with one sample of it.
+     */
+    @Test
+    void sensorDelayOnTheOuterMeasurementIsInTheSampledOuterLoop() {
+        double h = 0.1;
+        TransferFunction integrator = TransferFunction.integrating(1.0, 0.0);
+        ControllerSettings inner = ControllerSettings.builder().gains(IdealGains.pi(1.0 / h, Double.POSITIVE_INFINITY))
+                .samplePeriodSeconds(h).build();
+        ControllerSettings outer = ControllerSettings.builder().gains(IdealGains.pi(2 * 0.6 / h, Double.POSITIVE_INFINITY))
+                .samplePeriodSeconds(h).build();
+        SampledMargins undelayed = CascadeAnalysis.outerSampled(integrator, outer, integrator, inner, 0);
+        assertThat(undelayed.stable()).isTrue();
+        assertThat(undelayed.largestPoleMagnitude()).isCloseTo(Math.sqrt(0.6), within(1e-9));
+        SampledMargins delayed = CascadeAnalysis.outerSampled(integrator, outer, integrator, inner, 1);
+        assertThat(delayed.stable()).isFalse();
+        assertThat(delayed.largestPoleMagnitude()).isGreaterThan(1.0);
     }
 }

@@ -144,7 +144,7 @@ class TraceFileTest {
     void brokenQuotingIsABadFile() {
         assertThatThrownBy(() -> TraceFile.parse("log.csv", "time,setpoint,measurement\n0,\"1,2\n"))
                 .isInstanceOf(InputFileException.class)
-                .hasMessageStartingWith("log.csv: not valid CSV (");
+                .hasMessage("log.csv:2:3: not valid CSV: a quoted cell is not closed before the end of the file");
     }
 
     @Test

@@ -5,10 +5,12 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
 import java.nio.file.Path;
+import java.util.Map;
 
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.Scenario;
@@ -86,11 +88,11 @@ class SweepTest {
         double highest = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < 2_000; i++) {
             PlantDraw draw = sweep.draw(i);
-            assertThat(draw.gainFactor()).isBetween(0.8, 1.2);
-            assertThat(draw.timeConstantFactor()).isEqualTo(1.0);
-            assertThat(draw.deadTimeFactor()).isBetween(0.5, 1.5);
-            lowest = Math.min(lowest, draw.gainFactor());
-            highest = Math.max(highest, draw.gainFactor());
+            assertThat(draw.factor("gain")).isBetween(0.8, 1.2);
+            assertThat(draw.factor("time-constant")).isEqualTo(1.0);
+            assertThat(draw.factor("dead-time")).isBetween(0.5, 1.5);
+            lowest = Math.min(lowest, draw.factor("gain"));
+            highest = Math.max(highest, draw.factor("gain"));
         }
         // uniform on [0.8, 1.2]: 2000 draws come within 0.002 of each end unless P = (1 - 0.005)^2000 ~ 4e-5
         assertThat(lowest).isLessThan(0.802);
@@ -110,8 +112,8 @@ class SweepTest {
         SweepResult result = new Sweep(nominal, Spread.parse("gain=60%,time-constant=50%"), 11L)
                 .run(40, 2, index -> { });
         for (SweepRun run : result.runs()) {
-            double k = run.plant().staticGain();
-            assertThat(k).isCloseTo(run.draw().gainFactor(), within(1e-15));
+            double k = ((TransferFunction) run.plant()).staticGain();
+            assertThat(k).isCloseTo(run.draw().factor("gain"), within(1e-15));
             assertThat(run.metrics().steadyStateError()).as("run %d, K = %s", run.index(), k)
                     .isCloseTo(1.0 / (1.0 + kc * k), within(1e-9));
             assertThat(run.stability()).isEqualTo(LoopStability.STABLE);
@@ -135,7 +137,7 @@ class SweepTest {
         int judged = 0;
         int analyticUnstable = 0;
         for (SweepRun run : result.runs()) {
-            double loopGain = run.plant().staticGain();
+            double loopGain = ((TransferFunction) run.plant()).staticGain();
             if (Math.abs(loopGain - 8.0) < 0.05) {
                 continue;
             }
@@ -156,7 +158,7 @@ class SweepTest {
 
     @Test
     void factorsScaleTheProcessModelsParameters() {
-        PlantDraw draw = new PlantDraw(1.5, 0.8, 1.25);
+        PlantDraw draw = new PlantDraw(Map.of("gain", 1.5, "time-constant", 0.8, "dead-time", 1.25));
         assertClose(draw.apply(TransferFunction.fopdt(2.0, 10.0, 4.0)), TransferFunction.fopdt(3.0, 8.0, 5.0));
         assertClose(draw.apply(TransferFunction.sopdt(2.0, 10.0, 3.0, 1.0)),
                 TransferFunction.sopdt(3.0, 8.0, 2.4, 1.25));
@@ -184,12 +186,13 @@ class SweepTest {
     }
 
     @Test
-    void aNonlinearPlantCannotBeSwept() throws Exception {
-        Scenario tank = shipped("tank.yaml");
-        assertThatThrownBy(() -> new Sweep(tank, Spread.NONE, 1L))
-                .isInstanceOf(IllegalArgumentException.class)
-                .hasMessageStartingWith("a sweep needs a linear plant (its gain, time constants and dead time are"
-                        + " varied): plant=");
+    void aLinearPlantRefusesANonlinearPlantsKey() {
+        Scenario nominal = Scenario.setpointStep(TransferFunction.firstOrder(1.0, 1.0), proportional(1.0, 0.1),
+                1.0, 10.0);
+        assertThatThrownBy(() -> new Sweep(nominal, Spread.parse("inertia=10%"), 1L))
+                .isInstanceOf(InputException.class)
+                .hasMessage("--spread key inertia is not a parameter of plant type transfer-function: use gain,"
+                        + " time-constant or dead-time");
     }
 
     @Test

@@ -1,0 +1,167 @@
+package org.loopwright.sim.sweep;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.nio.file.Path;
+
+import org.hipparchus.complex.Complex;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.loopwright.pid.ControllerSettings;
+import org.loopwright.pid.form.IdealGains;
+import org.loopwright.sim.config.InputException;
+import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.plant.PlantParameters;
+import org.loopwright.sim.plant.PlantType;
+import org.loopwright.sim.plant.TankModel;
+import org.loopwright.sim.plant.ThermalZoneModel;
+import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.scenario.Scenario;
+import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.simulate.Simulation;
+import org.loopwright.sim.simulate.Trajectory;
+
+/** Sweeps of nonlinear plants: spread by their file keys, judged by the simulation alone. */
+class NonlinearSweepTest {
+
+    private static Scenario shipped(String name) throws Exception {
+        return ScenarioFile.read(Path.of(NonlinearSweepTest.class.getResource("/scenarios/" + name).toURI()));
+    }
+
+    /**
+     * Zero spread on every key named gives the nominal plant, and each run is the nominal {@code simulate}
+     * run bit for bit: the same figures and the same measurement at every plotted sample. One shipped
+     * scenario per nonlinear plant type: a motor with stick-slip friction, sensor noise and quantisation; the
+     * tank behind a late sensor; a thermal zone under on-off control.
+     */
+    @ParameterizedTest
+    @CsvSource(delimiter = ';', value = {
+        "gimbal-axis.yaml; static-friction=0%,inertia=0%,coulomb-friction=0%",
+        "tank-level-late-sensor.yaml; area=0%,outlet-coefficient=0%",
+        "bath-thermostat.yaml; heat-capacity=0%,loss-coefficient=0%,max-power=0%"})
+    void zeroSpreadRepeatsTheNominalSimulationExactly(String file, String spread) throws Exception {
+        Scenario nominal = shipped(file);
+        Trajectory expected = Simulation.run(nominal);
+        ResponseMetrics expectedMetrics = ResponseMetrics.of(nominal, expected);
+
+        SweepResult result = new Sweep(nominal, Spread.parse(spread), 5L).run(3, 2, index -> { });
+
+        assertThat(result.stabilityBasis()).isEqualTo(StabilityBasis.SIMULATION);
+        for (SweepRun run : result.runs()) {
+            assertThat(run.draw()).isEqualTo(PlantDraw.NOMINAL);
+            assertThat(run.plant()).isEqualTo(nominal.plant());
+            assertThat(run.metrics()).as("run %d", run.index()).isEqualTo(expectedMetrics);
+            assertThat(run.stability()).isEqualTo(result.nominal().stability());
+            double[] times = run.plotTimes();
+            double[] measured = run.plotMeasurements();
+            int stride = (expected.length() + Sweep.PLOT_POINTS - 1) / Sweep.PLOT_POINTS;
+            for (int i = 0; i < times.length; i++) {
+                int k = Math.min(i * stride, expected.length() - 1);
+                assertThat(times[i]).isEqualTo(expected.time(k));
+                assertThat(measured[i]).isEqualTo(expected.measurement(k));
+            }
+        }
+        assertThat(result.nominal().metrics()).isEqualTo(expectedMetrics);
+    }
+
+    /**
+     * The tank behind a late sensor, its area spread ±40 %: a smaller tank is faster against the same
+     * delay and, past some area, the loop hunts (the pump's limits hold it to a limit cycle). Each run's
+     * verdict, from the simulation alone, is checked against the poles of the loop linearised at the
+     * setpoint level r = 1 m: A·dh/dt = q − k·√h gives K = 2√r/k and T = 2A√r/k (a first-order lag, the
+     * same linearisation as tank-level-scheduled.yaml), with the scenario's PI controller, period and
+     * 10-sample sensor delay. By Lyapunov's indirect method (e.g. Khalil, Nonlinear Systems, 3rd ed.,
+     * Thm 4.7, from memory) a pole outside the unit circle makes the level's equilibrium unstable, so
+     * the run must not settle: it is named oscillating. Poles well inside (below 0.99) make it locally
+     * stable and the run settles. Between 0.99 and 1, a mode that loses less than a tenth of its swing
+     * per cycle, the rule may call it oscillating by design (decay ratio ≥ 0.9).
+     */
+    @Test
+    void aSpreadThatMakesTheLoopHuntIsNamedOscillatingWhereTheLinearisedPolesSaySo() throws Exception {
+        Scenario nominal = shipped("tank-level-late-sensor.yaml");
+        SweepResult result = new Sweep(nominal, Spread.parse("area=40%"), 7L).run(40, 2, index -> { });
+        int oscillating = 0;
+        int stable = 0;
+        for (SweepRun run : result.runs()) {
+            TankModel tank = (TankModel) run.plant();
+            double level = 1.0;
+            double gain = 2.0 * Math.sqrt(level) / tank.outletCoefficient();
+            double timeConstant = 2.0 * tank.areaSquareMetres() * Math.sqrt(level) / tank.outletCoefficient();
+            double pole = largestPoleMagnitude(nominal.withPlant(TransferFunction.fopdt(gain, timeConstant, 0.0)));
+            String why = "area " + tank.areaSquareMetres() + ", linearised pole " + pole;
+            if (pole > 1.0) {
+                assertThat(run.stability()).as(why).isEqualTo(LoopStability.OSCILLATING);
+            } else if (pole < 0.99) {
+                assertThat(run.stability()).as(why).isEqualTo(LoopStability.STABLE);
+            }
+            if (run.stability() == LoopStability.OSCILLATING) {
+                assertThat(run.decayRatio()).as(why).isGreaterThanOrEqualTo(SustainedOscillation.DECAY_RATIO_LIMIT);
+                assertThat(run.settled()).as(why).isFalse();
+                oscillating++;
+            } else {
+                stable++;
+            }
+        }
+        assertThat(result.nominal().stability()).isEqualTo(LoopStability.STABLE);
+        assertThat(oscillating).as("runs that hunt").isBetween(3, 37);
+        assertThat(stable).as("runs that settle").isBetween(3, 37);
+        assertThat(result.unstableShare()).isEqualTo(oscillating / 40.0);
+        assertThat(result.worst().stability()).isEqualTo(LoopStability.OSCILLATING);
+    }
+
+    private static double largestPoleMagnitude(Scenario linear) {
+        double largest = 0.0;
+        for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(linear.sampledLoop().orElseThrow()))) {
+            largest = Math.max(largest, pole.norm());
+        }
+        return largest;
+    }
+
+    @Test
+    void eachRunScalesTheNominalParametersByItsDrawnFactors() throws Exception {
+        Scenario nominal = shipped("gimbal-axis.yaml");
+        Sweep sweep = new Sweep(nominal, Spread.parse("inertia=10%,viscous-friction=50%"), 3L);
+        for (int i = 0; i < 20; i++) {
+            PlantDraw draw = sweep.draw(i);
+            assertThat(draw.factor("inertia")).isBetween(0.9, 1.1);
+            assertThat(draw.factor("viscous-friction")).isBetween(0.5, 1.5);
+            assertThat(draw.factors().keySet()).containsOnly("inertia", "viscous-friction");
+            var drawn = sweep.scenario(i).plant();
+            for (var key : PlantType.DC_MOTOR.spreadKeys()) {
+                assertThat(PlantParameters.value(drawn, key)).as(key.word())
+                        .isEqualTo(PlantParameters.value(nominal.plant(), key) * draw.factor(key.word()));
+            }
+        }
+    }
+
+    @Test
+    void aSpreadWhoseExtremesTheModelRefusesIsNamedBeforeAnyRun() throws Exception {
+        // the gimbal's static friction equals its Coulomb friction: any lower static friction is refused
+        Scenario gimbal = shipped("gimbal-axis.yaml");
+        assertThatThrownBy(() -> new Sweep(gimbal, Spread.parse("static-friction=30%"), 1L))
+                .isInstanceOf(InputException.class)
+                .hasMessage("--spread static-friction=30% can draw a dc-motor the model refuses: static-friction must"
+                        + " be >= coulomb-friction (coulomb-friction=0.05): static-friction=" + 0.05 * 0.7
+                        + ", at static-friction x0.7; narrow the spread or change the nominal values");
+    }
+
+    @Test
+    void aParameterAFactorCannotMoveIsRefused() throws Exception {
+        Scenario gimbal = shipped("gimbal-axis.yaml");
+        assertThatThrownBy(() -> new Sweep(gimbal, Spread.parse("load-torque=10%"), 1L))
+                .isInstanceOf(InputException.class)
+                .hasMessage("--spread load-torque cannot vary on plant type dc-motor: its nominal value is 0.0 and a"
+                        + " spread multiplies it; give the scenario a finite non-zero load-torque");
+        ControllerSettings pi = ControllerSettings.builder().gains(IdealGains.pi(100.0, 600.0))
+                .samplePeriodSeconds(1.0).build();
+        Scenario unlimitedHeater = Scenario.setpointStep(
+                new ThermalZoneModel(21_000, 5, 20, Double.POSITIVE_INFINITY, 1.0), pi, 40.0, 600.0);
+        assertThatThrownBy(() -> new Sweep(unlimitedHeater, Spread.parse("max-power=10%"), 1L))
+                .isInstanceOf(InputException.class)
+                .hasMessage("--spread max-power cannot vary on plant type thermal-zone: its nominal value is Infinity"
+                        + " and a spread multiplies it; give the scenario a finite non-zero max-power");
+    }
+}
