@@ -28,7 +28,7 @@ import org.loopwright.pid.testing.Draws;
  * </ul>
  * A release runs 10⁸ operations:
  * {@code mvn -B -pl pid-core -am test -Dtest=LongRandomRunProperties -Dsurefire.failIfNoSpecifiedTests=false
- * -DskipMutation -Dloopwright.randomOperations=100000000} (about 15 minutes on two cores).
+ * -Dloopwright.randomOperations=100000000} (about 15 minutes on two cores).
  */
 class LongRandomRunProperties {
 

@@ -1,12 +1,16 @@
 package org.loopwright.bench.suite;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
+import java.util.ArrayList;
 import java.util.Collection;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
+import org.loopwright.bench.SweepBenchmark;
+import org.loopwright.bench.SweepWorkload;
 import org.loopwright.sim.timing.TimingResult;
 import org.openjdk.jmh.infra.BenchmarkParams;
 import org.openjdk.jmh.profile.GCProfiler;
@@ -28,12 +32,16 @@ import picocli.CommandLine.Spec;
 /**
  * The short benchmark suite in one command: every JMH benchmark (one fork, 2 × 1 s warm-up,
  * 3 × 1 s measurement, GC profiler), then the loop timing at 1 kHz and 10 kHz for each loop, then
- * the summary. About four minutes on two cores. The JMH runner itself stays available as
+ * the timed command-line runs (a sweep of 10⁴ runs × 10⁴ steps, design with its defaults), then the
+ * summary. About five minutes on two cores. The JMH runner itself stays available as
  * {@code java -cp <jar> org.openjdk.jmh.Main}.
  */
 @Command(name = "loopwright-bench", mixinStandardHelpOptions = true,
         description = "Runs the benchmark suite and writes summary.md and summary.json.")
 public final class BenchmarkSuite implements Callable<Integer> {
+
+    /** The run length of the smoke run's timed sweep command, seconds of the pump. */
+    private static final double SMOKE_RUN_SECONDS = 20.0;
 
     @Spec
     private CommandSpec spec;
@@ -67,7 +75,9 @@ public final class BenchmarkSuite implements Callable<Integer> {
         Machine machine = Machine.now();
         List<JmhFigure> figures = runJmh();
         List<TimingResult> timings = runTiming();
-        SuiteSummary summary = SuiteSummary.of(commandText, smoke ? "smoke" : "full", machine.ended(), figures, timings);
+        List<CommandTiming> commands = runCommands();
+        SuiteSummary summary = SuiteSummary.of(commandText, smoke ? "smoke" : "full", machine.ended(), figures, timings,
+                commands, SweepBenchmark.RUNS + 1);
         Path markdown = SummaryWriter.write(summary, outputDirectory);
         System.out.println(SummaryWriter.markdown(summary));
         System.out.println("written: " + markdown + " and summary.json");
@@ -101,6 +111,39 @@ public final class BenchmarkSuite implements Callable<Integer> {
         Result<?> allocation = run.getSecondaryResults().get("gc.alloc.rate.norm");
         return new JmhFigure(name, primary.getScore(), primary.getScoreError(),
                 allocation == null ? Double.NaN : allocation.getScore());
+    }
+
+    /**
+     * The command-line runs, each in a JVM of its own: the sweep of 10⁴ runs × 10⁴ steps of the booster pump and
+     * design with its defaults on the pump's model (README's design example). A smoke run times a sweep of
+     * 10 short runs only.
+     */
+    private List<CommandTiming> runCommands() throws java.io.IOException, InterruptedException {
+        Path work = Files.createTempDirectory("loopwright-bench-commands");
+        try {
+            double seconds = smoke ? SMOKE_RUN_SECONDS : SweepWorkload.LONG_RUN_SECONDS;
+            String runs = smoke ? "10" : "10000";
+            Path scenario = SweepWorkload.writePump(work, seconds);
+            List<CommandTiming> timings = new ArrayList<>();
+            timings.add(CommandTiming.measure(smoke ? "CLI sweep (smoke: 10 runs of " + SMOKE_RUN_SECONDS + " s)"
+                    : "CLI sweep of 10⁴ runs × 10⁴ steps", CommandTiming.SWEEP_SECONDS, List.of("sweep",
+                            scenario.toString(), "--runs", runs, "--spread", SweepWorkload.SPREAD, "--seed",
+                            String.valueOf(SweepWorkload.SEED), "--no-progress", "--out", work.resolve("sweep").toString()),
+                    work));
+            if (!smoke) {
+                timings.add(CommandTiming.measure("design with its defaults", CommandTiming.DESIGN_SECONDS,
+                        List.of("design", "--process-gain", "0.05", "--time-constant", "2", "--dead-time", "0.4",
+                                "--sample-period", "0.05", "--output-min", "0", "--output-max", "100", "--no-progress",
+                                "--out", work.resolve("design").toString()), work));
+            }
+            return timings;
+        } finally {
+            try (java.util.stream.Stream<Path> files = Files.walk(work)) {
+                for (Path p : files.sorted(java.util.Comparator.reverseOrder()).toList()) {
+                    Files.delete(p);
+                }
+            }
+        }
     }
 
     private List<TimingResult> runTiming() throws InterruptedException {

@@ -17,10 +17,11 @@ import org.loopwright.sim.timing.TimingResult;
  * @param machine    where it ran
  * @param benchmarks JMH figures beside their baselines
  * @param timing     loop timings beside the busy-wait baseline at the same rate
+ * @param commands   command-line runs timed from JVM start to exit
  * @param targets    the design targets and whether this run met them
  */
 public record SuiteSummary(String command, String mode, Machine machine, List<Comparison> benchmarks,
-        List<TimingComparison> timing, List<TargetCheck> targets) {
+        List<TimingComparison> timing, List<CommandTiming> commands, List<TargetCheck> targets) {
 
     /** The limit every update is compared with. */
     static final String BARE = "UpdateBenchmark.bareRecurrence";
@@ -28,6 +29,20 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
     static final String FULL = "UpdateBenchmark.fullFeatured";
     static final String BANK = "BankBenchmark.tick";
     static final String SIMULATION_STEP = "SimulationStepBenchmark.plantAndController";
+    /** The sweep's own plant + controller step, the baseline of its marginal cost per step. */
+    static final String SWEEP_STEP = "SweepBenchmark.plantAndController";
+    /** The sweep benchmark at a run length and thread count: {@code sweep(10000, 1)}. */
+    static String sweep(int steps, int threads) {
+        return "SweepBenchmark.sweep[steps=" + steps + ",threads=" + threads + "]";
+    }
+    /** The two run lengths of the sweep benchmark. */
+    static final int SHORT_RUN_STEPS = 1_000;
+    static final int LONG_RUN_STEPS = 10_000;
+    /** Target: a sweep's marginal cost per step within this factor of its plant + controller step. */
+    static final double SWEEP_STEP_LIMIT = 2.0;
+    /** Target: two threads at least this much faster than one. */
+    static final double TWO_THREAD_SPEED_UP = 1.8;
+
     /** The loop monitor's sample; its target is checked when the run has it. */
     static final String MONITOR_SAMPLE = "MonitorBenchmark.monitorSample";
 
@@ -44,13 +59,13 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
      * @throws IllegalArgumentException when a baseline benchmark is missing from the figures
      */
     public static SuiteSummary of(String command, String mode, Machine machine, List<JmhFigure> figures,
-            List<TimingResult> timings) {
+            List<TimingResult> timings, List<CommandTiming> commands, int sweepRunsPerOp) {
         Map<String, JmhFigure> byName = figures.stream().collect(Collectors.toMap(JmhFigure::name, Function.identity()));
         JmhFigure bare = required(byName, BARE);
         JmhFigure full = required(byName, FULL);
         List<Comparison> comparisons = new ArrayList<>();
         for (JmhFigure f : figures) {
-            JmhFigure baseline = baselineOf(f, bare, full);
+            JmhFigure baseline = baselineOf(f, bare, full, byName);
             comparisons.add(new Comparison(f, baseline, f.nsPerOp() / baseline.nsPerOp()));
         }
         List<TimingComparison> timingComparisons = compareTimings(timings);
@@ -62,7 +77,16 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
         if (byName.containsKey(MONITOR_SAMPLE)) {
             targets.add(monitorSample(byName.get(MONITOR_SAMPLE), full));
         }
-        return new SuiteSummary(command, mode, machine, comparisons, timingComparisons, targets);
+        if (byName.containsKey(SWEEP_STEP)) {
+            JmhFigure longOne = required(byName, sweep(LONG_RUN_STEPS, 1));
+            targets.add(sweepMarginalStep(required(byName, sweep(SHORT_RUN_STEPS, 1)), longOne,
+                    byName.get(SWEEP_STEP), sweepRunsPerOp));
+            targets.add(sweepSpeedUp(longOne, required(byName, sweep(LONG_RUN_STEPS, 2))));
+        }
+        for (CommandTiming c : commands) {
+            targets.add(commandTarget(c));
+        }
+        return new SuiteSummary(command, mode, machine, comparisons, timingComparisons, List.copyOf(commands), targets);
     }
 
     /**
@@ -93,13 +117,18 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
     }
 
     /** The bare recurrence for every controller update, the full-featured update for what builds on it. */
-    private static JmhFigure baselineOf(JmhFigure f, JmhFigure bare, JmhFigure full) {
+    private static JmhFigure baselineOf(JmhFigure f, JmhFigure bare, JmhFigure full, Map<String, JmhFigure> byName) {
         String name = f.name();
         if (name.equals(BARE)) {
             return bare;
         }
+        if (name.startsWith("SweepBenchmark.sweep")) {
+            // each sweep beside the same sweep on one thread; the figures are read in the targets
+            return byName.getOrDefault(name.replaceFirst("threads=\\d+", "threads=1"), f);
+        }
         if (name.startsWith("UpdateBenchmark.variablePeriod") || name.startsWith("BankBenchmark")
-                || name.startsWith("SimulationStepBenchmark") || name.startsWith("MonitorBenchmark")) {
+                || name.startsWith("SimulationStepBenchmark") || name.startsWith("MonitorBenchmark")
+                || name.equals(SWEEP_STEP)) {
             return full;
         }
         return bare;
@@ -152,6 +181,34 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
         return new TargetCheck("simulation step (FOPDT plant + controller) within " + STEP_OVER_UPDATE_LIMIT
                 + "× of the update", String.format("%.2f ns vs %.2f ns: %.2f×", step.nsPerOp(), full.nsPerOp(), r),
                 r <= STEP_OVER_UPDATE_LIMIT);
+    }
+
+    /**
+     * The marginal cost of a step: the extra time of the long runs over the short ones, over the extra
+     * steps ({@code runs} runs a sweep, each {@value #LONG_RUN_STEPS} − {@value #SHORT_RUN_STEPS} steps longer),
+     * so what a run costs whatever its length (drawing, poles, the pool) cancels out.
+     */
+    private static TargetCheck sweepMarginalStep(JmhFigure shortRuns, JmhFigure longRuns, JmhFigure step, int runs) {
+        double perStep = (longRuns.nsPerOp() - shortRuns.nsPerOp()) / ((double) runs * (LONG_RUN_STEPS - SHORT_RUN_STEPS));
+        double r = perStep / step.nsPerOp();
+        return new TargetCheck("sweep: marginal cost per step on one thread within " + SWEEP_STEP_LIMIT
+                + "× of the plant + controller step", String.format(
+                        "%.2f ns per step ((%.0f − %.0f ns) / (%d runs × %d steps)) vs %.2f ns: %.2f×", perStep,
+                        longRuns.nsPerOp(), shortRuns.nsPerOp(), runs, LONG_RUN_STEPS - SHORT_RUN_STEPS,
+                        step.nsPerOp(), r), r <= SWEEP_STEP_LIMIT);
+    }
+
+    private static TargetCheck sweepSpeedUp(JmhFigure one, JmhFigure two) {
+        double speedUp = one.nsPerOp() / two.nsPerOp();
+        return new TargetCheck("sweep: 2 threads at least " + TWO_THREAD_SPEED_UP + "× as fast as 1",
+                String.format("%.2f ms on 1 thread, %.2f ms on 2: %.2f×", one.nsPerOp() / 1e6, two.nsPerOp() / 1e6,
+                        speedUp), speedUp >= TWO_THREAD_SPEED_UP);
+    }
+
+    private static TargetCheck commandTarget(CommandTiming c) {
+        return new TargetCheck(c.what() + " under " + c.limitSeconds() + " s wall time, JVM start included",
+                String.format("%.2f s (load average %.2f before; exit %d): %s", c.wallSeconds(), c.loadAverageBefore(),
+                        c.exitCode(), c.command()), c.exitCode() == 0 && c.wallSeconds() < c.limitSeconds());
     }
 
     private static double finiteOrZero(double value) {

@@ -64,6 +64,13 @@ public final class SummaryWriter {
         md.append('\n');
 
         md.append("## Loop timing\n\n").append(timingTable(s.timing()));
+
+        md.append("\n## Command-line runs\n\nEach in a JVM of its own, from process start to exit.\n\n")
+                .append("| Command | Wall s | Exit | Load average before |\n|---|---:|---:|---:|\n");
+        for (CommandTiming c : s.commands()) {
+            md.append(f("| `%s` | %.2f | %d | %.2f |%n", c.command(), c.wallSeconds(), c.exitCode(),
+                    c.loadAverageBefore()));
+        }
         return md.toString();
     }
 

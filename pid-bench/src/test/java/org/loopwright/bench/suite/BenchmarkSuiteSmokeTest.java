@@ -24,9 +24,9 @@ class BenchmarkSuiteSmokeTest {
 
     /**
      * 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures,
-     * 2 replay figures.
+     * 2 replay figures, 2 × 2 sweeps and the sweep's step.
      */
-    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2;
+    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2 + 4 + 1;
 
     @Test
     void everyBenchmarkAndLoopProducesAFiniteFigure(@TempDir Path out) throws Exception {
@@ -58,7 +58,11 @@ class BenchmarkSuiteSmokeTest {
                     .isGreaterThanOrEqualTo(result.get("p50Nanos").asLong());
             assertThat(result.get("cpuFraction").asDouble()).as(result.toString()).isPositive();
         }
-        assertThat(summary.get("targets")).hasSize(5); // four design targets and the loop monitor's
-        assertThat(Files.readString(out.resolve("summary.md"))).contains("Smoke run", "## Targets", "busy-wait baseline", "runner, park-then-spin");
+        // four design targets, the loop monitor's, the sweep's marginal step and speed-up, the timed sweep command
+        assertThat(summary.get("targets")).hasSize(8);
+        assertThat(summary.get("commands")).hasSize(1);
+        assertThat(summary.get("commands").get(0).get("exitCode").asInt()).isZero();
+        assertThat(Files.readString(out.resolve("summary.md"))).contains("Smoke run", "## Targets", "busy-wait baseline", "runner, park-then-spin",
+                "## Command-line runs");
     }
 }

@@ -22,7 +22,7 @@ class SuiteSummaryTest {
 
     @Test
     void everyFigureStandsBesideItsBaseline() {
-        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(12.0, 11.0, 20.0, 0.0), List.of());
+        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(12.0, 11.0, 20.0, 0.0), List.of(), List.of(), 48);
         assertThat(s.benchmarks()).extracting(c -> c.figure().name() + "/" + c.baseline().name() + "=" + c.ratio())
                 .containsExactly(
                         SuiteSummary.BARE + "/" + SuiteSummary.BARE + "=1.0",
@@ -35,22 +35,47 @@ class SuiteSummaryTest {
 
     @Test
     void missedTargetsAreReportedAsMissed() {
-        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(14.0, 16.0, 30.0, 24.0), List.of());
+        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(14.0, 16.0, 30.0, 24.0), List.of(), List.of(), 48);
         assertThat(s.targets()).noneMatch(TargetCheck::met);
         assertThat(SummaryWriter.markdown(s)).contains("**NO: target missed**");
     }
 
     @Test
     void aBankSlowerByLessThanTheErrorStillMeetsItsTarget() {
-        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(12.0, 12.8, 20.0, 0.0), List.of());
+        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(12.0, 12.8, 20.0, 0.0), List.of(), List.of(), 48);
         assertThat(s.targets().get(2).met()).isTrue();
         assertThat(s.targets().get(2).measured()).contains("less than the measurement error");
     }
 
     @Test
     void aMissingBaselineIsNamed() {
-        assertThatThrownBy(() -> SuiteSummary.of("cmd", "full", MACHINE, List.of(), List.of()))
+        assertThatThrownBy(() -> SuiteSummary.of("cmd", "full", MACHINE, List.of(), List.of(), List.of(), 48))
                 .isInstanceOf(IllegalArgumentException.class)
                 .hasMessage("benchmark UpdateBenchmark.bareRecurrence is missing from the results");
+    }
+
+    @Test
+    void sweepTargetsReadTheMarginalStepAndTheSpeedUp() {
+        List<JmhFigure> withSweep = new java.util.ArrayList<>(figures(12.0, 11.0, 20.0, 0.0));
+        // 48 runs 9,000 steps longer cost 48 × 9,000 × 30 ns more: 30 ns per step against a 20 ns step, 1.5×
+        withSweep.add(new JmhFigure(SuiteSummary.sweep(1_000, 1), 1e6, 1e3, 0.0));
+        withSweep.add(new JmhFigure(SuiteSummary.sweep(10_000, 1), 1e6 + 48 * 9_000 * 30.0, 1e3, 0.0));
+        withSweep.add(new JmhFigure(SuiteSummary.sweep(10_000, 2), (1e6 + 48 * 9_000 * 30.0) / 1.7, 1e3, 0.0));
+        withSweep.add(new JmhFigure(SuiteSummary.SWEEP_STEP, 20.0, 0.5, 0.0));
+        CommandTiming sweep = new CommandTiming("CLI sweep", 5.0, "sweep pump.yaml --runs 10000", 4.2, 0, 1.5);
+        CommandTiming design = new CommandTiming("design with its defaults", 10.0, "design ...", 12.5, 0, 1.5);
+        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, withSweep, List.of(), List.of(sweep, design), 48);
+        List<TargetCheck> targets = s.targets();
+        assertThat(targets).hasSize(8);
+        assertThat(targets.get(4).measured()).startsWith("30.00 ns per step");
+        assertThat(targets.get(4).met()).isTrue();
+        assertThat(targets.get(5).measured()).endsWith("1.70×");
+        assertThat(targets.get(5).met()).isFalse();
+        assertThat(targets.get(6).met()).isTrue();
+        assertThat(targets.get(7).target()).isEqualTo("design with its defaults under 10.0 s wall time, JVM start included");
+        assertThat(targets.get(7).met()).isFalse();
+        assertThat(s.benchmarks()).filteredOn(c -> c.figure().name().equals(SuiteSummary.sweep(10_000, 2)))
+                .singleElement().extracting(Comparison::baseline).extracting(JmhFigure::name)
+                .isEqualTo(SuiteSummary.sweep(10_000, 1));
     }
 }

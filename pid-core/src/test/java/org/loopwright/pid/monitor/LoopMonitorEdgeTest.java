@@ -167,6 +167,12 @@ class LoopMonitorEdgeTest {
     }
 
     @Test
+    void conditionsHaveLowerCaseHyphenatedLabels() {
+        assertThat(LoopCondition.FROZEN_MEASUREMENT.label()).isEqualTo("frozen-measurement");
+        assertThat(LoopCondition.NOISE.label()).isEqualTo("noise");
+    }
+
+    @Test
     void aFrozenMeasurementNeedsTheOutputToMoveByMoreThanTheThreshold() {
         // output moving by exactly the threshold (1) is not enough; by 1.5 it is (common practice:
         // a frozen sensor is told from a quiet loop by an output that works while nothing changes)

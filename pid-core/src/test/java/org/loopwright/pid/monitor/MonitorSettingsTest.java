@@ -75,6 +75,40 @@ class MonitorSettingsTest {
     }
 
     @Test
+    void eachLimitItselfIsAcceptedAndEveryValueKept() {
+        // the edges each rule allows: a time scale of exactly two periods, a supervision time of one,
+        // warn equal to alarm, an idle alarm just under 1 and a warn just above −1, shares of 1,
+        // two frozen samples, a zero quantisation step
+        MonitorSettings s = MonitorSettings.builder().samplePeriodSeconds(0.5).timeScaleSeconds(1.0)
+                .acceptableAmplitude(0.25).outputRange(-50.0, 50.0).supervisionTimeSeconds(0.5)
+                .oscillationEvents(3.0, 3.0).idleIndex(Math.nextUp(-1.0), Math.nextDown(1.0)).saturationShares(1.0, 1.0)
+                .frozenSamples(2).quantisationStep(0.0).build();
+        assertThat(s.samplePeriodSeconds()).isEqualTo(0.5);
+        assertThat(s.timeScaleSeconds()).isEqualTo(1.0);
+        assertThat(s.acceptableAmplitude()).isEqualTo(0.25);
+        assertThat(s.outputMin()).isEqualTo(-50.0);
+        assertThat(s.outputMax()).isEqualTo(50.0);
+        assertThat(s.supervisionTimeSeconds()).isEqualTo(0.5);
+        assertThat(s.oscillationWarnEvents()).isEqualTo(3.0);
+        assertThat(s.oscillationAlarmEvents()).isEqualTo(3.0);
+        assertThat(s.idleIndexWarn()).isEqualTo(Math.nextUp(-1.0));
+        assertThat(s.idleIndexAlarm()).isEqualTo(Math.nextDown(1.0));
+        assertThat(s.saturationWarnShare()).isEqualTo(1.0);
+        assertThat(s.saturationAlarmShare()).isEqualTo(1.0);
+        assertThat(s.frozenSamples()).isEqualTo(2);
+        assertThat(s.quantisationStep()).isZero();
+        // the default move is 1 % of the span, 100 here
+        assertThat(s.frozenOutputMove()).isEqualTo(1.0);
+        assertThat(valid().idleIndex(0.3, 0.3).build().idleIndexWarn()).isEqualTo(0.3);
+        assertThatThrownBy(() -> valid().idleIndex(-1.0, -1.0).build()).isInstanceOf(InvalidSettingException.class)
+                .hasMessage("idleIndexAlarm must be > -1 and < 1: idleIndexAlarm=-1.0");
+        assertThatThrownBy(() -> valid().idleIndex(-1.0, 0.4).build()).isInstanceOf(InvalidSettingException.class)
+                .hasMessage("idleIndexWarn must be > -1 and <= idleIndexAlarm (0.4): idleIndexWarn=-1.0");
+        assertThatThrownBy(() -> valid().saturationShares(0.0, 0.5).build()).isInstanceOf(InvalidSettingException.class)
+                .hasMessage("saturationWarnShare must be > 0 and <= 1: saturationWarnShare=0.0");
+    }
+
+    @Test
     void defaultsFollowTheDocumentedRules() {
         MonitorSettings s = valid().build();
         // Hägglund 1995 (from memory): Tsup = 50 T, IAE limit 2a/ω = a·T/π, 10 disturbances mean oscillation

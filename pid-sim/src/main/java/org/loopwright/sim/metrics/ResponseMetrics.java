@@ -43,6 +43,9 @@ import org.loopwright.sim.simulate.Trajectory;
  *     share of samples whose output was limited by the controller's range or the actuator.</li>
  * </ul>
  *
+ * <p>Gathered in one pass by {@link ResponseAccumulator}, for a whole trajectory as for a sweep run that
+ * keeps no trajectory: one definition of each figure.
+ *
  * @param riseTimeSeconds     10–90 % rise time
  * @param settlingTimeSeconds 2 % settling time
  * @param overshootPercent    overshoot in percent of the step
@@ -94,85 +97,13 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
      * @param endSeconds   where the step figures stop looking (the integrals run to the end of the run)
      */
     public static ResponseMetrics of(Trajectory trajectory, double startSeconds, double endSeconds) {
-        int first = firstAtOrAfter(trajectory, startSeconds);
-        int n = trajectory.length();
-        if (trajectory.diverged() || first >= n) {
-            return new ResponseMetrics(Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-                    Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-                    trajectory.diverged() ? ResponseState.DIVERGED : ResponseState.NO_STEP);
+        ResponseAccumulator accumulator = new ResponseAccumulator(new ResponseWindow(startSeconds, endSeconds),
+                trajectory.length());
+        for (int k = 0; k < trajectory.length(); k++) {
+            accumulator.sample(trajectory.time(k), trajectory.setpoint(k), trajectory.process(k), trajectory.output(k),
+                    trajectory.saturated(k));
         }
-        int last = first;
-        while (last + 1 < n && trajectory.time(last + 1) < endSeconds) {
-            last++;
-        }
-        double t0 = trajectory.time(first);
-        double y0 = trajectory.process(first);
-        double target = trajectory.setpoint(last);
-        double yEnd = trajectory.process(last);
-        double step = target - y0;
-        double scale = Math.max(Math.abs(y0), Math.abs(target));
-        int tail = Math.min(last - first + 1, Math.max(2, (last - first + 1) * FINAL_SHARE_PERCENT / 100));
-
-        ResponseState state = ResponseState.NO_STEP;
-        double rise = Double.NaN;
-        double settling = Double.NaN;
-        double overshoot = Double.NaN;
-        double peakTime = Double.NaN;
-        double steadyStateError = target - yEnd;
-        if (Math.abs(step) > 1e-9 * Math.max(1.0, scale)) {
-            double band = Math.abs(step) * SETTLING_BAND;
-            int finalStart = last - tail + 1;
-            double slope = slope(trajectory, finalStart, last);
-            double meanOffset = mean(trajectory, finalStart, last) - target;
-            settling = settlingTime(trajectory, first, finalStart, last, target, band);
-            if (Double.isNaN(settling) || slope * meanOffset > 0.0) {
-                double windowSeconds = trajectory.time(last) - t0;
-                boolean resting = Math.abs(slope) * windowSeconds <= band;
-                settling = resting ? settlingTime(trajectory, first, finalStart, last, yEnd, band) : Double.NaN;
-            }
-            state = Double.isNaN(settling) ? ResponseState.NOT_SETTLED : ResponseState.SETTLED;
-        }
-        if (state == ResponseState.SETTLED) {
-            settling -= t0;
-            double moved = yEnd - y0;
-            if (Math.abs(moved) > 1e-9 * Math.max(1.0, scale)) {
-                rise = crossing(trajectory, first, last, y0 + 0.9 * moved, moved)
-                        - crossing(trajectory, first, last, y0 + 0.1 * moved, moved);
-            }
-            double sign = Math.signum(step);
-            double peak = 0.0;
-            int peakAt = -1;
-            for (int k = first; k <= last; k++) {
-                double beyond = sign * (trajectory.process(k) - target);
-                if (beyond > peak) {
-                    peak = beyond;
-                    peakAt = k;
-                }
-            }
-            overshoot = 100.0 * peak / Math.abs(step);
-            peakTime = peakAt < 0 ? Double.NaN : trajectory.time(peakAt) - t0;
-        } else if (state == ResponseState.NOT_SETTLED) {
-            steadyStateError = Double.NaN;
-        }
-
-        double iae = 0.0;
-        double ise = 0.0;
-        double itae = 0.0;
-        for (int k = first; k + 1 < n; k++) {
-            double dt = trajectory.time(k + 1) - trajectory.time(k);
-            double e = trajectory.setpoint(k) - trajectory.process(k);
-            iae += Math.abs(e) * dt;
-            ise += e * e * dt;
-            itae += (trajectory.time(k) - t0) * Math.abs(e) * dt;
-        }
-        double variation = 0.0;
-        int saturated = 0;
-        for (int k = first; k < n; k++) {
-            variation += Math.abs(trajectory.output(k) - (k == 0 ? 0.0 : trajectory.output(k - 1)));
-            saturated += trajectory.saturated(k) ? 1 : 0;
-        }
-        return new ResponseMetrics(rise, settling, overshoot, peakTime, steadyStateError, iae, ise, itae, variation,
-                (double) saturated / (n - first), state);
+        return accumulator.finish(trajectory.diverged());
     }
 
     /**
@@ -203,69 +134,5 @@ public record ResponseMetrics(double riseTimeSeconds, double settlingTimeSeconds
             k++;
         }
         return k;
-    }
-
-    /** The first time the output reaches {@code level}, moving in the direction of {@code step}. */
-    private static double crossing(Trajectory trajectory, int first, int last, double level, double step) {
-        double sign = Math.signum(step);
-        for (int k = first; k <= last; k++) {
-            double here = sign * (trajectory.process(k) - level);
-            if (here >= 0.0) {
-                if (k == first) {
-                    return trajectory.time(k);
-                }
-                double before = sign * (trajectory.process(k - 1) - level);
-                double fraction = -before / (here - before);
-                return trajectory.time(k - 1) + fraction * (trajectory.time(k) - trajectory.time(k - 1));
-            }
-        }
-        return Double.NaN;
-    }
-
-    /** The mean process output over samples {@code from} to {@code to}. */
-    private static double mean(Trajectory trajectory, int from, int to) {
-        double sum = 0.0;
-        for (int k = from; k <= to; k++) {
-            sum += trajectory.process(k);
-        }
-        return sum / (to - from + 1);
-    }
-
-    /** The least-squares slope of the process output against time over samples {@code from} to {@code to}. */
-    private static double slope(Trajectory trajectory, int from, int to) {
-        double origin = trajectory.time(from);
-        int n = to - from + 1;
-        double meanT = 0.0;
-        double meanY = 0.0;
-        for (int k = from; k <= to; k++) {
-            meanT += (trajectory.time(k) - origin) / n;
-            meanY += trajectory.process(k) / n;
-        }
-        double sty = 0.0;
-        double stt = 0.0;
-        for (int k = from; k <= to; k++) {
-            double dt = trajectory.time(k) - origin - meanT;
-            sty += dt * (trajectory.process(k) - meanY);
-            stt += dt * dt;
-        }
-        return stt > 0.0 ? sty / stt : 0.0;
-    }
-
-    /**
-     * The first sample instant after which the output stays within the band; NaN when it is still
-     * outside during the final stretch (from {@code finalStart}).
-     */
-    private static double settlingTime(Trajectory trajectory, int first, int finalStart, int last, double target,
-            double band) {
-        int lastOutside = -1;
-        for (int k = first; k <= last; k++) {
-            if (Math.abs(trajectory.process(k) - target) > band) {
-                lastOutside = k;
-            }
-        }
-        if (lastOutside >= finalStart) {
-            return Double.NaN;
-        }
-        return lastOutside < 0 ? trajectory.time(first) : trajectory.time(lastOutside + 1);
     }
 }

@@ -38,7 +38,8 @@ import org.loopwright.sim.scenario.SetpointChange;
  *
  * <p>A run whose process output diverges (see {@link Divergence}) stops at that sample.
  *
- * <p>{@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
+ * <p>Each sample goes to a {@link SampleRecorder}: the loop's own {@link Trajectory}, or the caller's.
+ * {@link #step()} allocates nothing (the trajectory is sized at construction; a linear plant has
  * cached its discretisation after the first samples). Usable from a benchmark:
  * {@code if (!loop.step()) loop.rewind();}. A sweep runs many plants on one loop with
  * {@link #rewind(PlantModel)}.
@@ -54,6 +55,8 @@ public final class ClosedLoop {
     private final FeedbackLaw law;
     private final Actuator actuator;
     private final Sensor sensor;
+    private final SampleRecorder recorder;
+    // the recorder when it is the loop's own trajectory, which also takes the cascade and split-range columns
     private final Trajectory trajectory;
     private final double periodSeconds;
     private final int samples;
@@ -77,8 +80,17 @@ public final class ClosedLoop {
     private double rampTo;
     private double rampSeconds;
 
-    /** A loop at rest, at sample 0, for the scenario. */
+    /** A loop at rest, at sample 0, for the scenario, recording into a {@link Trajectory} of its own. */
     public ClosedLoop(Scenario scenario) {
+        this(scenario, null);
+    }
+
+    /**
+     * A loop at rest, at sample 0, for the scenario, handing each sample to {@code recorder} and keeping
+     * no trajectory ({@link #run()} and {@link #trajectory()} are then not available); a null recorder
+     * means a trajectory of the loop's own, as {@link #ClosedLoop(Scenario)}.
+     */
+    public ClosedLoop(Scenario scenario, SampleRecorder recorder) {
         this.scenario = scenario;
         this.series = scenario.inner().map(i -> new SeriesPlant(i.plant().newPlant(), scenario.plant().newPlant()))
                 .orElse(null);
@@ -91,7 +103,8 @@ public final class ClosedLoop {
         this.sensor = new Sensor(scenario.sensor(), scenario.seed());
         this.periodSeconds = scenario.samplePeriodSeconds();
         this.samples = scenario.sampleCount();
-        this.trajectory = new Trajectory(samples, series != null, split != null);
+        this.trajectory = recorder == null ? new Trajectory(samples, series != null, split != null) : null;
+        this.recorder = recorder == null ? trajectory : recorder;
         int changes = scenario.setpoint().size();
         changeAt = new double[changes];
         changeValue = new double[changes];
@@ -129,7 +142,7 @@ public final class ClosedLoop {
         actuator.reset();
         double rest = plant.output();
         sensor.reset(rest);
-        trajectory.clear();
+        recorder.clear();
         double scale = Math.abs(rest);
         for (double value : changeValue) {
             scale = Math.max(scale, Math.abs(value));
@@ -205,7 +218,7 @@ public final class ClosedLoop {
         }
         double process = plant.output();
         if (Divergence.beyond(process, divergenceBound)) {
-            trajectory.markDiverged(instant);
+            recorder.markDiverged(instant);
             k = samples;
             return false;
         }
@@ -215,11 +228,11 @@ public final class ClosedLoop {
         double u = law.update(r, y, innerMeasurement, load, instant);
         delivered = actuator.deliver(u, periodSeconds);
         law.delivered(delivered);
-        trajectory.record(instant, r, y, u, load, process, delivered, law.atLimit() || actuator.limited());
-        if (series != null) {
+        recorder.record(instant, r, y, u, load, process, delivered, law.atLimit() || actuator.limited());
+        if (series != null && trajectory != null) {
             trajectory.recordInner(law.innerSetpoint(), innerMeasurement);
         }
-        if (split != null) {
+        if (split != null && trajectory != null) {
             trajectory.recordSplit(split.first(delivered), split.second(delivered));
         }
         previousInstant = instant;
@@ -251,16 +264,32 @@ public final class ClosedLoop {
         return rampFrom + (rampTo - rampFrom) * (t - rampStart) / rampSeconds;
     }
 
-    /** Runs the remaining samples and returns the trajectory. */
+    /**
+     * Runs the remaining samples and returns the trajectory.
+     *
+     * @throws IllegalStateException for a loop that records into a recorder of the caller's
+     */
     public Trajectory run() {
-        while (step()) {
-            // every sample recorded into the trajectory
-        }
-        return trajectory;
+        runToEnd();
+        return trajectory();
     }
 
-    /** The samples recorded so far. */
+    /** Runs the remaining samples, each handed to the recorder. */
+    public void runToEnd() {
+        while (step()) {
+            // every sample handed to the recorder
+        }
+    }
+
+    /**
+     * The samples recorded so far.
+     *
+     * @throws IllegalStateException for a loop that records into a recorder of the caller's
+     */
     public Trajectory trajectory() {
+        if (trajectory == null) {
+            throw new IllegalStateException("this loop keeps no trajectory: it records into " + recorder);
+        }
         return trajectory;
     }
 

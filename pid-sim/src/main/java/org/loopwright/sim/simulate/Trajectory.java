@@ -12,7 +12,7 @@ import java.util.Arrays;
  * <p>Filled by {@link ClosedLoop} while it runs; after the run it is only read. Not thread-safe
  * while it is being filled.
  */
-public final class Trajectory {
+public final class Trajectory implements SampleRecorder {
 
     private final double[] time;
     private final double[] setpoint;
@@ -86,7 +86,9 @@ public final class Trajectory {
         return secondActuator[k];
     }
 
-    void record(double t, double r, double y, double u, double d, double trueOutput, double input, boolean limited) {
+    @Override
+    public void record(double t, double r, double y, double u, double d, double trueOutput, double input,
+            boolean limited) {
         int k = length++;
         time[k] = t;
         setpoint[k] = r;
@@ -98,12 +100,14 @@ public final class Trajectory {
         saturated[k] = limited;
     }
 
-    void clear() {
+    @Override
+    public void clear() {
         length = 0;
         divergedAtSeconds = Double.NaN;
     }
 
-    void markDiverged(double instant) {
+    @Override
+    public void markDiverged(double instant) {
         divergedAtSeconds = instant;
     }
 

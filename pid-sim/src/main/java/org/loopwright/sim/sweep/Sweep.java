@@ -20,15 +20,12 @@ import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
-import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantParameters;
 import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.scenario.InnerLoop;
 import org.loopwright.sim.scenario.Scenario;
-import org.loopwright.sim.simulate.ClosedLoop;
-import org.loopwright.sim.simulate.Trajectory;
 
 /**
  * A parameter sweep: runs the scenario's closed loop on many plants drawn around its nominal
@@ -150,40 +147,57 @@ public final class Sweep {
         return StabilityBasis.of(scenario);
     }
 
+    /** A runner for one thread: its own loop, rewound onto each run's plant. */
+    public SweepRunner runner() {
+        return new SweepRunner(this, scenario);
+    }
+
+    /** The nominal scenario. */
+    Scenario scenario() {
+        return scenario;
+    }
+
+    /** The nominal plant with a draw's factors applied. */
+    PlantModel plant(PlantDraw draw) {
+        return draw.apply(nominalPlant);
+    }
+
     /**
-     * Runs {@code runs} simulations on {@code threads} threads. Each thread builds one closed loop and
-     * rewinds it onto the next run's plant ({@link ClosedLoop#rewind(PlantModel)}), taking run indices
-     * one at a time from a shared counter, so a slow run does not hold up a fixed share of the work;
-     * each result goes to its index's slot, whichever thread ran it.
+     * Runs {@code runs} simulations and the nominal one on {@code threads} threads. Each thread has a
+     * {@link SweepRunner}, one closed loop rewound onto each run's plant, and takes run indices (the nominal
+     * run first) one at a time from a shared counter, so a slow run does not hold up a fixed share of the
+     * work; each result goes to its index's slot, whichever thread ran it.
      *
      * @param runs          how many plants to draw, at least 1
      * @param threads       the pool's size, at least 1
-     * @param onRunFinished told the index of each run as it finishes (from the pool's threads)
+     * @param onRunFinished told the index of each drawn run as it finishes (from the pool's threads)
      */
     public SweepResult run(int runs, int threads, IntConsumer onRunFinished) {
         if (runs < 1 || threads < 1) {
             throw new IllegalArgumentException("runs and threads must be >= 1: runs=" + runs + ", threads=" + threads);
         }
-        int workers = Math.min(threads, runs);
+        int workers = Math.min(threads, runs + 1);
         ExecutorService pool = Executors.newFixedThreadPool(workers);
         try {
-            SweepRun[] results = new SweepRun[runs];
-            AtomicInteger next = new AtomicInteger();
+            // slot 0 holds the nominal run (index -1), slot i + 1 run i
+            SweepRun[] results = new SweepRun[runs + 1];
+            AtomicInteger next = new AtomicInteger(NOMINAL_INDEX);
             List<Future<?>> futures = new ArrayList<>(workers);
             for (int w = 0; w < workers; w++) {
                 futures.add(pool.submit(() -> {
-                    ClosedLoop loop = new ClosedLoop(scenario);
+                    SweepRunner runner = runner();
                     for (int index = next.getAndIncrement(); index < runs; index = next.getAndIncrement()) {
-                        results[index] = run(loop, index, draw(index));
-                        onRunFinished.accept(index);
+                        results[index + 1] = runner.run(index);
+                        if (index != NOMINAL_INDEX) {
+                            onRunFinished.accept(index);
+                        }
                     }
                 }));
             }
-            SweepRun nominal = run(new ClosedLoop(scenario), NOMINAL_INDEX, PlantDraw.NOMINAL);
             for (Future<?> future : futures) {
                 future.get();
             }
-            return new SweepResult(scenario, spread, seed, nominal, List.of(results));
+            return new SweepResult(scenario, spread, seed, results[0], List.of(results).subList(1, runs + 1));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("sweep interrupted", e);
@@ -197,52 +211,12 @@ public final class Sweep {
         }
     }
 
-    /** One run on a thread's own loop, rewound onto the drawn plant. */
-    private SweepRun run(ClosedLoop loop, int index, PlantDraw draw) {
-        PlantModel plant = draw.apply(nominalPlant);
-        Scenario drawn = scenario.withPlant(plant);
-        loop.rewind(plant);
-        Trajectory trajectory = loop.run();
-        ResponseMetrics metrics = ResponseMetrics.of(drawn, trajectory);
-        double poleMagnitude = Double.NaN;
-        double decayRatio = Double.NaN;
-        LoopStability stability;
-        if (StabilityBasis.of(drawn) == StabilityBasis.POLES) {
-            poleMagnitude = largestPoleMagnitude(drawn);
-            stability = trajectory.diverged() ? LoopStability.DIVERGED
-                    : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
-                    : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;
-        } else {
-            SustainedOscillation oscillation = SustainedOscillation.of(drawn).feed(trajectory);
-            decayRatio = oscillation.decayRatio();
-            // an on-off loop cycles by design: its cycling is not instability
-            stability = trajectory.diverged() ? LoopStability.DIVERGED
-                    : drawn.onOffController().isPresent() ? LoopStability.NOT_ASSESSED
-                    : oscillation.sustained() ? LoopStability.OSCILLATING : LoopStability.STABLE;
-        }
-        int stride = Math.max(1, (trajectory.length() + PLOT_POINTS - 1) / PLOT_POINTS);
-        int count = (trajectory.length() + stride - 1) / stride;
-        boolean lastKept = (trajectory.length() - 1) % stride == 0;
-        double[] times = new double[lastKept ? count : count + 1];
-        double[] measurements = new double[times.length];
-        for (int i = 0; i < count; i++) {
-            times[i] = trajectory.time(i * stride);
-            measurements[i] = trajectory.measurement(i * stride);
-        }
-        if (!lastKept) {
-            times[count] = trajectory.time(trajectory.length() - 1);
-            measurements[count] = trajectory.measurement(trajectory.length() - 1);
-        }
-        return new SweepRun(index, draw, plant, metrics, stability, poleMagnitude, decayRatio, times,
-                measurements);
-    }
-
     /**
      * The largest closed-loop pole magnitude of the sampled linear loop (sensor delay included; for a
      * cascade, of the outer loop with the inner loop closed, the inner plant as given); NaN for an on-off
      * controller, too long a delay, or a controller the analysis rejects.
      */
-    private static double largestPoleMagnitude(Scenario drawn) {
+    static double largestPoleMagnitude(Scenario drawn) {
         SampledLoop loop = drawn.sampledLoop().orElse(null);
         if (loop == null || loop.totalDelaySeconds() > MAX_DELAY_PERIODS * loop.periodSeconds()) {
             return Double.NaN;

@@ -151,6 +151,8 @@ public final class SweepFiles {
 
     /** The envelope plot with the measurement's unit on its axis (the scenario's {@code units}). */
     public static XYChart plot(SweepResult result, String title, Units units) {
+        // a nonlinear plant's runs are judged by simulation: name what was seen, not a pole verdict
+        String unstableWord = result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating or diverged";
         double[] times = result.nominal().plotTimes();
         List<double[]> stable = new ArrayList<>();
         List<SweepRun> unstable = new ArrayList<>();
@@ -173,7 +175,7 @@ public final class SweepFiles {
         }
         int drawn = Math.min(UNSTABLE_DRAWN, unstable.size());
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
-                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " unstable ("
+                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " " + unstableWord + " ("
                         + (drawn < unstable.size() ? "first " + drawn + " shown" : "shown") + " in red, clipped)"),
                 "time (s)", Units.axis("measurement", units.process()));
         if (!stable.isEmpty()) {
@@ -190,7 +192,7 @@ public final class SweepFiles {
         double margin = CLIP_MARGIN * (high - low);
         for (int i = 0; i < drawn; i++) {
             SweepRun run = unstable.get(i);
-            XYSeries series = line(chart, i == 0 ? "unstable runs" : "run " + run.index(), run.plotTimes(), run.plotMeasurements(), low - margin,
+            XYSeries series = line(chart, i == 0 ? unstableWord + " runs" : "run " + run.index(), run.plotTimes(), run.plotMeasurements(), low - margin,
                     high + margin, clip);
             if (series != null) {
                 series.setLineColor(UNSTABLE_COLOUR);
