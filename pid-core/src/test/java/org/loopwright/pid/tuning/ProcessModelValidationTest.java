@@ -87,6 +87,8 @@ class ProcessModelValidationTest {
         assertThatCode(() -> new SopdtModel(1.0, Double.MIN_VALUE, Double.MIN_VALUE, 0.0)).doesNotThrowAnyException();
         assertThatCode(() -> new IntegratingModel(-1.0, 0.0, 0.0)).doesNotThrowAnyException();
         assertThatCode(() -> new UltimatePoint(Double.MIN_VALUE, Double.MIN_VALUE)).doesNotThrowAnyException();
+        // τ = L/(L + T): 1/(1 + 3) (the normalised dead time, Åström & Hägglund 2006, §2.7; from memory)
+        assertThat(new FopdtModel(2.0, 3.0, 1.0).normalisedDeadTime()).isEqualTo(0.25);
         // Skogestad's half rule (2003): T1 + T2/2 and L + T2/2
         assertThat(new SopdtModel(0.8, 90.0, 12.0, 4.0).halfRule()).isEqualTo(new FopdtModel(0.8, 96.0, 10.0));
     }
