@@ -11,6 +11,7 @@ import org.junit.jupiter.api.Test;
 import org.loopwright.pid.Mode;
 import org.loopwright.pid.runner.LoopClock;
 import org.loopwright.pid.runner.StopReason;
+import org.loopwright.pid.testing.VirtualClock;
 
 class GimbalAxisTest {
 
@@ -25,7 +26,7 @@ class GimbalAxisTest {
     @Test
     void takesTheShortWayRoundAndSettlesOnEachSetpoint() throws InterruptedException {
         // a clock that moves only when the runner waits: the schedule, and so the run, is exact
-        GimbalAxis.Outcome o = GimbalAxis.run(1.0, new StepClock(1_000L), NOWHERE);
+        GimbalAxis.Outcome o = GimbalAxis.run(1.0, new VirtualClock(1_000L), NOWHERE);
 
         assertThat(o.stopReason()).isEqualTo(StopReason.STOP_REQUESTED);
         assertThat(o.ticks()).isEqualTo(1001);

@@ -3,18 +3,19 @@ package org.loopwright.examples;
 import java.util.concurrent.locks.LockSupport;
 
 import org.loopwright.pid.runner.LoopClock;
+import org.loopwright.pid.testing.VirtualClock;
 
 /**
- * A {@link StepClock} that also really waits as long as each park asks, so the loop runs at about
+ * A {@link VirtualClock} that also really waits as long as each park asks, so the loop runs at about
  * real speed and another thread (the operator) has time to act, while the schedule the runner sees
  * stays exact: its time moves only by the parks and the fixed read cost, whatever the machine does.
  */
 final class PacedStepClock implements LoopClock {
 
-    private final StepClock virtual;
+    private final VirtualClock virtual;
 
     PacedStepClock(long readCostNanos) {
-        this.virtual = new StepClock(readCostNanos);
+        this.virtual = new VirtualClock(readCostNanos);
     }
 
     @Override

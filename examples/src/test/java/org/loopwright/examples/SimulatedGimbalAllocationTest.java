@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import org.junit.jupiter.api.Test;
 import org.loopwright.pid.PidController;
 import org.loopwright.pid.testing.AllocationWindows;
+import org.loopwright.pid.testing.VirtualClock;
 
 /**
  * The gimbal's callbacks run inside the runner's tick, which must not allocate (the project's
@@ -17,7 +18,7 @@ class SimulatedGimbalAllocationTest {
     private static final int TICKS_PER_ROUND = 10_000;
     private static final int MEASURED_TICKS = 15_000;
 
-    private final StepClock clock = new StepClock(0L);
+    private final VirtualClock clock = new VirtualClock(0L);
     private final SimulatedGimbal gimbal = new SimulatedGimbal(GimbalAxis.MOTOR, clock, GimbalAxis.START_DEGREES,
             GimbalAxis.PERIOD_NANOS, 100.0, GimbalAxis.PROFILE_FROM_SECONDS, GimbalAxis.PROFILE_DEGREES);
     private final PidController controller = new PidController(GimbalAxis.settings());

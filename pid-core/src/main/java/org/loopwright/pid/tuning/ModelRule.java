@@ -325,10 +325,10 @@ public enum ModelRule implements TuningRule {
         double l = m.deadTimeSeconds();
         double t = m.timeConstantSeconds();
         if (l == 0.0) {
-            return new RuleNotApplicable(rule, type, rule.name() + " needs a dead time L > 0: L=0.0");
+            return new RuleNotApplicable(rule, type, rule.label() + " needs a dead time L > 0: L=0.0");
         }
         if (l / t > MAX_DEAD_TIME_RATIO) {
-            return new RuleNotApplicable(rule, type, "the process is delay-dominant, outside " + rule.name()
+            return new RuleNotApplicable(rule, type, "the process is delay-dominant, outside " + rule.label()
                     + "'s range L/T <= " + format(MAX_DEAD_TIME_RATIO) + ": L/T=" + format(l / t));
         }
         return null;

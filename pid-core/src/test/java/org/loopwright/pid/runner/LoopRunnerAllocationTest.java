@@ -15,6 +15,7 @@ import org.loopwright.pid.WindupProtection;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.testing.AllocationWindows;
+import org.loopwright.pid.testing.VirtualClock;
 
 /**
  * A tick allocates nothing: the listener, which runs on the loop thread, reads that thread's

@@ -14,6 +14,7 @@ import org.loopwright.pid.PidController;
 import org.loopwright.pid.WindupProtection;
 import org.loopwright.pid.discrete.IntegralMethod;
 import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.pid.testing.VirtualClock;
 import org.junit.jupiter.api.Test;
 
 /**

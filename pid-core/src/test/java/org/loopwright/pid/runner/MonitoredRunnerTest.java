@@ -15,6 +15,7 @@ import org.loopwright.pid.monitor.LoopMonitor;
 import org.loopwright.pid.monitor.MonitorSettings;
 import org.loopwright.pid.monitor.MonitorSummary;
 import org.loopwright.pid.testing.AllocationWindows;
+import org.loopwright.pid.testing.VirtualClock;
 
 /** A runner built with a monitor feeds it once per tick with what the actuator got, allocating nothing. */
 class MonitoredRunnerTest {

@@ -15,6 +15,7 @@ import org.loopwright.pid.PidController;
 import org.loopwright.pid.StateCapture;
 import org.loopwright.pid.StateSnapshot;
 import org.loopwright.pid.form.ParallelGains;
+import org.loopwright.pid.testing.VirtualClock;
 
 /** The operator channel's refusals, what it applies at stop, capture and restore, restart and JMX. */
 class OperatorChannelTest {

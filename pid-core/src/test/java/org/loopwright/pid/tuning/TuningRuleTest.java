@@ -145,11 +145,11 @@ class TuningRuleTest {
                 Arguments.of(ModelRule.LAMBDA, B, ControllerType.PID, 1.5,
                         "lambda must be >= 0.8000 * L for the PID rule: lambda=1.500, L=2.000"),
                 Arguments.of(ModelRule.ZIEGLER_NICHOLS_STEP, DELAY_DOMINANT, ControllerType.PI, NO_PARAMETER,
-                        "the process is delay-dominant, outside ZIEGLER_NICHOLS_STEP's range L/T <= 1.000: L/T=2.000"),
+                        "the process is delay-dominant, outside ziegler-nichols's range L/T <= 1.000: L/T=2.000"),
                 Arguments.of(ModelRule.COHEN_COON, DELAY_DOMINANT, ControllerType.PID, NO_PARAMETER,
-                        "the process is delay-dominant, outside COHEN_COON's range L/T <= 1.000: L/T=2.000"),
+                        "the process is delay-dominant, outside cohen-coon's range L/T <= 1.000: L/T=2.000"),
                 Arguments.of(ModelRule.COHEN_COON, noDelay, ControllerType.PI, NO_PARAMETER,
-                        "COHEN_COON needs a dead time L > 0: L=0.0"));
+                        "cohen-coon needs a dead time L > 0: L=0.0"));
     }
 
     @ParameterizedTest(name = "{0} {2} on {1}")

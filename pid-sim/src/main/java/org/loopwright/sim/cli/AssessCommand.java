@@ -22,6 +22,7 @@ import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.replay.LoggedLoop;
 import org.loopwright.sim.replay.LoggedLoopFile;
 import org.loopwright.sim.report.AssessmentReport;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.report.ReportRecord;
 
 import picocli.CommandLine.Command;
@@ -117,7 +118,7 @@ public final class AssessCommand implements Callable<Integer> {
         }
         if (json) {
             assumptions.forEach(a -> err.println("assumed: " + a));
-            out.println(Json.pretty(AssessmentReport.json(assessment)));
+            out.println(JsonOutput.text(AssessmentReport.json(assessment)));
         } else {
             out.printf(Locale.ROOT, "%s: %d samples every %s s%n", loop.name(), assessment.samples(),
                     AssessmentReport.number(assessment.samplePeriodSeconds()));

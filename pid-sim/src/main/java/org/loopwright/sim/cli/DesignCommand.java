@@ -3,7 +3,6 @@ package org.loopwright.sim.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -15,7 +14,6 @@ import java.util.stream.Stream;
 import org.loopwright.pid.InvalidSettingException;
 import org.loopwright.pid.discrete.DerivativeMethod;
 import org.loopwright.pid.discrete.IntegralMethod;
-import org.loopwright.pid.tuning.ControllerType;
 import org.loopwright.pid.tuning.FopdtModel;
 import org.loopwright.pid.tuning.IntegratingModel;
 import org.loopwright.pid.tuning.ProcessModel;
@@ -40,6 +38,7 @@ import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.sweep.Spread;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -84,30 +83,12 @@ public final class DesignCommand implements Callable<Integer> {
                     + " integrating; as identify --write-plant writes it).")
     private Path plantFile;
 
-    @Option(names = "--process-gain", paramLabel = "K", description = "Process gain K (per second for --integrating).")
-    private Double processGain;
-
-    @Option(names = "--time-constant", paramLabel = "T", description = "Time constant T, s (the lag with --integrating).")
-    private Double timeConstant;
-
-    @Option(names = "--second-time-constant", paramLabel = "T2", description = "Second time constant T2 <= T, s.")
-    private Double secondTimeConstant;
-
-    @Option(names = "--integrating", description = "The process integrates (a level, a position).")
-    private boolean integrating;
-
-    @Option(names = "--dead-time", paramLabel = "L", description = "Dead time L, s.")
-    private Double deadTime;
+    @Mixin
+    private ModelOptions modelOptions;
 
     @Option(names = "--sample-period", paramLabel = "H", required = true,
             description = "The controller's sample period on the device, s (required).")
     private double samplePeriod;
-
-    @Option(names = "--output-min", paramLabel = "A", description = "Lower output limit (default: none).")
-    private Double outputMin;
-
-    @Option(names = "--output-max", paramLabel = "B", description = "Upper output limit (default: none).")
-    private Double outputMax;
 
     @Option(names = "--output-slew", paramLabel = "S", description = "Output slew limit, units per second (default: none).")
     private Double outputSlew;
@@ -189,15 +170,13 @@ public final class DesignCommand implements Callable<Integer> {
     }
 
     private DesignSpec specification() {
-        return new DesignSpec(samplePeriod, outputMin == null ? Double.NEGATIVE_INFINITY : outputMin,
-                outputMax == null ? Double.POSITIVE_INFINITY : outputMax,
+        return new DesignSpec(samplePeriod, modelOptions.outputMin(), modelOptions.outputMax(),
                 outputSlew == null ? Double.POSITIVE_INFINITY : outputSlew, sensorDelay, maxSensitivity, types.types(),
                 integralMethod, derivativeMethod, Spread.parse(spreadText), runs, seed);
     }
 
     private DesignModel model() {
-        boolean fromOptions = processGain != null || timeConstant != null || secondTimeConstant != null
-                || deadTime != null || integrating;
+        boolean fromOptions = modelOptions.given();
         int sources = (stepTest != null ? 1 : 0) + (plantFile != null ? 1 : 0) + (fromOptions ? 1 : 0);
         if (sources != 1) {
             throw new InputException("give one model: --step-test STEP.csv, --plant PLANT.yaml, or"
@@ -213,8 +192,7 @@ public final class DesignCommand implements Callable<Integer> {
         if (plantFile != null) {
             return DesignModel.given(fromPlant(plantFile), "plant-file");
         }
-        return DesignModel.given(TuneCommand.modelFromOptions(processGain, timeConstant, secondTimeConstant, integrating,
-                deadTime), "options");
+        return DesignModel.given(modelOptions.model(), "options");
     }
 
     private DesignModel fromStepTest() {

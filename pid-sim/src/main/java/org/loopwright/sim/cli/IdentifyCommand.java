@@ -20,6 +20,7 @@ import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.PlantBlock;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -48,16 +49,14 @@ public final class IdentifyCommand implements Callable<Integer> {
             description = "First or second order plus dead time: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
     private ModelKind kind;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".",
-            description = "Where to write the plot identify-<model>.png (default: the current directory).")
-    private Path outDirectory;
+    /** The plot identify-MODEL.png goes into --out (default: loopwright-identify). */
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--write-plant", paramLabel = "FILE.yaml",
             description = "Write the fitted model as a plant: block of the scenario format (design --plant reads it).")
     private Path plantOut;
 
-    @Option(names = "--json", description = "Print JSON instead of text.")
-    private boolean json;
 
     @Override
     public Integer call() throws IOException {
@@ -68,7 +67,7 @@ public final class IdentifyCommand implements Callable<Integer> {
         if (plantOut != null) {
             writePlant(fit);
         }
-        if (json) {
+        if (output.json()) {
             out.println(JsonOutput.text(ModelJson.of(fit, test)));
         } else {
             if (test.keptEvery() > 1) {
@@ -85,11 +84,12 @@ public final class IdentifyCommand implements Callable<Integer> {
 
     private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) throws IOException {
         String name = "identify-" + kind.label() + ".png";
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+        Path directory = output.directory("identify");
+        try (OutputStage stage = OutputStage.in(directory, "--out")) {
             IdentificationPlot.writePng(stage.directory().resolve(name), test, fit);
             stage.commit();
         }
-        return outDirectory.resolve(name);
+        return directory.resolve(name);
     }
 
     private static String thinningNote(StepTest test) {

@@ -11,7 +11,6 @@ import java.util.Optional;
 import java.util.concurrent.Callable;
 
 import org.loopwright.sim.assess.MonitorVerdict;
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.metrics.LimitCycle;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.metrics.ResponseWindow;

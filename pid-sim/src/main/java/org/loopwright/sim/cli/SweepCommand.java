@@ -193,7 +193,7 @@ public final class SweepCommand implements Callable<Integer> {
         List<Path> written;
         // staged, then moved: a run that fails half way leaves no half-written file behind
         try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-            written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title));
+            written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title, scenario.units()));
             written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
                     HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));

@@ -14,13 +14,14 @@ import org.loopwright.pid.form.IdealGains;
 import org.loopwright.pid.runner.WaitStrategy;
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
-import org.loopwright.sim.config.InputFileException;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.timing.LoopTiming;
 import org.loopwright.sim.timing.TimedRun;
 import org.loopwright.sim.timing.TimingFiles;
 import org.loopwright.sim.timing.TimingResult;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
+import com.fasterxml.jackson.annotation.JsonProperty;
+import com.fasterxml.jackson.annotation.JsonUnwrapped;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -117,7 +118,7 @@ public final class TimingCommand implements Callable<Integer> {
             TimingFiles.writePlot(outDirectory, runner, baseline, verdict.budgetNanos / 1e3);
         }
         if (json) {
-            out.println(Json.pretty(json(runner.result(), baseline.result(), verdict)));
+            out.println(JsonOutput.text(json(runner.result(), baseline.result(), verdict)));
         } else {
             printTable(out, runner.result(), baseline.result(), verdict);
         }
@@ -207,30 +208,50 @@ public final class TimingCommand implements Callable<Integer> {
         }
     }
 
-    private static ObjectNode json(TimingResult runner, TimingResult baseline, Verdict verdict) {
-        ObjectNode root = Json.object();
-        root.put("caution", CAUTION);
-        figures(root, runner);
-        figures(root.putObject("baseline"), baseline);
-        root.put("budget_us", verdict.budgetNanos / 1e3);
-        root.put("verdict", verdict.word());
-        root.put("verdict_reason", verdict.reason);
-        return root;
+    /**
+     * {@code timing --json}: the runner's figures at the top level, the bare busy-wait's under {@code baseline}.
+     *
+     * @param caution       the caution on timing figures from a shared machine
+     * @param runner        the runner's figures
+     * @param baseline      the bare busy-wait loop's figures
+     * @param budgetUs      the period-error budget, µs
+     * @param verdict       within-budget or over-budget
+     * @param verdictReason the figures the verdict rests on, in words
+     */
+    record TimingJson(String caution, @JsonUnwrapped FiguresJson runner, FiguresJson baseline, double budgetUs,
+            String verdict, String verdictReason) {
     }
 
-    private static void figures(ObjectNode node, TimingResult r) {
-        node.put("rate_hz", 1e9 / r.periodNanos());
-        node.put("wait", r.loop().equals(LoopTiming.BASELINE) ? "busy-wait" : r.loop().substring("runner, ".length()));
-        node.put("ticks", r.ticks());
-        node.put("overruns", r.overruns());
-        node.put("skipped", r.skipped());
-        Json.number(node, "cpu_share", r.cpuFraction());
-        Json.number(node, "update_ns", r.updateNanos());
-        ObjectNode error = node.putObject("period_error_us");
-        error.put("p50", r.p50Nanos() / 1e3);
-        error.put("p99", r.p99Nanos() / 1e3);
-        error.put("p99_9", r.p999Nanos() / 1e3);
-        error.put("max", r.maxNanos() / 1e3);
+    /**
+     * One loop's figures.
+     *
+     * @param rateHz        the loop rate
+     * @param waitWord      how it waited (busy-wait for the baseline), key {@code wait}
+     * @param ticks         ticks run
+     * @param overruns      ticks that overran their period
+     * @param skipped       ticks skipped
+     * @param cpuShare      the loop thread's CPU time over the wall time, or null
+     * @param updateNs      mean time of one update, ns, or null
+     * @param periodErrorUs percentiles of the period error, µs
+     */
+    record FiguresJson(double rateHz, @JsonProperty("wait") String waitWord, long ticks, long overruns, long skipped, double cpuShare,
+            double updateNs, PeriodErrorJson periodErrorUs) {
+
+        static FiguresJson of(TimingResult r) {
+            return new FiguresJson(1e9 / r.periodNanos(), r.loop().equals(LoopTiming.BASELINE) ? "busy-wait"
+                    : r.loop().substring("runner, ".length()), r.ticks(), r.overruns(), r.skipped(), r.cpuFraction(),
+                    r.updateNanos(), new PeriodErrorJson(r.p50Nanos() / 1e3, r.p99Nanos() / 1e3, r.p999Nanos() / 1e3,
+                            r.maxNanos() / 1e3));
+        }
+    }
+
+    /** Period-error percentiles, µs. */
+    record PeriodErrorJson(double p50, double p99, @JsonProperty("p99_9") double p999, double max) {
+    }
+
+    private static TimingJson json(TimingResult runner, TimingResult baseline, Verdict verdict) {
+        return new TimingJson(CAUTION, FiguresJson.of(runner), FiguresJson.of(baseline), verdict.budgetNanos / 1e3,
+                verdict.word(), verdict.reason);
     }
 
     private void printTable(PrintWriter out, TimingResult runner, TimingResult baseline, Verdict verdict) {

@@ -9,7 +9,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.function.Supplier;
 import java.util.stream.Collectors;
@@ -35,6 +34,7 @@ import org.loopwright.sim.tuning.TuningCandidate;
 import org.loopwright.sim.tuning.TuningEvaluation;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -62,23 +62,8 @@ public final class TuneCommand implements Callable<Integer> {
     @Spec
     private CommandSpec spec;
 
-    @Option(names = "--process-gain", paramLabel = "K",
-            description = "Process gain K (measurement units per output unit; per second for --integrating).")
-    private Double processGain;
-
-    @Option(names = "--time-constant", paramLabel = "T",
-            description = "Time constant T in seconds (the lag of an integrating process, optional there).")
-    private Double timeConstant;
-
-    @Option(names = "--second-time-constant", paramLabel = "T2",
-            description = "Second time constant T2 <= T in seconds: a second-order-plus-dead-time model.")
-    private Double secondTimeConstant;
-
-    @Option(names = "--integrating", description = "The process integrates (a level, a position): K is its rate.")
-    private boolean integrating;
-
-    @Option(names = "--dead-time", paramLabel = "L", description = "Dead time L in seconds.")
-    private Double deadTime;
+    @Mixin
+    private ModelOptions modelOptions;
 
     @Option(names = "--model-file", paramLabel = "FILE.json",
             description = "Read the model from the output of identify --json instead of K, T, L.")
@@ -88,12 +73,6 @@ public final class TuneCommand implements Callable<Integer> {
             description = "The controller's sample period in seconds: margins of the loop sampled at H; needed by"
                     + " --write-controller (default for the checks: a twentieth of the fastest of L and T).")
     private Double samplePeriod;
-
-    @Option(names = "--output-min", paramLabel = "A", description = "Lower output limit (default: none).")
-    private Double outputMin;
-
-    @Option(names = "--output-max", paramLabel = "B", description = "Upper output limit (default: none).")
-    private Double outputMax;
 
     @Option(names = "--ultimate-gain", paramLabel = "KU", description = "Ultimate gain Ku.")
     private Double ultimateGain;
@@ -126,8 +105,7 @@ public final class TuneCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        boolean fromOptions = processGain != null || timeConstant != null || deadTime != null
-                || secondTimeConstant != null || integrating;
+        boolean fromOptions = modelOptions.given();
         boolean fromModel = fromOptions || modelFile != null;
         boolean fromPoint = ultimateGain != null || ultimatePeriod != null;
         if (fromModel == fromPoint) {
@@ -159,7 +137,7 @@ public final class TuneCommand implements Callable<Integer> {
         List<TuningCandidate> candidates = new ArrayList<>();
         List<RuleNotApplicable> skipped = new ArrayList<>();
         ProcessModel model = modelFile != null ? ModelFile.read(modelFile) : fromOptions
-                ? modelFromOptions(processGain, timeConstant, secondTimeConstant, integrating, deadTime) : null;
+                ? modelOptions.model() : null;
         UltimatePoint point = fromPoint ? inOptionTerms(() -> new UltimatePoint(ultimateGain, ultimatePeriod)) : null;
         ControllerSettings base = fromModel ? baseSettings(model) : null;
         if (fromModel && TuningEvaluation.runSeconds(model) / base.samplePeriodSeconds()
@@ -223,37 +201,6 @@ public final class TuneCommand implements Callable<Integer> {
         return 0;
     }
 
-    /**
-     * The model the options describe: integrating, second or first order plus dead time. One reading of
-     * the model options for {@code tune} and {@code design}.
-     *
-     * @throws InputException naming the missing or conflicting option, or the bad value in option terms
-     */
-    static ProcessModel modelFromOptions(Double processGain, Double timeConstant, Double secondTimeConstant,
-            boolean integrating, Double deadTime) {
-        return inOptionTerms(() -> modelOrInvalid(processGain, timeConstant, secondTimeConstant, integrating, deadTime));
-    }
-
-    private static ProcessModel modelOrInvalid(Double processGain, Double timeConstant, Double secondTimeConstant,
-            boolean integrating, Double deadTime) {
-        if (processGain == null || deadTime == null) {
-            throw new InputException("a model needs --process-gain and --dead-time"
-                    + (integrating ? "" : ", and --time-constant"));
-        }
-        if (integrating) {
-            if (secondTimeConstant != null) {
-                throw new InputException("--integrating takes one lag (--time-constant), not --second-time-constant:"
-                        + " --second-time-constant=" + secondTimeConstant);
-            }
-            return new IntegratingModel(processGain, timeConstant == null ? 0.0 : timeConstant, deadTime);
-        }
-        if (timeConstant == null) {
-            throw new InputException("a self-regulating model needs --time-constant (or give --integrating)");
-        }
-        return secondTimeConstant == null ? new FopdtModel(processGain, timeConstant, deadTime)
-                : new SopdtModel(processGain, timeConstant, secondTimeConstant, deadTime);
-    }
-
     /** The settings every rule's gains go into: the sample period, the output limits, the action. */
     private ControllerSettings baseSettings(ProcessModel model) {
         double h = samplePeriod != null ? samplePeriod : TuningEvaluation.samplePeriodSeconds(model);
@@ -262,11 +209,11 @@ public final class TuneCommand implements Callable<Integer> {
                     ? "--sample-period must be finite and > 0: --sample-period=" + samplePeriod
                     : "a pure integrator without dead time has no time scale: give --sample-period");
         }
-        double min = outputMin == null ? Double.NEGATIVE_INFINITY : outputMin;
-        double max = outputMax == null ? Double.POSITIVE_INFINITY : outputMax;
+        double min = modelOptions.outputMin();
+        double max = modelOptions.outputMax();
         if (!(min < max) || Double.isNaN(min) || Double.isNaN(max)) {
-            throw new InputException("--output-min must be < --output-max: --output-min=" + outputMin + ", --output-max="
-                    + outputMax);
+            throw new InputException("--output-min must be < --output-max: --output-min=" + min + ", --output-max="
+                    + max);
         }
         return ControllerSettings.builder().gains(IdealGains.pi(1.0, 1.0)).samplePeriodSeconds(h)
                 .outputRange(min, max).action(TuningEvaluation.action(model)).build();
@@ -307,16 +254,9 @@ public final class TuneCommand implements Callable<Integer> {
         throw new InputException("--rule must be one of " + allowed + what + ": --rule=" + label);
     }
 
-    /** The model's and the point's field names as the options the user typed. */
-    private static final Map<String, String> OPTION_OF_FIELD = Map.of(
-            "processGain", "--process-gain", "timeConstantSeconds", "--time-constant",
-            "deadTimeSeconds", "--dead-time", "ultimateGain", "--ultimate-gain",
-            "ultimatePeriodSeconds", "--ultimate-period", "secondTimeConstantSeconds", "--second-time-constant",
-            "lagSeconds", "--time-constant");
-
     /** Builds a model or a point from option values; a value the model refuses is bad input named by its option. */
     static <T> T inOptionTerms(Supplier<T> build) {
-        return OptionChecks.inOptionTerms(OPTION_OF_FIELD, build);
+        return OptionChecks.inOptionTerms(ModelOptions.OPTION_OF_FIELD, build);
     }
 
     /** Writes a --write-controller file: staged beside it, then moved, so a failure leaves no half-written file. */

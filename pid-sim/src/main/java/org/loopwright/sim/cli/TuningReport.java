@@ -130,7 +130,7 @@ final class TuningReport {
     record ParallelJson(double proportionalGain, double integralGain, double derivativeGain) {
     }
 
-    /** A setpoint step's figures, seconds and percent; the response's state as a word. */
+    /** A setpoint step's figures, seconds and percent; the response's state in simulate's words. */
     record StepJson(double riseTime, double settlingTime, double overshootPercent, String response, double iae) {
     }
 
@@ -152,7 +152,7 @@ final class TuningReport {
                 m.map(TuningReport::phaseMargin).orElse(Double.NaN), m.map(TuningReport::gainMargin).orElse(Double.NaN),
                 m.map(x -> x.sensitivityPeak().value()).orElse(Double.NaN), c.stable().orElse(null),
                 c.setpointResponse().map(r -> new StepJson(r.riseTimeSeconds(), r.settlingTimeSeconds(),
-                        r.overshootPercent(), r.state().name().toLowerCase(Locale.ROOT).replace('_', '-'), r.iae()))
+                        r.overshootPercent(), r.state().words(), r.iae()))
                         .orElse(null),
                 c.loadResponse().map(l -> new LoadJson(l.iae(), l.peakDeviation())).orElse(null));
     }

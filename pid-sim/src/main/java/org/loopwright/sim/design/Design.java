@@ -29,6 +29,7 @@ import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
 import org.loopwright.sim.sweep.Sweep;
 import org.loopwright.sim.sweep.SweepResult;
+import org.loopwright.sim.study.DiscretisationStudy;
 
 /**
  * The design procedure: candidates from every published rule that applies to the model, PI and PID
@@ -229,7 +230,8 @@ public final class Design {
                             m.margins().sensitivityPeak().value(), m.stable(), ""));
                 } catch (IllegalArgumentException notApplicable) {
                     rows.add(new DiscretisationCheck(integral, d, chosen, Double.NaN, Double.NaN, false,
-                            "not applicable: " + notApplicable.getMessage()));
+                            "not applicable: " + DiscretisationStudy.notApplicable(d, simulated.samplePeriodSeconds(),
+                                    simulated.derivativeFilterTimeSeconds(), notApplicable.getMessage())));
                 }
             }
         }

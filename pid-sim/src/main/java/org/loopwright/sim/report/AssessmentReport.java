@@ -16,10 +16,8 @@ import org.loopwright.sim.assess.Assessment;
 import org.loopwright.sim.assess.Finding;
 import org.loopwright.sim.assess.TimeSpan;
 import org.loopwright.sim.replay.LoggedLoop;
+import org.loopwright.sim.report.ResultTable.Column;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 
 /**
  * Everything {@code assess} shows, in one place: the text table, the JSON object, the two plots
@@ -32,36 +30,52 @@ public final class AssessmentReport {
     /** Base name of the output-against-measurement plot. */
     public static final String PHASE_PLOT = "assess-output-vs-measurement";
 
-    private static final List<String> COLUMNS = List.of("condition", "status", "value", "threshold", "unit",
-            "method", "source", "note");
     private static final int MAX_SCATTER_POINTS = 5_000;
 
     private AssessmentReport() {
     }
 
-    /** A number as the table shows it: 4 significant digits without trailing zeros, "-" when there is none. */
+    /** A number as the table shows it: {@link NumberText}'s 4 significant digits, "n/a" when there is none. */
     public static String number(double value) {
-        if (!Double.isFinite(value)) {
-            return "-";
-        }
-        String text = String.format(Locale.ROOT, "%.4g", value);
-        return text.contains("e") ? text : new java.math.BigDecimal(text).stripTrailingZeros().toPlainString();
+        return NumberText.of(value);
     }
 
     /**
-     * The findings as a text table (condition, status, value, threshold, unit; flagged statuses in
-     * capitals) with method, source and note under each.
+     * The findings as one table for the text output and the report: condition, status (flagged ones in
+     * capitals), value, threshold, unit and, with {@code words}, the method, source and note.
+     *
+     * @param a     the assessment
+     * @param words whether to add the method, source and note columns (the text gives them under the table)
+     * @return the table
      */
-    public static String table(Assessment a) {
-        StringBuilder text = new StringBuilder();
-        text.append(String.format(Locale.ROOT, "%-24s %-13s %12s %12s  %s%n", "condition", "status", "value",
-                "threshold", "unit"));
+    public static ResultTable conditions(Assessment a, boolean words) {
+        List<Column> columns = new ArrayList<>(List.of(Column.text("condition", "condition"),
+                Column.text("status", "status"), Column.number("value", "value", "", NumberText.DEFAULT_DIGITS),
+                Column.number("threshold", "threshold", "", NumberText.DEFAULT_DIGITS), Column.text("unit", "unit")));
+        if (words) {
+            columns.addAll(List.of(Column.text("method", "method"), Column.text("source", "source"),
+                    Column.text("note", "note")));
+        }
+        ResultTable table = ResultTable.of("Conditions (value judged against the alarm threshold; the note gives the"
+                + " warn threshold, the evidence, or why a method was not applied)", columns.toArray(Column[]::new));
         for (Finding f : a.findings()) {
-            text.append(String.format(Locale.ROOT, "%-24s %-13s %12s %12s  %s%n", f.name(),
-                    f.status().flagged() ? f.status().label().toUpperCase(Locale.ROOT) : f.status().label(),
-                    number(f.value()), number(f.threshold()), f.unit()));
-            text.append("    ").append(f.method()).append("; ").append(f.source()).append(". ").append(f.note())
-                    .append(System.lineSeparator());
+            List<Object> row = new ArrayList<>(List.of(f.name(), f.status().flagged()
+                    ? f.status().label().toUpperCase(Locale.ROOT) : f.status().label(), f.value(), f.threshold(),
+                    f.unit()));
+            if (words) {
+                row.addAll(List.of(f.method(), f.source(), f.note()));
+            }
+            table.row(row.toArray());
+        }
+        return table;
+    }
+
+    /** The findings as text: the table, then each condition's method, source and note. */
+    public static String table(Assessment a) {
+        StringBuilder text = new StringBuilder(conditions(a, false).text());
+        for (Finding f : a.findings()) {
+            text.append("  ").append(f.name()).append(": ").append(f.method()).append("; ").append(f.source())
+                    .append(". ").append(f.note()).append(System.lineSeparator());
         }
         return text.toString();
     }
@@ -80,35 +94,40 @@ public final class AssessmentReport {
         return flagged.isEmpty() ? "nothing flagged" : String.join(", ", flagged) + oscillation;
     }
 
-    /** The JSON object, with exactly the keys {@code assess --json} documents. */
-    public static ObjectNode json(Assessment a) {
-        ObjectMapper mapper = new ObjectMapper();
-        ObjectNode root = mapper.createObjectNode();
-        root.put("samples", a.samples());
-        number(root, "sample_period", a.samplePeriodSeconds());
-        ArrayNode conditions = root.putArray("conditions");
-        for (Finding f : a.findings()) {
-            ObjectNode c = conditions.addObject();
-            c.put("name", f.name());
-            c.put("status", f.status().label());
-            number(c, "value", f.value());
-            number(c, "threshold", f.threshold());
-            c.put("unit", f.unit());
-            c.put("method", f.method());
-            c.put("source", f.source());
-            c.put("note", f.note());
-        }
-        number(root, "oscillation_period", a.oscillationPeriodSeconds());
-        number(root, "oscillation_amplitude", a.oscillationAmplitude());
-        return root;
+    /**
+     * {@code assess --json}, with exactly the keys it documents (snake_case, null for a missing figure).
+     *
+     * @param samples              samples in the record
+     * @param samplePeriod         h, s
+     * @param conditions           one per condition assessed
+     * @param oscillationPeriod    the oscillation's period, s, or null
+     * @param oscillationAmplitude its amplitude, or null
+     */
+    public record AssessmentJson(int samples, double samplePeriod, List<ConditionJson> conditions,
+            double oscillationPeriod, double oscillationAmplitude) {
     }
 
-    private static void number(ObjectNode node, String key, double value) {
-        if (Double.isFinite(value)) {
-            node.put(key, value);
-        } else {
-            node.putNull(key);
-        }
+    /**
+     * One condition.
+     *
+     * @param name      the condition
+     * @param status    its status word (ok, warn, alarm, not-assessed...)
+     * @param value     the figure judged, or null
+     * @param threshold the alarm threshold, or null
+     * @param unit      the figure's unit
+     * @param method    how it was judged
+     * @param source    where the method comes from
+     * @param note      the evidence, the warn threshold, or why it was not assessed
+     */
+    public record ConditionJson(String name, String status, double value, double threshold, String unit, String method,
+            String source, String note) {
+    }
+
+    /** The JSON record of an assessment. */
+    public static AssessmentJson json(Assessment a) {
+        return new AssessmentJson(a.samples(), a.samplePeriodSeconds(), a.findings().stream().map(f -> new ConditionJson(
+                f.name(), f.status().label(), f.value(), f.threshold(), f.unit(), f.method(), f.source(), f.note()))
+                .toList(), a.oscillationPeriodSeconds(), a.oscillationAmplitude());
     }
 
     /**
@@ -123,13 +142,7 @@ public final class AssessmentReport {
         System.setProperty("java.awt.headless", "true");
         ResponsePlot.save(trend(loop, a), directory, TREND);
         ResponsePlot.save(outputAgainstMeasurement(loop), directory, PHASE_PLOT);
-        List<List<String>> rows = new ArrayList<>();
-        for (Finding f : a.findings()) {
-            rows.add(List.of(f.name(), f.status().label(), number(f.value()), number(f.threshold()), f.unit(),
-                    f.method(), f.source(), f.note()));
-        }
-        HtmlTable table = new HtmlTable("Conditions (value judged against the alarm threshold; the note gives the"
-                + " warn threshold, the evidence, or why a method was not applied)", COLUMNS, rows);
+        HtmlTable table = conditions(a, true).html();
         String summary = String.format(Locale.ROOT, "%d samples every %s s. Verdict: %s. Oscillation stretches"
                 + " flagged by the monitor are marked red on the trend.", a.samples(), number(a.samplePeriodSeconds()),
                 verdict(a));

@@ -23,6 +23,7 @@ import org.loopwright.sim.frequency.StabilityMargins;
 import org.loopwright.sim.metrics.ResponseMetrics;
 import org.loopwright.sim.nonideal.SensorModel;
 import org.loopwright.sim.plant.TransferFunction;
+import org.loopwright.sim.report.NumberText;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.Simulation;
 import org.loopwright.sim.simulate.Trajectory;
@@ -167,11 +168,7 @@ public final class DiscretisationStudy {
                     .integralMethod(integral == null ? settings.integralMethod() : integral)
                     .derivativeMethod(derivative == null ? settings.derivativeMethod() : derivative).build();
         } catch (InvalidSettingException e) {
-            // in the study's own words: the settings' message names builder fields
-            String note = derivative == DerivativeMethod.FORWARD_EULER
-                    ? "a forward-Euler derivative needs h < 2·Tf: h=" + h + " s, Tf="
-                            + settings.derivativeFilterTimeSeconds() + " s"
-                    : e.getMessage();
+            String note = notApplicable(derivative, h, settings.derivativeFilterTimeSeconds(), e.getMessage());
             return new StudyRow(StudyRow.Kind.NOT_APPLICABLE, integral, derivative, h, note, Double.NaN,
                     Double.NaN, Double.NaN, null, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
                     crossover * h, null, null);
@@ -217,5 +214,21 @@ public final class DiscretisationStudy {
     }
 
     private record Responses(double overshootPercent, double iae, double loadIae, Trajectory setpoint) {
+    }
+
+    /**
+     * Why a method pair cannot run at a sample period, in the study's words rather than the settings'
+     * message (which names builder fields): for the forward-Euler derivative, the stability rule.
+     *
+     * @param derivative          the derivative method, null when unchanged
+     * @param h                   the sample period, s
+     * @param filterTimeSeconds   the derivative filter time Tf, s
+     * @param refused             the settings' message, used for any other method
+     * @return the note
+     */
+    public static String notApplicable(DerivativeMethod derivative, double h, double filterTimeSeconds,
+            String refused) {
+        return derivative == DerivativeMethod.FORWARD_EULER ? "a forward-Euler derivative needs h < 2·Tf: h="
+                + NumberText.of(h) + " s, Tf=" + NumberText.of(filterTimeSeconds) + " s" : refused;
     }
 }

@@ -23,6 +23,7 @@ import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantParameters;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.ResponsePlot;
+import org.loopwright.sim.scenario.Units;
 
 /**
  * A sweep's files: {@value #CSV} with one row per run (Commons CSV) and {@value #PLOT_NAME}.png/.svg
@@ -65,12 +66,12 @@ public final class SweepFiles {
      *
      * @return the files written
      */
-    public static List<Path> write(SweepResult result, Path directory, String title) throws IOException {
+    public static List<Path> write(SweepResult result, Path directory, String title, Units units) throws IOException {
         Files.createDirectories(directory);
         Path csv = directory.resolve(CSV);
         writeCsv(result, csv);
         System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(plot(result, title), directory, PLOT_NAME);
+        ResponsePlot.save(plot(result, title, units), directory, PLOT_NAME);
         return List.of(csv, directory.resolve(PLOT_NAME + ".png"), directory.resolve(PLOT_NAME + ".svg"));
     }
 
@@ -145,6 +146,11 @@ public final class SweepFiles {
      * oscillating or diverged runs in red, each clipped to the stable runs' range widened by a quarter of it.
      */
     public static XYChart plot(SweepResult result, String title) {
+        return plot(result, title, Units.NONE);
+    }
+
+    /** The envelope plot with the measurement's unit on its axis (the scenario's {@code units}). */
+    public static XYChart plot(SweepResult result, String title, Units units) {
         // a nonlinear plant's runs are judged by simulation: name what was seen, not a pole verdict
         String unstableWord = result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating or diverged";
         double[] times = result.nominal().plotTimes();
@@ -171,7 +177,7 @@ public final class SweepFiles {
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
                 + (unstable.isEmpty() ? "" : ", " + unstable.size() + " " + unstableWord + " ("
                         + (drawn < unstable.size() ? "first " + drawn + " shown" : "shown") + " in red, clipped)"),
-                "time (s)", "measurement");
+                "time (s)", Units.axis("measurement", units.process()));
         if (!stable.isEmpty()) {
             band(chart, stable.size() + " stable runs: min to max", times, envelope[0], envelope[4], OUTER_BAND);
             band(chart, "10th to 90th percentile", times, envelope[1], envelope[3], INNER_BAND);

@@ -1,5 +1,7 @@
 package org.loopwright.sim.cli;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
 import java.io.PrintWriter;
 import java.io.StringWriter;
 
@@ -16,5 +18,13 @@ record CommandRun(int exitCode, String out, String err) {
         cli.setErr(new PrintWriter(err));
         int code = cli.execute(args);
         return new CommandRun(code, out.toString(), err.toString());
+    }
+
+    /** Runs the command line and checks the one shape of bad input: exit 2, the message alone, no output. */
+    static void assertBadInput(String[] args, String message) {
+        CommandRun run = of(args);
+        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
+        assertThat(run.err().strip()).isEqualTo(message);
+        assertThat(run.out()).isEmpty();
     }
 }

@@ -202,10 +202,6 @@ class DesignCommandTest {
     @ParameterizedTest(name = "{1}")
     @MethodSource("badInput")
     void badInputExitsWithTwoAndSaysWhy(String[] args, String message) {
-        CommandRun run = CommandRun.of(args);
-
-        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
-        assertThat(run.err().strip()).isEqualTo(message);
-        assertThat(run.out()).isEmpty();
+        CommandRun.assertBadInput(args, message);
     }
 }

@@ -48,11 +48,7 @@ class ExitCodesTest {
     @ParameterizedTest(name = "{1}")
     @MethodSource("badInput")
     void badInputExitsTwoWithTheMessageAlone(String[] args, String message) {
-        CommandRun run = CommandRun.of(args);
-
-        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
-        assertThat(run.err().strip()).isEqualTo(message);
-        assertThat(run.out()).isEmpty();
+        CommandRun.assertBadInput(args, message);
     }
 
     @Test

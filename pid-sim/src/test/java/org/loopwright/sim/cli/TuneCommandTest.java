@@ -210,7 +210,7 @@ class TuneCommandTest {
                         "--rule must be one of ziegler-nichols, tyreus-luyben for an ultimate point: --rule=simc"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "1", "--dead-time", "3",
                         "--rule", "cohen-coon"},
-                        "cohen-coon does not apply: the process is delay-dominant, outside COHEN_COON's range"
+                        "cohen-coon does not apply: the process is delay-dominant, outside cohen-coon's range"
                                 + " L/T <= 1.000: L/T=3.000 (G.H. Cohen, G.A. Coon, \"Theoretical consideration of"
                                 + " retarded control\", Transactions of the ASME 75 (1953) 827-834)"),
                 Arguments.of(new String[] {"tune", "--process-gain", "1", "--time-constant", "0", "--dead-time", "3"},
@@ -232,10 +232,6 @@ class TuneCommandTest {
     @ParameterizedTest(name = "{1}")
     @MethodSource("badInput")
     void badInputExitsWithTwoAndSaysWhy(String[] args, String message) {
-        CommandRun run = CommandRun.of(args);
-
-        assertThat(run.exitCode()).isEqualTo(LoopwrightCommand.BAD_INPUT);
-        assertThat(run.err().strip()).isEqualTo(message);
-        assertThat(run.out()).isEmpty();
+        CommandRun.assertBadInput(args, message);
     }
 }
