@@ -144,44 +144,34 @@ public final class SweepCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
-        Scenario scenario;
-        Sweep sweep;
         int threadCount = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        try {
-            if (runs < 1 || runs > MAX_RUNS) {
-                throw new IllegalArgumentException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
-            }
-            if (threadCount < 1 || threadCount > MAX_THREADS) {
-                throw new IllegalArgumentException("--threads must be from 1 to " + MAX_THREADS + ": --threads="
-                        + threadCount);
-            }
-            Spread given = spreadText == null ? null : Spread.parse(spreadText);
-            scenario = ScenarioFile.read(scenarioFile);
-            PlantType type = scenario.plant().type();
-            if (given == null && !type.linear()) {
-                throw new InputException("--spread is needed for plant type " + type.word()
-                        + " (no default: name the parameters that are uncertain), keys "
-                        + type.spreadKeys().stream().map(FileKey::word).collect(Collectors.joining(", ")));
-            }
-            Spread spread = given != null ? given : Spread.parse(LINEAR_DEFAULT_SPREAD);
-            boolean byPoles = StabilityBasis.of(scenario) == StabilityBasis.POLES;
-            if (byPoles && scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
-                throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
-                        + PlantType.linearWords() + ") when the outer plant is linear (its poles judge stability):"
-                        + " inner.plant.type=" + scenario.inner().get().plant().type().word());
-            }
-            if (byPoles && (scenario.schedule().isPresent() || scenario.splitRange().isPresent())) {
-                throw InputFileException.whole(scenarioFile.toString(), "sweep judges a linear plant's stability"
-                        + " by the poles of a loop with fixed gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
-                        : "split-range") + " is given");
-            }
-            sweep = new Sweep(scenario, spread, seed);
-        } catch (InputFileException | IllegalArgumentException e) {
-            err.println(e.getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+        if (runs < 1 || runs > MAX_RUNS) {
+            throw new InputException("--runs must be from 1 to " + MAX_RUNS + ": --runs=" + runs);
         }
+        if (threadCount < 1 || threadCount > MAX_THREADS) {
+            throw new InputException("--threads must be from 1 to " + MAX_THREADS + ": --threads=" + threadCount);
+        }
+        Spread given = spreadText == null ? null : Spread.parse(spreadText);
+        Scenario scenario = ScenarioFile.read(scenarioFile);
+        PlantType type = scenario.plant().type();
+        if (given == null && !type.linear()) {
+            throw new InputException("--spread is needed for plant type " + type.word()
+                    + " (no default: name the parameters that are uncertain), keys "
+                    + type.spreadKeys().stream().map(FileKey::word).collect(Collectors.joining(", ")));
+        }
+        Spread spread = given != null ? given : Spread.parse(LINEAR_DEFAULT_SPREAD);
+        boolean byPoles = StabilityBasis.of(scenario) == StabilityBasis.POLES;
+        if (byPoles && scenario.inner().isPresent() && scenario.inner().get().plant().linear().isEmpty()) {
+            throw InputFileException.whole(scenarioFile.toString(), "sweep needs a linear inner plant ("
+                    + PlantType.linearWords() + ") when the outer plant is linear (its poles judge stability):"
+                    + " inner.plant.type=" + scenario.inner().get().plant().type().word());
+        }
+        if (byPoles && (scenario.schedule().isPresent() || scenario.splitRange().isPresent())) {
+            throw InputFileException.whole(scenarioFile.toString(), "sweep judges a linear plant's stability"
+                    + " by the poles of a loop with fixed gains and one actuator: " + (scenario.schedule().isPresent() ? "controller.schedule"
+                    : "split-range") + " is given");
+        }
+        Sweep sweep = new Sweep(scenario, spread, seed);
         boolean json = output.json();
         Path outDirectory = output.directory("sweep");
         SweepResult result;
@@ -199,10 +189,7 @@ public final class SweepCommand implements Callable<Integer> {
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
             stage.commit();
         } catch (IOException e) {
-            err.println(InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e)
-                    .getMessage());
-            err.flush();
-            return LoopwrightCommand.BAD_INPUT;
+            throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
         }
         if (json) {
             out.println(Json.pretty(json(result, threadCount)));

@@ -40,6 +40,8 @@ class ExitCodesTest {
                 // a value a model refuses, said in option terms
                 Arguments.of(new String[] {"tune", "--ultimate-gain", "-2", "--ultimate-period", "3"},
                         "--ultimate-gain must be finite and > 0: --ultimate-gain=-2.0"),
+                // sweep's own ranges, through the same path (it caught them itself before)
+                Arguments.of(new String[] {"sweep", scenario, "--runs", "0"}, "--runs must be from 1 to 10000: --runs=0"),
                 // a file that does not exist
                 Arguments.of(new String[] {"margins", scenario + ".missing"},
                         scenario + ".missing: cannot be read (no such file or directory)"));
