@@ -300,8 +300,8 @@ public final class SweepCommand implements Callable<Integer> {
         if (run.plant() instanceof TransferFunction linear) {
             plant = String.format(Locale.ROOT, "gain x%s, time constants x%s, dead time x%s: plant %s/%s,"
                     + " dead time %s s", number(run.draw().factor("gain")), number(run.draw().factor("time-constant")),
-                    number(run.draw().factor("dead-time")), Arrays.toString(linear.numerator()),
-                    Arrays.toString(linear.denominator()), number(linear.deadTimeSeconds()));
+                    number(run.draw().factor("dead-time")), coefficients(linear.numerator()),
+                    coefficients(linear.denominator()), number(linear.deadTimeSeconds()));
         } else {
             List<String> parameters = new ArrayList<>();
             for (FileKey<Double> key : run.plant().type().spreadKeys()) {
@@ -314,14 +314,23 @@ public final class SweepCommand implements Callable<Integer> {
                     + (run.plant().linear().isPresent() ? "; largest pole magnitude " + number(run.largestPoleMagnitude())
                             : "; decay ratio " + number(run.decayRatio()));
         }
-        return String.format(Locale.ROOT, "%s%s: %s; %s; overshoot %s %%, settling time %s s, IAE %s", name,
+        return String.format(Locale.ROOT, "%s%s: %s; %s; overshoot %s, settling time %s, IAE %s", name,
                 run.index() == Sweep.NOMINAL_INDEX ? "" : " #" + run.index(), word(run.stability()), plant,
-                number(run.metrics().overshootPercent()), number(run.metrics().settlingTimeSeconds()),
+                number(run.metrics().overshootPercent(), " %"), number(run.metrics().settlingTimeSeconds(), " s"),
                 number(run.metrics().iae()));
     }
 
     private static String number(double value) {
-        return Double.isNaN(value) ? "n/a" : String.format(Locale.ROOT, "%.4g", value);
+        return number(value, "");
+    }
+
+    private static String coefficients(double[] values) {
+        return Arrays.stream(values).mapToObj(SweepCommand::number).collect(Collectors.joining(", ", "[", "]"));
+    }
+
+    /** A figure with its unit, or "n/a" alone: a missing figure has no unit. */
+    private static String number(double value, String unit) {
+        return Double.isNaN(value) ? "n/a" : String.format(Locale.ROOT, "%.4g", value) + unit;
     }
 
     private static ObjectNode json(SweepResult result, int threadCount) {
