@@ -22,6 +22,7 @@ import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TransferFunction;
 import org.loopwright.sim.report.HtmlReport;
 import org.loopwright.sim.report.HtmlTable;
+import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
 import org.loopwright.sim.sweep.Distribution;
@@ -34,8 +35,6 @@ import org.loopwright.sim.sweep.StabilityBasis;
 import org.loopwright.sim.sweep.SustainedOscillation;
 import org.loopwright.sim.sweep.SweepRun;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -192,7 +191,7 @@ public final class SweepCommand implements Callable<Integer> {
             throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
         }
         if (json) {
-            out.println(Json.pretty(json(result, threadCount)));
+            out.println(JsonOutput.text(SweepJson.Sweep.of(result, threadCount)));
         } else {
             out.println(header(result, threadCount));
             out.print(text(table(result)));
@@ -331,71 +330,5 @@ public final class SweepCommand implements Callable<Integer> {
     /** A figure with its unit, or "n/a" alone: a missing figure has no unit. */
     private static String number(double value, String unit) {
         return Double.isNaN(value) ? "n/a" : String.format(Locale.ROOT, "%.4g", value) + unit;
-    }
-
-    private static ObjectNode json(SweepResult result, int threadCount) {
-        ObjectNode root = Json.object();
-        root.put("runs", result.runs().size());
-        root.put("seed", result.seed());
-        root.put("threads", threadCount);
-        root.put("distribution", "uniform");
-        root.put("stability_basis", result.stabilityBasis().name().toLowerCase(Locale.ROOT));
-        ObjectNode spread = root.putObject("spread");
-        for (FileKey<Double> key : result.scenario().plant().type().spreadKeys()) {
-            spread.put(jsonName(key), result.spread().fraction(key.word()));
-        }
-        Json.number(root, "unstable_share", result.unstableShare());
-        Json.number(root, "not_assessed_share", result.notAssessedShare());
-        Json.number(root, "not_settled_share", result.notSettledShare());
-        distribution(root.putObject("overshoot_percent"), result.overshootPercent());
-        distribution(root.putObject("settling_time"), result.settlingTimeSeconds());
-        distribution(root.putObject("iae"), result.iae());
-        distribution(root.putObject("saturated_percent"), result.saturatedPercent());
-        run(root.putObject("worst_run"), result.worst());
-        run(root.putObject("nominal_run"), result.nominal());
-        return root;
-    }
-
-    /** A spread key as JSON and CSV name it: {@code static-friction} is {@code static_friction}. */
-    private static String jsonName(FileKey<Double> key) {
-        return key.word().replace('-', '_');
-    }
-
-    private static void distribution(ObjectNode node, Distribution d) {
-        node.put("count", d.count());
-        Json.number(node, "min", d.min());
-        Json.number(node, "median", d.median());
-        Json.number(node, "p90", d.p90());
-        Json.number(node, "max", d.max());
-    }
-
-    private static void run(ObjectNode node, SweepRun run) {
-        node.put("run", run.index());
-        node.put("stability", run.stability().name().toLowerCase(Locale.ROOT).replace('_', '-'));
-        for (FileKey<Double> key : run.plant().type().spreadKeys()) {
-            Json.number(node, jsonName(key) + "_factor", run.draw().factor(key.word()));
-        }
-        if (run.plant() instanceof TransferFunction linear) {
-            ArrayNode numerator = node.putArray("numerator");
-            Arrays.stream(linear.numerator()).forEach(numerator::add);
-            ArrayNode denominator = node.putArray("denominator");
-            Arrays.stream(linear.denominator()).forEach(denominator::add);
-            Json.number(node, "dead_time", linear.deadTimeSeconds());
-            Json.number(node, "largest_pole_magnitude", run.largestPoleMagnitude());
-        } else {
-            for (FileKey<Double> key : run.plant().type().spreadKeys()) {
-                Json.number(node, jsonName(key), PlantParameters.value(run.plant(), key));
-            }
-            if (run.plant().linear().isPresent()) {
-                Json.number(node, "largest_pole_magnitude", run.largestPoleMagnitude());
-            } else {
-                Json.number(node, "decay_ratio", run.decayRatio());
-            }
-        }
-        Json.number(node, "overshoot_percent", run.metrics().overshootPercent());
-        Json.number(node, "settling_time", run.metrics().settlingTimeSeconds());
-        Json.number(node, "steady_state_error", run.metrics().steadyStateError());
-        Json.number(node, "iae", run.metrics().iae());
-        Json.number(node, "saturated_fraction", run.metrics().saturatedFraction());
     }
 }

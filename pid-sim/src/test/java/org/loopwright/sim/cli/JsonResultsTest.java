@@ -13,7 +13,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 
 /**
- * The JSON of margins, compare, tune and identify as Jackson writes their result records: the keys
+ * The JSON of margins, compare, tune, identify and sweep as Jackson writes their result records: the keys
  * (snake_case, in order, every key present with null for a figure that does not exist or apply) and
  * the enum words (the files' and the options' words). The field names are those the commands had
  * before they were records, so scripts that read them keep working; the values are checked against
@@ -41,6 +41,26 @@ class JsonResultsTest {
         assertThat(root.get("sampled").get("note").isNull()).as("a stable loop needs no note").isTrue();
         keys(root.get("sampled").get("stable_gain_range"), "low", "high");
         assertThat(root.get("sampled").get("integral_method").asText()).isEqualTo("tustin");
+    }
+
+    @Test
+    void sweepHasTheSharesTheDistributionsAndTwoRuns(@TempDir Path dir) throws Exception {
+        JsonNode root = JSON.readTree(CommandRun.of("sweep", FrequencyCommandsTest.scenario("third-order-lag.yaml"),
+                "--runs", "4", "--spread", "gain=20%", "--out", dir.toString(), "--json").out());
+
+        keys(root, "runs", "seed", "threads", "distribution", "stability_basis", "spread", "unstable_share",
+                "not_assessed_share", "not_settled_share", "overshoot_percent", "settling_time", "iae",
+                "saturated_percent", "worst_run", "nominal_run");
+        keys(root.get("spread"), "gain", "time_constant", "dead_time");
+        keys(root.get("iae"), "count", "min", "median", "p90", "max");
+        for (String run : new String[] {"worst_run", "nominal_run"}) {
+            // a linear plant's keys: its factors, then the drawn plant, between the run and its figures
+            keys(root.get(run), "run", "stability", "gain_factor", "time_constant_factor", "dead_time_factor",
+                    "numerator", "denominator", "dead_time", "largest_pole_magnitude", "overshoot_percent",
+                    "settling_time", "steady_state_error", "iae", "saturated_fraction");
+        }
+        assertThat(root.get("stability_basis").asText()).isEqualTo("poles");
+        assertThat(root.get("nominal_run").get("stability").asText()).isEqualTo("stable");
     }
 
     @Test
