@@ -5,7 +5,6 @@ import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.concurrent.locks.LockSupport;
 
 import org.HdrHistogram.Histogram;
 import org.loopwright.pid.ControllerSettings;
@@ -181,12 +180,12 @@ public final class GimbalAxis {
                 try {
                     long manual = operator.requestMode(Mode.MANUAL);
                     operator.awaitApplied(manual, COMMAND_PATIENCE);
-                    log.add("manual: " + describe(statusAfter(runner, status, manual)));
+                    log.add("manual: " + describe(runner.readStatus(status)));
                     operator.requestRetune(softerSettings());
                     long automatic = operator.requestMode(Mode.AUTOMATIC);
                     operator.awaitApplied(automatic, COMMAND_PATIENCE);
                     log.add("retuned to Kc 0.4 V/°, Ti 0.12 s, back in automatic: "
-                            + describe(statusAfter(runner, status, automatic)));
+                            + describe(runner.readStatus(status)));
                 } catch (CommandRefusedException e) {
                     log.add("the loop ended before the operator acted: " + e.getMessage());
                 }
@@ -199,20 +198,6 @@ public final class GimbalAxis {
             out.println("  operator: " + log.get(0));
         }
         return log;
-    }
-
-    /**
-     * The published status once it shows command {@code number} applied: a command is applied inside a
-     * tick and the status is published at the tick's end, so a read right after {@code awaitApplied}
-     * may still see the tick before (the loop ending first leaves the last status).
-     */
-    private static LoopStatus statusAfter(LoopRunner runner, LoopStatus status, long number) {
-        long deadline = System.nanoTime() + COMMAND_PATIENCE.toNanos();
-        while (runner.readStatus(status).appliedCommandCount() < number && runner.state() != RunnerState.STOPPED
-                && System.nanoTime() - deadline < 0) {
-            LockSupport.parkNanos(100_000L);
-        }
-        return status;
     }
 
     private static String describe(LoopStatus s) {

@@ -167,7 +167,9 @@ public final class OperatorChannel {
     }
 
     /**
-     * Waits until command {@code number} has been applied, for at most the timeout.
+     * Waits until command {@code number} has been applied, for at most the timeout. The runner counts a
+     * command as applied only once the status of its tick is published, so a status read after this
+     * returns true shows the command's effect.
      *
      * @param number a number that a {@code request} method returned
      * @param timeout the longest wait
