@@ -25,6 +25,7 @@ import org.loopwright.sim.report.HtmlTable;
 import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.scenario.ScenarioFile;
+import org.loopwright.sim.scenario.Units;
 import org.loopwright.sim.sweep.Distribution;
 import org.loopwright.sim.sweep.LoopStability;
 import org.loopwright.sim.sweep.Spread;
@@ -242,7 +243,7 @@ public final class SweepCommand implements Callable<Integer> {
         List<List<String>> rows = new ArrayList<>();
         rows.add(row("overshoot (%)", result.overshootPercent()));
         rows.add(row("settling time (2 %, s)", result.settlingTimeSeconds()));
-        rows.add(row("IAE", result.iae()));
+        rows.add(row(iaeTitle(result), result.iae()));
         rows.add(row("time saturated (%)", result.saturatedPercent()));
         return new HtmlTable("Distribution over the runs (runs: how many have the figure)",
                 List.of("figure", "runs", "min", "median", "p90", "max"), rows);
@@ -260,9 +261,14 @@ public final class SweepCommand implements Callable<Integer> {
         rows.add(runRow("worst (#" + result.worst().index() + ")", result.worst(), keys));
         List<String> header = new ArrayList<>(List.of("run"));
         keys.forEach(key -> header.add(key + " x"));
-        header.addAll(List.of("stability", "overshoot (%)", "settling time (s)", "IAE"));
+        header.addAll(List.of("stability", "overshoot (%)", "settling time (s)", iaeTitle(result)));
         return new HtmlTable("The nominal and the worst run (unstable first, then unsettled, then the largest IAE)",
                 header, rows);
+    }
+
+    /** "IAE (bar·s)": in the scenario's process unit, as simulate's table gives it. */
+    private static String iaeTitle(SweepResult result) {
+        return Units.axis("IAE", result.scenario().units().processSeconds());
     }
 
     /** The factors a run is shown with: all three of a linear plant, the spread ones of a nonlinear plant. */

@@ -84,8 +84,9 @@ class SweepCommandTest {
         CommandRun run = CommandRun.of("sweep", file.toString(), "--runs", "8", "--spread", "gain=50%", "--seed", "5",
                 "--out", dir.resolve("out").toString(), "--no-progress");
         assertThat(run.exitCode()).as(run.err()).isZero();
+        // the scenario names no units: IAE in the word PV, as simulate's table says it
         assertThat(run.out()).contains("8 runs, seed 5").contains("unstable: ").contains("overshoot (%)")
-                .contains("settling time (2 %, s)").contains("IAE").contains("time saturated (%)")
+                .contains("settling time (2 %, s)").contains("IAE (PV·s)").contains("time saturated (%)")
                 .containsPattern("worst run #\\d+: unstable; gain x").contains("gain ±50% of the nominal")
                 .contains("nominal plant: unstable"); // K = 8 is on the continuous boundary, beyond the sampled one
         assertThat(run.err()).isEmpty();
