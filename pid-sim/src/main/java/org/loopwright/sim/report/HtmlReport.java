@@ -54,12 +54,16 @@ public final class HtmlReport {
             thead th{background:#eee;font-weight:600}
             td.hash{font-family:monospace;font-size:.9em}
             table.signoff{width:100%}table.signoff td{height:2.2em}
+            table.wide{font-size:.72em}table.wide th,table.wide td{padding:.15em .25em}
             figure{margin:1em 0}figure svg,figure img{max-width:100%;height:auto}
             pre{background:#f6f6f6;padding:.5em;white-space:pre-wrap}
             @page{size:A4;margin:15mm}
-            @media print{body{max-width:none;margin:0;font-size:9pt}table{font-size:8pt}
+            @media print{body{max-width:none;margin:0;font-size:9pt}table{font-size:8pt}table.wide{font-size:6.5pt}
             figure,table,.caution{break-inside:avoid}h2{break-after:avoid}}
             """;
+
+    /** Above this many columns a table is set in a smaller type. */
+    private static final int WIDE_COLUMNS = 12;
 
     /** A cell that is a number, or stands for one that does not apply: right-aligned. */
     private static final Pattern NUMBER = Pattern.compile("[-+]?[0-9.]+(e[-+]?[0-9]+)?|-|n/a|NaN|Infinity",
@@ -179,7 +183,8 @@ public final class HtmlReport {
     }
 
     private static void table(StringBuilder html, HtmlTable table) {
-        html.append("<div>\n<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
+        // a table of many columns (design's candidates) is set smaller so it fits the page and the print
+        html.append(table.header().size() > WIDE_COLUMNS ? "<div>\n<table class=\"wide\">\n<caption>" : "<div>\n<table>\n<caption>").append(escape(table.caption())).append("</caption>\n<thead><tr>");
         for (String name : table.header()) {
             html.append("<th scope=\"col\">").append(escape(name)).append("</th>");
         }
