@@ -1,7 +1,8 @@
 package org.loopwright.sim.replay;
 
 import java.io.IOException;
-import java.io.Writer;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -63,8 +64,8 @@ public final class Replay {
     /**
      * Replays a trace as it is read: rows are read, replayed in order and written to {@code out} (the
      * trace's columns, the logged {@code output} renamed {@code logged_output}, then
-     * {@link TraceFile#OUTPUT_COLUMNS}) a batch at a time, on threads of their own, so memory does not
-     * grow with the trace. On an error {@code out} holds a part of the result: write it to a file
+     * {@link TraceFile#OUTPUT_COLUMNS}) as UTF-8 a batch at a time, on threads of their own, so memory
+     * does not grow with the trace. On an error {@code out} holds a part of the result: write it to a file
      * that is moved into place only when this returns.
      *
      * @param measuredPeriod      take each row's period from the {@code time} column
@@ -73,7 +74,7 @@ public final class Replay {
      * @throws InputFileException for a bad row, an empty trace, or a start from a logged output the trace lacks
      */
     public static ReplaySummary stream(ControllerSettings settings, TraceReader trace, boolean measuredPeriod,
-            boolean startFromLoggedOutput, Writer out) throws IOException {
+            boolean startFromLoggedOutput, OutputStream out) throws IOException {
         if (startFromLoggedOutput && !trace.hasLoggedOutput()) {
             throw InputFileException.inRow(trace.fileName(), 1, TraceFile.LOGGED_OUTPUT, "is needed to start from the"
                     + " logged output; the header has " + String.join(", ", trace.header()));
@@ -81,7 +82,9 @@ public final class Replay {
         ReplayEngine engine = new ReplayEngine(settings, measuredPeriod, startFromLoggedOutput, trace.hasFeedforward(),
                 trace.hasTrackValue());
         ReplaySummary.Accumulator summary = new ReplaySummary.Accumulator(settings, measuredPeriod);
-        printRow(out, resultHeader(trace.header()));
+        StringBuilder header = new StringBuilder();
+        printRow(header, resultHeader(trace.header()));
+        out.write(header.toString().getBytes(StandardCharsets.UTF_8));
         new ReplayPipeline(trace, engine, summary).run(out);
         if (summary.rows() == 0) {
             throw InputFileException.whole(trace.fileName(), "has a header but no data rows");

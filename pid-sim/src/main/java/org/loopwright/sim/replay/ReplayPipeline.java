@@ -2,7 +2,8 @@ package org.loopwright.sim.replay;
 
 import java.io.IOException;
 import java.io.InterruptedIOException;
-import java.io.Writer;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayDeque;
 import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.BlockingQueue;
@@ -10,6 +11,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.Semaphore;
 
 import org.loopwright.pid.Fault;
 import org.loopwright.pid.PidController;
@@ -19,38 +21,38 @@ import org.loopwright.pid.PidController;
  * controller stays on one: a reader thread reads and checks rows, the caller's thread runs the
  * controller over them in order, a pool turns finished rows into text (the shortest exact decimals
  * of four numbers a row were most of a replay's time), and the caller writes that text in order.
- * Rows travel in batches drawn from a fixed set, so memory does not grow with the trace: the reader
- * waits while every batch is in use. A bad row's error reaches the caller when the controller gets
+ * Rows travel in batches, at most {@link #BATCHES} at a time, so memory does not grow with the
+ * trace: the reader waits while that many are in use. A bad row's error reaches the caller when the controller gets
  * to that row, as it would reading on one thread.
  *
  * <p>Used once, by one thread.
  */
 final class ReplayPipeline {
 
-    /** Rows in a batch: large enough that handing a batch over costs little per row. */
-    static final int ROWS_PER_BATCH = 4096;
+    /**
+     * Rows in a batch: enough that handing a batch over costs little per row, few enough that the
+     * batches in use (their cells held as strings) add little to what the collector copies.
+     */
+    static final int ROWS_PER_BATCH = 1024;
     /** Batches being formatted or waiting to be written, at most. */
     private static final int IN_FLIGHT = 4;
-    /** Every batch: those in flight, one with the controller, the rest for the reader to fill. */
+    /** Batches at a time: those in flight, one with the controller, the rest filled ahead by the reader. */
     private static final int BATCHES = 2 * IN_FLIGHT + 1;
 
     private final TraceReader trace;
     private final ReplayEngine engine;
     private final ReplaySummary.Accumulator summary;
-    private final BlockingQueue<Batch> empty = new ArrayBlockingQueue<>(BATCHES);
+    private final Semaphore batchesFree = new Semaphore(BATCHES);
     private final BlockingQueue<Batch> filled = new ArrayBlockingQueue<>(BATCHES);
 
     ReplayPipeline(TraceReader trace, ReplayEngine engine, ReplaySummary.Accumulator summary) {
         this.trace = trace;
         this.engine = engine;
         this.summary = summary;
-        for (int i = 0; i < BATCHES; i++) {
-            empty.add(new Batch());
-        }
     }
 
     /** Replays every row, writing each result row to {@code out} in the trace's order. */
-    void run(Writer out) throws IOException {
+    void run(OutputStream out) throws IOException {
         Thread reader = new Thread(this::read, "replay-reader");
         reader.setDaemon(true);
         int formatters = Math.min(IN_FLIGHT, Runtime.getRuntime().availableProcessors());
@@ -67,7 +69,7 @@ final class ReplayPipeline {
                 batch = filled.take();
                 control(batch);
                 inFlight.add(formatting.submit(batch::format));
-                while (inFlight.size() >= IN_FLIGHT || !inFlight.isEmpty() && inFlight.peek().isDone()) {
+                while (inFlight.size() >= IN_FLIGHT || (!inFlight.isEmpty() && inFlight.peek().isDone())) {
                     write(inFlight.remove(), out);
                 }
             } while (!batch.last);
@@ -88,11 +90,13 @@ final class ReplayPipeline {
         try {
             boolean more = true;
             while (more) {
-                Batch batch = empty.take();
-                batch.size = 0;
+                batchesFree.acquire();
+                Batch batch = new Batch();
                 try {
-                    while (batch.size < ROWS_PER_BATCH && trace.next(batch.rows[batch.size])) {
-                        batch.size++;
+                    TraceRow row = new TraceRow();
+                    while (batch.size < ROWS_PER_BATCH && trace.next(row)) {
+                        batch.rows[batch.size++] = row;
+                        row = new TraceRow();
                     }
                     more = batch.size == ROWS_PER_BATCH;
                 } catch (RuntimeException | Error e) {
@@ -128,7 +132,7 @@ final class ReplayPipeline {
         }
     }
 
-    private void write(Future<Batch> formatted, Writer out) throws IOException, InterruptedException {
+    private void write(Future<Batch> formatted, OutputStream out) throws IOException, InterruptedException {
         Batch batch;
         try {
             batch = formatted.get();
@@ -138,11 +142,11 @@ final class ReplayPipeline {
             }
             throw new IllegalStateException("formatting a batch of the replay failed", e.getCause());
         }
-        batch.writeTo(out);
-        empty.put(batch);
+        out.write(batch.bytes);
+        batchesFree.release();
     }
 
-    /** Rows with their results and, once formatted, their text. */
+    /** Rows with their results and, once formatted, their text in UTF-8. */
     private static final class Batch {
         final TraceRow[] rows = new TraceRow[ROWS_PER_BATCH];
         final double[] output = new double[ROWS_PER_BATCH];
@@ -150,39 +154,24 @@ final class ReplayPipeline {
         final double[] integral = new double[ROWS_PER_BATCH];
         final double[] derivative = new double[ROWS_PER_BATCH];
         final Fault[] status = new Fault[ROWS_PER_BATCH];
-        final RepeatedDecimal outputText = new RepeatedDecimal();
-        final RepeatedDecimal proportionalText = new RepeatedDecimal();
-        final RepeatedDecimal integralText = new RepeatedDecimal();
-        final RepeatedDecimal derivativeText = new RepeatedDecimal();
-        final StringBuilder text = new StringBuilder();
-        char[] chars = new char[0];
+        byte[] bytes;
         int size;
         boolean last;
         Throwable failure;
 
-        Batch() {
-            for (int k = 0; k < ROWS_PER_BATCH; k++) {
-                rows[k] = new TraceRow();
-            }
-        }
-
         Batch format() {
-            text.setLength(0);
+            RepeatedDecimal outputText = new RepeatedDecimal();
+            RepeatedDecimal proportionalText = new RepeatedDecimal();
+            RepeatedDecimal integralText = new RepeatedDecimal();
+            RepeatedDecimal derivativeText = new RepeatedDecimal();
+            StringBuilder text = new StringBuilder(ROWS_PER_BATCH * 96);
             for (int k = 0; k < size; k++) {
                 Replay.appendResultRow(text, rows[k].cells(), outputText.text(output[k]),
                         proportionalText.text(proportional[k]), integralText.text(integral[k]),
                         derivativeText.text(derivative[k]), ReplayResult.statusWord(status[k]));
             }
+            bytes = text.toString().getBytes(StandardCharsets.UTF_8);
             return this;
-        }
-
-        void writeTo(Writer out) throws IOException {
-            int length = text.length();
-            if (chars.length < length) {
-                chars = new char[length];
-            }
-            text.getChars(0, length, chars, 0);
-            out.write(chars, 0, length);
         }
     }
 }

@@ -3,9 +3,11 @@ package org.loopwright.sim.replay;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.StringReader;
-import java.io.StringWriter;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.Random;
 
 import org.junit.jupiter.params.ParameterizedTest;
@@ -41,13 +43,13 @@ class ReplayPipelineTest {
         ReplayResult inMemory = Replay.run(SETTINGS, TraceFile.parse("log.csv", trace), false);
         inMemory.writeCsv(expected);
 
-        StringWriter streamed = new StringWriter();
+        ByteArrayOutputStream streamed = new ByteArrayOutputStream();
         ReplaySummary summary;
         try (TraceReader reader = TraceReader.of("log.csv", new StringReader(trace))) {
             summary = Replay.stream(SETTINGS, reader, false, false, streamed);
         }
 
-        assertThat(streamed.toString()).isEqualTo(expected.toString());
+        assertThat(streamed.toString(StandardCharsets.UTF_8)).isEqualTo(expected.toString());
         assertThat(summary.lines()).isEqualTo(ReplaySummary.of(inMemory).lines());
         assertThat(summary.rows()).isEqualTo(rows);
     }
@@ -62,7 +64,7 @@ class ReplayPipelineTest {
                 + " or blank, nan or inf for a bad sample: measurement=oops");
 
         try (TraceReader reader = TraceReader.of("log.csv", new StringReader(trace))) {
-            assertThatThrownBy(() -> Replay.stream(SETTINGS, reader, false, false, new StringWriter()))
+            assertThatThrownBy(() -> Replay.stream(SETTINGS, reader, false, false, OutputStream.nullOutputStream()))
                     .isInstanceOf(InputFileException.class)
                     .hasMessage(expected);
         }
