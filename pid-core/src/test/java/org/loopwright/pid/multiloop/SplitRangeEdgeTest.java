@@ -33,12 +33,13 @@ class SplitRangeEdgeTest {
 
     @Test
     void itReportsTheSplitItWasBuiltWith() {
-        SplitRange s = new SplitRange(PERCENT, 40.0, 6.0, COOLING, HEATING);
+        SplitRange s = new SplitRange(ControllerSettings.builder().gains(IdealGains.pi(1.0, 10.0))
+                .samplePeriodSeconds(1.0).outputRange(-50.0, 150.0).build(), 40.0, 6.0, COOLING, HEATING);
         assertThat(s.splitAt()).isEqualTo(40.0);
         assertThat(s.gap()).isEqualTo(6.0);
         assertThat(s.firstRange()).isEqualTo(COOLING);
         assertThat(s.secondRange()).isEqualTo(HEATING);
-        assertThat(s.outputMin()).isEqualTo(0.0);
-        assertThat(s.outputMax()).isEqualTo(100.0);
+        assertThat(s.outputMin()).isEqualTo(-50.0);
+        assertThat(s.outputMax()).isEqualTo(150.0);
     }
 }
