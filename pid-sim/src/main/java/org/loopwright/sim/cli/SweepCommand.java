@@ -173,7 +173,7 @@ public final class SweepCommand implements Callable<Integer> {
         }
         Sweep sweep = new Sweep(scenario, spread, seed);
         boolean json = output.json();
-        Path outDirectory = output.directory("sweep");
+        Path outDirectory = output.directory();
         SweepResult result;
         try (SweepProgress progress = !json && !noProgress && System.console() != null
                 ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
@@ -182,14 +182,12 @@ public final class SweepCommand implements Callable<Integer> {
         String title = String.valueOf(scenarioFile.getFileName());
         List<Path> written;
         // staged, then moved: a run that fails half way leaves no half-written file behind
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+        try (OutputStage stage = output.stage()) {
             written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title, scenario.units()));
             written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
                     HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
             stage.commit();
-        } catch (IOException e) {
-            throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
         }
         if (json) {
             out.println(JsonOutput.text(SweepJson.Sweep.of(result, threadCount)));
