@@ -138,8 +138,8 @@ public final class SweepCommand implements Callable<Integer> {
     @Mixin
     private OutputOptions output;
 
-    @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
-    private boolean noProgress;
+    @Mixin
+    private ProgressOption progressOption;
 
     @Override
     public Integer call() throws IOException {
@@ -175,8 +175,7 @@ public final class SweepCommand implements Callable<Integer> {
         boolean json = output.json();
         Path outDirectory = output.directory();
         SweepResult result;
-        try (SweepProgress progress = !json && !noProgress && System.console() != null
-                ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
+        try (SweepProgress progress = progressOption.progress(json, runs)) {
             result = sweep.run(runs, threadCount, progress);
         }
         String title = String.valueOf(scenarioFile.getFileName());
@@ -194,8 +193,8 @@ public final class SweepCommand implements Callable<Integer> {
         } else {
             out.println(header(result, threadCount));
             out.print(text(table(result)));
-            out.println(describe("worst run", result.worst(), shownKeys(result)));
-            out.println(describe("nominal plant", result.nominal(), shownKeys(result)));
+            out.println(describe("worst run", result.worst(), result));
+            out.println(describe("nominal plant", result.nominal(), result));
             out.println("Wrote " + written.stream().map(p -> String.valueOf(p.getFileName())).toList() + " in "
                     + outDirectory);
         }
@@ -266,7 +265,12 @@ public final class SweepCommand implements Callable<Integer> {
 
     /** "IAE (bar·s)": in the scenario's process unit, as simulate's table gives it. */
     private static String iaeTitle(SweepResult result) {
-        return Units.axis("IAE", result.scenario().units().processSeconds());
+        return Units.axis("IAE", iaeUnit(result));
+    }
+
+    /** IAE's unit: the scenario's process unit times seconds ("bar·s", "PV·s" when none is named). */
+    private static String iaeUnit(SweepResult result) {
+        return result.scenario().units().processSeconds();
     }
 
     /** The factors a run is shown with: all three of a linear plant, the spread ones of a nonlinear plant. */
@@ -298,7 +302,8 @@ public final class SweepCommand implements Callable<Integer> {
         return t.toString();
     }
 
-    private static String describe(String name, SweepRun run, List<String> keys) {
+    private static String describe(String name, SweepRun run, SweepResult result) {
+        List<String> keys = shownKeys(result);
         String plant;
         if (run.plant() instanceof TransferFunction linear) {
             plant = String.format(Locale.ROOT, "gain x%s, time constants x%s, dead time x%s: plant %s/%s,"
@@ -320,7 +325,7 @@ public final class SweepCommand implements Callable<Integer> {
         return String.format(Locale.ROOT, "%s%s: %s; %s; overshoot %s, settling time %s, IAE %s", name,
                 run.index() == Sweep.NOMINAL_INDEX ? "" : " #" + run.index(), word(run.stability()), plant,
                 number(run.metrics().overshootPercent(), " %"), number(run.metrics().settlingTimeSeconds(), " s"),
-                number(run.metrics().iae()));
+                number(run.metrics().iae(), " " + iaeUnit(result)));
     }
 
     private static String number(double value) {
