@@ -14,7 +14,8 @@ import org.loopwright.pid.tuning.UltimatePointRule;
 /**
  * What the library reports about itself gives back what it was given: forms, rule names, the
  * on-off state, setting accessors (issue 11: the mutation run found these read by no test, so a
- * wrong value would have reached the harness's files and reports unnoticed).
+ * wrong value would have reached the harness's files and reports unnoticed). A one-value output
+ * range is pinned by {@code ControllerBoundaryTest}.
  */
 class ReportedValuesTest {
 
@@ -52,13 +53,5 @@ class ReportedValuesTest {
         assertThat(s.derivativeFilterRatio()).isEqualTo(8.0);
         // the fixed-period coefficients are those of the configured period (the accessors' contract)
         assertThat(s.discretePid()).isEqualTo(s.discretePid(0.1));
-    }
-
-    @Test
-    void anOutputRangeOfOneValueIsAllowed() {
-        // outputMin must be <= outputMax: equal is a fixed output (a loop parked at a value), and the output is it
-        ControllerSettings s = ControllerSettings.builder().gains(IdealGains.pi(2.0, 10.0)).samplePeriodSeconds(0.1)
-                .outputRange(5.0, 5.0).build();
-        assertThat(new PidController(s).update(1.0, 0.0)).isEqualTo(5.0);
     }
 }
