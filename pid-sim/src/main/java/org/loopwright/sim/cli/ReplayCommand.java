@@ -1,10 +1,9 @@
 package org.loopwright.sim.cli;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.PrintWriter;
 import java.io.StringReader;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
@@ -36,8 +35,8 @@ import picocli.CommandLine.Spec;
                 "Without --controller and --trace, replays the built-in water bath demo (invented demo data)."})
 public final class ReplayCommand implements Callable<Integer> {
 
-    /** Where the output goes when --out is not given: this file in the current directory. */
-    public static final String DEFAULT_OUT = "replay-output.csv";
+    /** Where the output goes when --out is not given: a folder named after the command, as the others write into. */
+    private static final String DEFAULT_OUT = "loopwright-replay/replay-output.csv";
 
     @Spec
     private CommandSpec spec;
@@ -51,8 +50,8 @@ public final class ReplayCommand implements Callable<Integer> {
                     + " written back as logged_output); other columns are passed through.")
     private Path traceFile;
 
-    @Option(names = "--out", paramLabel = "OUT.csv", description = "Where to write the output CSV (default: "
-            + DEFAULT_OUT + " in the current directory).")
+    @Option(names = "--out", paramLabel = "OUT.csv", description = "Where to write the output CSV, its folder created if"
+            + " need be (default: " + DEFAULT_OUT + ").")
     private Path outFile;
 
     @Option(names = "--measured-period",
@@ -91,9 +90,8 @@ public final class ReplayCommand implements Callable<Integer> {
         try (TraceReader trace = demo ? TraceReader.of(traceName, new StringReader(ReplayDemo.traceText()))
                 : TraceReader.open(traceFile);
                 OutputStage stage = OutputStage.in(target.getParent(), "--out")) {
-            try (Writer writer = Files.newBufferedWriter(stage.directory().resolve(target.getFileName().toString()),
-                    StandardCharsets.UTF_8)) {
-                summary = Replay.stream(settings, trace, measuredPeriod, startFromLoggedOutput, writer);
+            try (OutputStream file = Files.newOutputStream(stage.directory().resolve(target.getFileName().toString()))) {
+                summary = Replay.stream(settings, trace, measuredPeriod, startFromLoggedOutput, file);
             }
             stage.commit();
         }

@@ -6,11 +6,13 @@ import java.util.List;
 
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
+import net.jqwik.api.Assume;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 import org.hipparchus.analysis.polynomials.PolynomialFunction;
 import org.hipparchus.complex.Complex;
+import org.hipparchus.exception.MathIllegalStateException;
 
 /**
  * The check that accepts a polynomial's roots runs Horner's rule in two doubles instead of a {@link Complex}
@@ -35,8 +37,14 @@ class RootResidualProperties {
     @Property(tries = 1000)
     void sameFigureAsComplexArithmeticAtTheRoots(@ForAll("coefficients") List<Double> ascending) {
         double[] c = ascending.stream().mapToDouble(Double::doubleValue).toArray();
-        Complex[] roots = PolynomialRoots.of(new PolynomialFunction(c))
-                .toArray(Complex[]::new);
+        Complex[] roots;
+        try {
+            roots = PolynomialRoots.of(new PolynomialFunction(c)).toArray(Complex[]::new);
+        } catch (MathIllegalStateException noConvergence) {
+            // Hipparchus' Schur iteration gives up on a few random polynomials: no roots to check at
+            roots = null;
+        }
+        Assume.that(roots != null);
         assertThat(PolynomialRoots.worstResidual(c, roots)).isEqualTo(byComplex(c, roots));
     }
 
