@@ -2,7 +2,6 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -26,6 +25,7 @@ import org.loopwright.sim.report.JsonOutput;
 import org.loopwright.sim.report.ReportRecord;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -84,12 +84,9 @@ public final class AssessCommand implements Callable<Integer> {
                     + " whether the stiction test applies (default: ${DEFAULT-VALUE}).")
     private ProcessKind kind;
 
-    @Option(names = "--out", paramLabel = "DIR", description = "Directory for the plots and report.html (created if"
-            + " need be); without it nothing is written.")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print one JSON object instead of the table.")
-    private boolean json;
+    /** Without --out, assess prints its table and writes no files. */
+    @Mixin
+    private OutputOptions output;
 
     @Spec
     private CommandSpec spec;
@@ -108,15 +105,19 @@ public final class AssessCommand implements Callable<Integer> {
         AssessmentOptions options = options(loop, controller, kind, assumptions);
         Assessment assessment = LoopAssessment.of(loop, options);
         List<Path> written = List.of();
-        if (outDirectory != null) {
-            Files.createDirectories(outDirectory);
+        if (output.givenDirectory().isPresent()) {
             List<Path> inputFiles = controllerFile == null ? List.of(traceFile) : List.of(traceFile, controllerFile);
             ReportRecord record = ReportRecord.of(BuildVersion.line(),
                     spec.root().commandLine().getParseResult().originalArgs(), inputFiles,
                     controller == null ? Map.of() : ControllerFile.resolved(controller));
-            written = AssessmentReport.write(outDirectory, record, loop, assessment, inputs(options, assumptions));
+            // staged, then moved: a run that fails half way leaves no half-written file behind
+            try (OutputStage stage = output.stage()) {
+                written = AssessmentReport.write(stage.directory(), record, loop, assessment,
+                        inputs(options, assumptions));
+                stage.commit();
+            }
         }
-        if (json) {
+        if (output.json()) {
             assumptions.forEach(a -> err.println("assumed: " + a));
             out.println(JsonOutput.text(AssessmentReport.json(assessment)));
         } else {
@@ -127,7 +128,7 @@ public final class AssessCommand implements Callable<Integer> {
             assumptions.forEach(a -> out.println("Assumed: " + a));
             if (!written.isEmpty()) {
                 out.println("Wrote " + String.join(", ", written.stream().map(p -> String.valueOf(p.getFileName()))
-                        .toList()) + " in " + outDirectory);
+                        .toList()) + " in " + output.directory());
             }
         }
         out.flush();

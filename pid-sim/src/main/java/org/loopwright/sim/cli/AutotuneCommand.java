@@ -26,6 +26,7 @@ import org.loopwright.sim.tuning.TuningCandidate;
 import org.loopwright.sim.tuning.TuningEvaluation;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -82,8 +83,8 @@ public final class AutotuneCommand implements Callable<Integer> {
             description = "${COMPLETION-CANDIDATES} for --write-controller (default: ${DEFAULT-VALUE}).")
     private ControllerType writtenType;
 
-    @Option(names = "--json", description = "Print JSON instead of text.")
-    private boolean json;
+    @Mixin
+    private JsonOption output;
 
     @Override
     public Integer call() throws IOException {
@@ -126,7 +127,7 @@ public final class AutotuneCommand implements Callable<Integer> {
             }
             TuneCommand.write(controllerOut, ControllerFile.toYaml(chosen.settings()));
         }
-        if (json) {
+        if (output.json()) {
             out.println(JsonOutput.text(new AutotuneJson(relay.ultimateGain(), relay.ultimatePeriodSeconds(),
                     relay.amplitude(), relay.cycles(), relay.settings().setpoint(), relay.settings().bias(),
                     relay.settings().relayAmplitude(), relay.settings().hysteresis(), relay.warnings(),

@@ -14,7 +14,6 @@ import java.util.stream.Collectors;
 
 import org.loopwright.sim.config.ControllerFile;
 import org.loopwright.sim.config.InputException;
-import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.Keywords;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.frequency.SampledLoop;
@@ -69,7 +68,7 @@ public final class CompareCommand implements Callable<Integer> {
     private OutputOptions output;
 
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         LinearLoopFile loop = LinearLoopFile.read(scenarioFile, "compare");
@@ -80,27 +79,26 @@ public final class CompareCommand implements Callable<Integer> {
                 DiscretisationStudy.crossover(LoopAnalysis.continuous(loop.plant(), loop.settings())),
                 loop.settings().samplePeriodSeconds());
         StudyResult result = DiscretisationStudy.run(loop.scenario(), chosen);
+        List<Path> written = List.of();
+        if (output.givenDirectory().isPresent()) {
+            // staged, then moved: a run that fails half way leaves no half-written file behind
+            try (OutputStage stage = output.stage()) {
+                written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
+                written.add(HtmlReports.compare(stage.directory(), HtmlReports.record(spec, loop.scenario(),
+                        scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
+                        StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
+                stage.commit();
+            }
+        }
         boolean json = output.json();
         if (json) {
             out.println(JsonOutput.text(result.rows().stream().map(RowJson::of).toList()));
         } else {
             table(out, result, periods == null, loop.scenario().units());
         }
-        if (output.givenDirectory().isPresent()) {
-            Path outDirectory = output.givenDirectory().get();
-            List<Path> written;
-            // staged, then moved: a run that fails half way leaves no half-written file behind
-            try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
-                written = new ArrayList<>(StudyPlots.write(result, stage.directory()));
-                written.add(HtmlReports.compare(stage.directory(), HtmlReports.record(spec, loop.scenario(),
-                        scenarioFile), String.valueOf(scenarioFile.getFileName()), result,
-                        StudyTable.of(result, loop.scenario().units()), written, Files.readString(scenarioFile)));
-                stage.commit();
-            } catch (IOException e) {
-                throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
-            }
-            (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + outDirectory);
-            (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + outDirectory);
+        if (!written.isEmpty()) {
+            (json ? err : out).println("Wrote " + (written.size() - 1) + " plot files to " + output.directory());
+            (json ? err : out).println("Wrote " + HtmlReport.FILE_NAME + " to " + output.directory());
         }
         out.flush();
         err.flush();

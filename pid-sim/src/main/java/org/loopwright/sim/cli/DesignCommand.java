@@ -127,12 +127,9 @@ public final class DesignCommand implements Callable<Integer> {
     @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of the sweep (default: ${DEFAULT-VALUE}).")
     private long seed;
 
-    @Option(names = "--out", paramLabel = "DIR", defaultValue = "design",
-            description = "Folder for the files (default: ${DEFAULT-VALUE}, in the working directory).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print design.json instead of text (no progress bar).")
-    private boolean json;
+    /** --json prints design.json. */
+    @Mixin
+    private OutputOptions output;
 
     @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
     private boolean noProgress;
@@ -142,6 +139,7 @@ public final class DesignCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         DesignSpec designSpec = specification();
         DesignModel model = model();
+        boolean json = output.json();
         boolean bar = !json && !noProgress && System.console() != null;
         int threads = Runtime.getRuntime().availableProcessors();
         DesignResult result;
@@ -156,14 +154,14 @@ public final class DesignCommand implements Callable<Integer> {
                 .orElse(Map.of()));
         List<String> files;
         // staged, then moved: a run that fails half way leaves no half-written file behind
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+        try (OutputStage stage = output.stage()) {
             files = DesignFiles.write(result, stage.directory(), record);
             stage.commit();
         }
         if (json) {
             out.println(JsonOutput.text(DesignFiles.json(result, files)));
         } else {
-            DesignFiles.printText(out, result, files, outDirectory);
+            DesignFiles.printText(out, result, files, output.directory());
         }
         out.flush();
         return 0;

@@ -84,8 +84,8 @@ public final class IdentifyCommand implements Callable<Integer> {
 
     private Path writePlot(StepTest test, IdentifiedModel fit, ModelKind kind) throws IOException {
         String name = "identify-" + kind.label() + ".png";
-        Path directory = output.directory("identify");
-        try (OutputStage stage = OutputStage.in(directory, "--out")) {
+        Path directory = output.directory();
+        try (OutputStage stage = output.stage()) {
             IdentificationPlot.writePng(stage.directory().resolve(name), test, fit);
             stage.commit();
         }

@@ -23,8 +23,8 @@ import org.loopwright.sim.scenario.InnerLoop;
 
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
@@ -42,7 +42,8 @@ import picocli.CommandLine.Spec;
         description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop, continuous and sampled.",
                 "The sampled loop has the controller at z = e^(jωh) and the plant by its zero-order-hold equivalent;",
                 "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller.",
-                "A cascade (inner key) gives the inner loop alone and the outer loop with the inner loop closed."})
+                "A cascade (inner key) gives the inner loop alone and the outer loop with the inner loop closed.",
+                "JSON keys: continuous and sampled (for a cascade: inner and outer, each with both)."})
 public final class MarginsCommand implements Callable<Integer> {
 
     /** What the robustness figures of an unstable loop are. */
@@ -57,9 +58,8 @@ public final class MarginsCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SCENARIO.yaml", description = "The scenario file.")
     private Path scenarioFile;
 
-    @Option(names = "--json", description = "Print one JSON object with keys continuous and sampled"
-            + " (for a cascade: inner and outer, each with both).")
-    private boolean json;
+    @Mixin
+    private JsonOption output;
 
     @Override
     public Integer call() {
@@ -77,7 +77,7 @@ public final class MarginsCommand implements Callable<Integer> {
             int sensorDelay = loop.scenario().sensor().delaySamples();
             SampledMargins outerSampled = CascadeAnalysis.outerSampled(loop.plant(), settings, innerPlant,
                     innerSettings, sensorDelay);
-            if (json) {
+            if (output.json()) {
                 out.println(JsonOutput.text(new MarginsJson.Cascade(
                         MarginsJson.Loop.of(innerSettings, 0, innerContinuous, innerSampled, Optional.empty(), NOT_MEANINGFUL),
                         MarginsJson.Loop.of(settings, sensorDelay, outerContinuous, outerSampled, Optional.empty(),
@@ -98,7 +98,7 @@ public final class MarginsCommand implements Callable<Integer> {
         SampledLoop sampledLoop = loop.scenario().sampledLoop().orElseThrow();
         SampledMargins sampled = LoopAnalysis.sampled(sampledLoop);
         Optional<GainRange> range = LoopAnalysis.stableGainRange(sampledLoop);
-        if (json) {
+        if (output.json()) {
             out.println(JsonOutput.text(MarginsJson.Loop.of(settings, sampledLoop.sensorDelaySamples(), continuous,
                     sampled, range, NOT_MEANINGFUL)));
         } else {

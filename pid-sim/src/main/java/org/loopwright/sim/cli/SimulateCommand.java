@@ -91,10 +91,9 @@ public final class SimulateCommand implements Callable<Integer> {
         Optional<LimitCycle> cycle = scenario.onOffController().isPresent()
                 ? LimitCycle.of(trajectory, 0.5 * scenario.durationSeconds()) : Optional.empty();
 
-        Path outDirectory = output.directory("simulate");
-        ResultTable table = MetricsReport.table(metrics, cycle, scenario.units());
+                ResultTable table = MetricsReport.table(metrics, cycle, scenario.units());
         // staged, then moved: a run that fails half way leaves no half-written file behind
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+        try (OutputStage stage = output.stage()) {
             Path directory = stage.directory();
             TrajectoryCsv.write(trajectory, directory.resolve("trajectory.csv"));
             System.setProperty("java.awt.headless", "true");
@@ -124,7 +123,7 @@ public final class SimulateCommand implements Callable<Integer> {
             out.print(table.text());
             out.println(MonitorVerdict.of(scenario, trajectory));
             out.println("Wrote trajectory.csv, response.png, response.svg" + (trajectory.hasInnerLoop()
-                    ? ", inner-loop.png, inner-loop.svg" : "") + " and report.html in " + outDirectory);
+                    ? ", inner-loop.png, inner-loop.svg" : "") + " and report.html in " + output.directory());
         }
         out.flush();
         return 0;

@@ -173,7 +173,7 @@ public final class SweepCommand implements Callable<Integer> {
         }
         Sweep sweep = new Sweep(scenario, spread, seed);
         boolean json = output.json();
-        Path outDirectory = output.directory("sweep");
+        Path outDirectory = output.directory();
         SweepResult result;
         try (SweepProgress progress = !json && !noProgress && System.console() != null
                 ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
@@ -182,22 +182,20 @@ public final class SweepCommand implements Callable<Integer> {
         String title = String.valueOf(scenarioFile.getFileName());
         List<Path> written;
         // staged, then moved: a run that fails half way leaves no half-written file behind
-        try (OutputStage stage = OutputStage.in(outDirectory, "--out")) {
+        try (OutputStage stage = output.stage()) {
             written = new ArrayList<>(SweepFiles.write(result, stage.directory(), title, scenario.units()));
             written.add(HtmlReport.write(stage.directory().resolve(HtmlReport.FILE_NAME), "Sweep of " + title,
                     HtmlReports.record(spec, scenario, scenarioFile), List.of(header(result, threadCount)), List.of(table(result), runsTable(result)),
                     List.of(written.get(1)), title, Files.readString(scenarioFile, StandardCharsets.UTF_8)));
             stage.commit();
-        } catch (IOException e) {
-            throw InputFileException.whole(outDirectory.toString(), "cannot be written (" + e + ")", e);
         }
         if (json) {
             out.println(JsonOutput.text(SweepJson.Sweep.of(result, threadCount)));
         } else {
             out.println(header(result, threadCount));
             out.print(text(table(result)));
-            out.println(describe("worst run", result.worst(), shownKeys(result)));
-            out.println(describe("nominal plant", result.nominal(), shownKeys(result)));
+            out.println(describe("worst run", result.worst(), result));
+            out.println(describe("nominal plant", result.nominal(), result));
             out.println("Wrote " + written.stream().map(p -> String.valueOf(p.getFileName())).toList() + " in "
                     + outDirectory);
         }
@@ -268,7 +266,12 @@ public final class SweepCommand implements Callable<Integer> {
 
     /** "IAE (bar·s)": in the scenario's process unit, as simulate's table gives it. */
     private static String iaeTitle(SweepResult result) {
-        return Units.axis("IAE", result.scenario().units().processSeconds());
+        return Units.axis("IAE", iaeUnit(result));
+    }
+
+    /** IAE's unit: the scenario's process unit times seconds ("bar·s", "PV·s" when none is named). */
+    private static String iaeUnit(SweepResult result) {
+        return result.scenario().units().processSeconds();
     }
 
     /** The factors a run is shown with: all three of a linear plant, the spread ones of a nonlinear plant. */
@@ -300,7 +303,8 @@ public final class SweepCommand implements Callable<Integer> {
         return t.toString();
     }
 
-    private static String describe(String name, SweepRun run, List<String> keys) {
+    private static String describe(String name, SweepRun run, SweepResult result) {
+        List<String> keys = shownKeys(result);
         String plant;
         if (run.plant() instanceof TransferFunction linear) {
             plant = String.format(Locale.ROOT, "gain x%s, time constants x%s, dead time x%s: plant %s/%s,"
@@ -322,7 +326,7 @@ public final class SweepCommand implements Callable<Integer> {
         return String.format(Locale.ROOT, "%s%s: %s; %s; overshoot %s, settling time %s, IAE %s", name,
                 run.index() == Sweep.NOMINAL_INDEX ? "" : " #" + run.index(), word(run.stability()), plant,
                 number(run.metrics().overshootPercent(), " %"), number(run.metrics().settlingTimeSeconds(), " s"),
-                number(run.metrics().iae()));
+                number(run.metrics().iae(), " " + iaeUnit(result)));
     }
 
     private static String number(double value) {

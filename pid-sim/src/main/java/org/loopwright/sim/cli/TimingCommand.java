@@ -2,7 +2,6 @@ package org.loopwright.sim.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.Locale;
@@ -24,6 +23,7 @@ import com.fasterxml.jackson.annotation.JsonProperty;
 import com.fasterxml.jackson.annotation.JsonUnwrapped;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -81,46 +81,43 @@ public final class TimingCommand implements Callable<Integer> {
                     + " (default: ${DEFAULT-VALUE}).")
     private double marginMicros;
 
-    @Option(names = "--out", paramLabel = "DIR",
-            description = "Write the period-error plot (period-error.png) and HdrHistogram log (period-error.hlog)"
-                    + " into DIR (default: no files).")
-    private Path outDirectory;
-
-    @Option(names = "--json", description = "Print one JSON object instead of the table.")
-    private boolean json;
+    /** Without --out, timing prints its table and writes no files. */
+    @Mixin
+    private OutputOptions output;
 
     @Override
     public Integer call() throws InterruptedException, IOException {
         PrintWriter out = spec.commandLine().getOut();
-        PrintWriter err = spec.commandLine().getErr();
         ControllerSettings settings = controllerSettings();
         long margin = margin();
         Duration each = duration(settings);
-        if (outDirectory != null) {
-            Files.createDirectories(outDirectory);
-        }
-        if (!json) {
-            out.println(CAUTION);
-            out.printf(Locale.ROOT, "Timing the loop runner at %s (h = %.1f µs), %s, wait %s%s, %.1f s per loop:"
-                    + " the runner first, then the baseline...%n", TimingFiles.rate(periodNanos(settings)),
-                    periodNanos(settings) / 1e3, controllerFile == null ? "demo controller (invented numbers)"
-                            : "controller " + controllerFile, strategy.word(),
-                    strategy == WaitStrategy.PARK_THEN_SPIN ? String.format(Locale.ROOT, " (margin %.0f µs)",
-                            margin / 1e3) : "", seconds);
-            out.flush();
-        }
-        LoopTiming.warmUp(settings);
-        TimedRun runner = LoopTiming.runner(settings, strategy, margin, each);
-        TimedRun baseline = LoopTiming.baseline(settings, each);
-        Verdict verdict = Verdict.of(runner.result(), baseline.result());
-        if (outDirectory != null) {
-            TimingFiles.writeLog(outDirectory, runner, baseline);
-            TimingFiles.writePlot(outDirectory, runner, baseline, verdict.budgetNanos / 1e3);
-        }
-        if (json) {
-            out.println(JsonOutput.text(json(runner.result(), baseline.result(), verdict)));
-        } else {
-            printTable(out, runner.result(), baseline.result(), verdict);
+        boolean json = output.json();
+        // staged before the run, so that a --out that cannot be written is said at once (null: no --out, no files)
+        try (OutputStage stage = output.givenDirectory().isPresent() ? output.stage() : null) {
+            if (!json) {
+                out.println(CAUTION);
+                out.printf(Locale.ROOT, "Timing the loop runner at %s (h = %.1f µs), %s, wait %s%s, %.1f s per loop:"
+                        + " the runner first, then the baseline...%n", TimingFiles.rate(periodNanos(settings)),
+                        periodNanos(settings) / 1e3, controllerFile == null ? "demo controller (invented numbers)"
+                                : "controller " + controllerFile, strategy.word(),
+                        strategy == WaitStrategy.PARK_THEN_SPIN ? String.format(Locale.ROOT, " (margin %.0f µs)",
+                                margin / 1e3) : "", seconds);
+                out.flush();
+            }
+            LoopTiming.warmUp(settings);
+            TimedRun runner = LoopTiming.runner(settings, strategy, margin, each);
+            TimedRun baseline = LoopTiming.baseline(settings, each);
+            Verdict verdict = Verdict.of(runner.result(), baseline.result());
+            if (stage != null) {
+                TimingFiles.writeLog(stage.directory(), runner, baseline);
+                TimingFiles.writePlot(stage.directory(), runner, baseline, verdict.budgetNanos / 1e3);
+                stage.commit();
+            }
+            if (json) {
+                out.println(JsonOutput.text(json(runner.result(), baseline.result(), verdict)));
+            } else {
+                printTable(out, runner.result(), baseline.result(), verdict);
+            }
         }
         out.flush();
         return 0;
@@ -270,9 +267,8 @@ public final class TimingCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, row, "period error max µs", micros(runner.maxNanos()), micros(baseline.maxNanos()));
         out.printf(Locale.ROOT, "Verdict: %s: %s.%n", verdict.withinBudget ? "within budget" : "OVER BUDGET",
                 verdict.reason);
-        if (outDirectory != null) {
-            out.printf("Wrote %s and %s%n", outDirectory.resolve(TimingFiles.PLOT), outDirectory.resolve(TimingFiles.LOG));
-        }
+        output.givenDirectory().ifPresent(directory -> out.printf("Wrote %s and %s%n",
+                directory.resolve(TimingFiles.PLOT), directory.resolve(TimingFiles.LOG)));
     }
 
     private static String percent(double fraction) {

@@ -99,8 +99,8 @@ public final class TuneCommand implements Callable<Integer> {
                     + " and --sample-period).")
     private Path controllerOut;
 
-    @Option(names = "--json", description = "Print JSON instead of text.")
-    private boolean json;
+    @Mixin
+    private JsonOption output;
 
     @Override
     public Integer call() {
@@ -178,7 +178,7 @@ public final class TuneCommand implements Callable<Integer> {
             }
             write(controllerOut, ControllerFile.toYaml(candidates.get(0).settings()));
         }
-        if (json) {
+        if (output.json()) {
             out.println(JsonOutput.text(rule == null ? TuningReport.json(candidates)
                     : TuningReport.json(candidates.get(0))));
         } else {

@@ -5,7 +5,6 @@ import java.io.PrintStream;
 import java.math.BigDecimal;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -21,8 +20,8 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
 /**
  * The files of a timing run, so that two devices can be compared: the HdrHistogram log of both
  * loops' period errors (nanoseconds, tagged {@code runner} and {@code baseline}, readable by
- * HdrHistogram's own log tools) and a PNG of the period error against the percentile. Each file is
- * written beside its final name and moved into place, so a reader never sees half a file.
+ * HdrHistogram's own log tools) and a PNG of the period error against the percentile. The caller
+ * writes them into a staging directory and moves them into place, so a reader never sees half a file.
  */
 public final class TimingFiles {
 
@@ -40,8 +39,7 @@ public final class TimingFiles {
     /** Writes the HdrHistogram log of both runs into the directory. */
     public static Path writeLog(Path directory, TimedRun runner, TimedRun baseline) throws IOException {
         Path file = directory.resolve(LOG);
-        Path partial = directory.resolve(LOG + ".partial");
-        try (PrintStream out = new PrintStream(Files.newOutputStream(partial), false, "UTF-8")) {
+        try (PrintStream out = new PrintStream(Files.newOutputStream(file), false, "UTF-8")) {
             HistogramLogWriter log = new HistogramLogWriter(out);
             log.outputComment("loopwright timing: period error |(start(k) - start(k-1)) - h| in nanoseconds, "
                     + runner.result().loop() + " and " + baseline.result().loop() + ", h = "
@@ -51,7 +49,7 @@ public final class TimingFiles {
             log.outputIntervalHistogram(tagged(runner.periodErrors(), "runner"));
             log.outputIntervalHistogram(tagged(baseline.periodErrors(), "baseline"));
         }
-        return Files.move(partial, file, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+        return file;
     }
 
     private static Histogram tagged(Histogram h, String tag) {
@@ -75,10 +73,9 @@ public final class TimingFiles {
         double[] span = {1.0, Math.max(right, 10.0)};
         chart.addSeries(String.format(Locale.ROOT, "budget %.1f µs", budgetMicros), span,
                 new double[] {budgetMicros, budgetMicros}).setMarker(SeriesMarkers.NONE);
-        Path partial = directory.resolve("period-error.partial.png");
-        BitmapEncoder.saveBitmap(chart, partial.toString(), BitmapEncoder.BitmapFormat.PNG);
-        return Files.move(partial, directory.resolve(PLOT), StandardCopyOption.REPLACE_EXISTING,
-                StandardCopyOption.ATOMIC_MOVE);
+        Path file = directory.resolve(PLOT);
+        BitmapEncoder.saveBitmap(chart, file.toString(), BitmapEncoder.BitmapFormat.PNG);
+        return file;
     }
 
     /** Adds the run's curve; returns its rightmost x. */

@@ -14,10 +14,11 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
 /**
- * Simulate, compare and sweep fail half way, after computing and writing every output, when one of
+ * Simulate, compare, sweep and assess fail half way, after computing and writing every output, when one of
  * their files cannot be put in place (a directory of that name stands in the output folder). The
  * folder must then hold exactly what it held before: the older files unchanged, no new file, nothing
- * half written and no staging folder (common practice: write to a temporary name, then rename).
+ * half written and no staging folder (common practice: write to a temporary name, then rename). The
+ * message is the same in every command: the file, and why it could not be written.
  */
 class OutputFailureTest {
 
@@ -29,7 +30,7 @@ class OutputFailureTest {
             """;
 
     @ParameterizedTest
-    @ValueSource(strings = {"simulate", "compare", "sweep"})
+    @ValueSource(strings = {"simulate", "compare", "sweep", "assess"})
     void aCommandThatCannotPlaceItsReportLeavesTheOutputFolderAsItWas(String command, @TempDir Path dir)
             throws IOException {
         Path scenario = dir.resolve("loop.yaml");
@@ -42,6 +43,7 @@ class OutputFailureTest {
         String older = switch (command) {
             case "simulate" -> "trajectory.csv";
             case "compare" -> "nyquist.png";
+            case "assess" -> "assess-trend.png";
             default -> "sweep-runs.csv";
         };
         Files.writeString(out.resolve(older), "older output");
@@ -52,14 +54,26 @@ class OutputFailureTest {
             args.addAll(List.of("--runs", "3", "--spread", "gain=10%", "--no-progress"));
         } else if (command.equals("compare")) {
             args.addAll(List.of("--periods", "0.1"));
+        } else if (command.equals("assess")) {
+            args.set(1, trace(dir).toString());
+            args.addAll(List.of("--time-scale", "2"));
         }
         CommandRun run = CommandRun.of(args.toArray(String[]::new));
 
         assertThat(run.exitCode()).as(run.out() + run.err()).isEqualTo(2);
-        assertThat(run.err()).contains("report.html").contains("a directory is in the way");
+        assertThat(run.err().strip()).isEqualTo(blocker + ": cannot be read or written (a directory is in the way)");
         assertThat(listing(out)).as("nothing added, nothing staged").isEqualTo(before);
         assertThat(Files.readString(out.resolve(older))).isEqualTo("older output");
         assertThat(Files.readString(blocker.resolve("keep.txt"))).isEqualTo("kept");
+    }
+
+    /** A short logged loop, settled at its setpoint. */
+    static Path trace(Path dir) throws IOException {
+        StringBuilder rows = new StringBuilder("time,setpoint,measurement,output\n");
+        for (int k = 0; k < 50; k++) {
+            rows.append(k).append(",1,1,0\n");
+        }
+        return Files.writeString(dir.resolve("trace.csv"), rows);
     }
 
     private static List<String> listing(Path dir) throws IOException {

@@ -92,6 +92,25 @@ class SweepCommandTest {
         assertThat(run.err()).isEmpty();
     }
 
+    /** The worst and nominal lines give IAE in the scenario's process unit, as the distribution table does. */
+    @ParameterizedTest
+    @MethodSource("unitsAndIaeUnits")
+    void theSummaryLinesGiveIaeWithItsUnit(String units, String iaeUnit, @TempDir Path dir) throws IOException {
+        // loop gain 2 on 1/(s+1)³: stable (Routh–Hurwitz: below 8), so every run has an IAE
+        Path file = scenario(dir, THIRD_ORDER_P.replace("[8.0]", "[2.0]") + units);
+        CommandRun run = CommandRun.of("sweep", file.toString(), "--runs", "2", "--spread", "gain=10%",
+                "--out", dir.resolve("out").toString(), "--no-progress");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).contains("IAE (" + iaeUnit + ")")
+                .containsPattern("worst run #\\d+: .*, IAE [0-9.e+-]+ " + iaeUnit + "\n")
+                .containsPattern("nominal plant: .*, IAE [0-9.e+-]+ " + iaeUnit + "\n");
+    }
+
+    static Stream<Arguments> unitsAndIaeUnits() {
+        return Stream.of(Arguments.of("", "PV·s"), Arguments.of("units: {process: \"bar\", output: \"%\"}\n", "bar·s"));
+    }
+
     /**
      * P control (K = 25) of an integrator with h = 0.1 s: e(k+1) = (1 − g·K·h)·e(k) with the plant gain
      * g within ±10 % of 1, so the factor is from −1.75 to −1.25 (analytic solution of the difference
