@@ -349,6 +349,78 @@ class RelayExperimentTest {
         assertThat(keeping.oscillationAmplitude()).isEqualTo(0.5);
     }
 
+    @Test
+    void exactlyTheSettlingCyclesAreDiscarded() {
+        // the first cycle (0.5 s) differs from the steady ones (1 s): with two settling cycles the result
+        // comes from cycles 3 to 5, so after the fifth; were one fewer discarded, it would come after the fourth
+        double h = 1.0 / 1024.0;
+        double[] periods = {1.0, 0.5, 1.0, 1.0, 1.0, 1.0, 1.0, 1.0};
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().excursionLimit(2.0).build(), 0.0);
+        feedTriangles(relay, h, periods, repeated(1.0, periods.length));
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(relay.completedCycles()).isEqualTo(5);
+    }
+
+    @Test
+    void theToleranceIsRelativeToTheMeanAndKuScalesWithTheRelayAmplitude() {
+        // periods 1.5 and 2.5 s around a mean of 2 s: each is 0.5 s = 25 % of the mean from it, accepted at
+        // a tolerance of 25 % (relative to the mean, not absolute). Amplitude 0.5 and relay amplitude
+        // d = 2 with ε = 0: Ku = 4d/(π·a) = 16/π (describing function, Åström & Hägglund 2006, §6.2)
+        double h = 1.0 / 1024.0;
+        double[] periods = {2.0, 1.5, 2.5, 1.5, 2.5, 2.0, 2.0};
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().relayAmplitude(2.0).settlingCycles(0)
+                .measuredCycles(4).cycleTolerance(0.25).excursionLimit(2.0).build(), 0.0);
+        feedTriangles(relay, h, periods, repeated(0.5, periods.length));
+        assertThat(relay.status()).isEqualTo(RelayStatus.SUCCEEDED);
+        assertThat(relay.ultimatePeriodSeconds()).isEqualTo(2.0);
+        assertThat(relay.oscillationAmplitude()).isEqualTo(0.5);
+        assertThat(relay.ultimateGain()).isCloseTo(16.0 / Math.PI, within(1e-14));
+    }
+
+    @Test
+    void eachLimitOfASampleIsInclusive() {
+        RelaySettings.Builder around50 = thirdOrderLagSettings().setpoint(50.0).bias(10.0).excursionLimit(10.0);
+        // a zero step is no sample (h must be > 0)
+        RelayExperiment zeroStep = new RelayExperiment(around50.build(), 7.0);
+        assertThat(zeroStep.step(0.0, 50.0)).isEqualTo(7.0);
+        assertThat(zeroStep.status()).isEqualTo(RelayStatus.ABORTED_INVALID_SAMPLE);
+        // a measurement exactly the excursion limit from the setpoint is within it; a hair beyond is not
+        RelayExperiment atLimit = new RelayExperiment(around50.build(), 7.0);
+        assertThat(atLimit.step(H, 60.0)).isEqualTo(9.0);
+        assertThat(atLimit.step(H, 40.0)).isEqualTo(11.0);
+        assertThat(atLimit.step(H, Math.nextUp(60.0))).isEqualTo(7.0);
+        assertThat(atLimit.status()).isEqualTo(RelayStatus.ABORTED_EXCURSION);
+        // elapsed time exactly at the timeout still runs (steps of 0.25 s are exact)
+        RelayExperiment timed = new RelayExperiment(around50.timeoutSeconds(1.0).maxHalfPeriodSeconds(1.0).build(), 7.0);
+        for (int i = 0; i < 4; i++) {
+            timed.step(0.25, 50.0);
+        }
+        assertThat(timed.status()).isEqualTo(RelayStatus.RUNNING);
+        timed.step(0.25, 50.0);
+        assertThat(timed.status()).isEqualTo(RelayStatus.ABORTED_TIMEOUT);
+        // a half period exactly the longest allowed still runs: first sample (the start) at 0.25 s
+        RelayExperiment still = new RelayExperiment(around50.timeoutSeconds(10.0).maxHalfPeriodSeconds(0.5).build(), 7.0);
+        still.step(0.25, 50.0);
+        still.step(0.25, 50.0);
+        still.step(0.25, 50.0);
+        assertThat(still.status()).isEqualTo(RelayStatus.RUNNING);
+        still.step(0.25, 50.0);
+        assertThat(still.status()).isEqualTo(RelayStatus.ABORTED_NO_OSCILLATION);
+    }
+
+    @Test
+    void theRelaySwitchesOnlyBeyondTheHysteresisBand() {
+        // ε = 0.5, setpoint 0, reverse action (e = −y): e exactly −ε keeps the output high, beyond it low;
+        // e exactly +ε keeps it low, beyond it high (the band is closed: common practice for a relay with
+        // hysteresis, which switches when the error leaves the band)
+        RelayExperiment relay = new RelayExperiment(thirdOrderLagSettings().hysteresis(0.5).build(), 0.0);
+        assertThat(relay.step(H, -0.2)).isEqualTo(1.0);
+        assertThat(relay.step(H, 0.5)).isEqualTo(1.0);
+        assertThat(relay.step(H, 0.6)).isEqualTo(-1.0);
+        assertThat(relay.step(H, -0.5)).isEqualTo(-1.0);
+        assertThat(relay.step(H, -0.6)).isEqualTo(1.0);
+    }
+
     private static double[] exactLimitCycle() throws IOException {
         try (InputStream in = RelayExperimentTest.class.getResourceAsStream("relay-third-order-lag.csv")) {
             String[] lines = new String(in.readAllBytes(), StandardCharsets.UTF_8).trim().split("\n");
