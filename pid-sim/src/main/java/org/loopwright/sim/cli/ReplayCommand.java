@@ -1,10 +1,9 @@
 package org.loopwright.sim.cli;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.PrintWriter;
 import java.io.StringReader;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
@@ -91,9 +90,8 @@ public final class ReplayCommand implements Callable<Integer> {
         try (TraceReader trace = demo ? TraceReader.of(traceName, new StringReader(ReplayDemo.traceText()))
                 : TraceReader.open(traceFile);
                 OutputStage stage = OutputStage.in(target.getParent(), "--out")) {
-            try (Writer writer = Files.newBufferedWriter(stage.directory().resolve(target.getFileName().toString()),
-                    StandardCharsets.UTF_8)) {
-                summary = Replay.stream(settings, trace, measuredPeriod, startFromLoggedOutput, writer);
+            try (OutputStream file = Files.newOutputStream(stage.directory().resolve(target.getFileName().toString()))) {
+                summary = Replay.stream(settings, trace, measuredPeriod, startFromLoggedOutput, file);
             }
             stage.commit();
         }

@@ -1,12 +1,13 @@
 package org.loopwright.sim.replay;
 
 import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 
 import com.fasterxml.jackson.core.io.NumberOutput;
 import org.loopwright.pid.ControllerSettings;
-import org.loopwright.pid.Mode;
 import org.loopwright.pid.PidController;
 import org.loopwright.sim.config.CsvRows;
 import org.loopwright.sim.config.InputFileException;
@@ -26,7 +27,8 @@ import org.loopwright.sim.config.InputFileException;
  * replayed in tracking mode on that row's logged output, and the controller then goes to automatic
  * bumplessly: its first output is the logged one, not the 0 of a controller at rest.
  *
- * <p>{@link #stream} reads a row, updates, writes a row: memory does not grow with the trace.
+ * <p>{@link #stream} reads, replays and writes the trace in batches of rows, so memory does not grow
+ * with the trace; reading and writing run on threads of their own beside the controller's one.
  * Thread-safe: stateless.
  */
 public final class Replay {
@@ -42,7 +44,8 @@ public final class Replay {
     public static ReplayResult run(ControllerSettings settings, Trace trace, boolean measuredPeriod) {
         int rows = trace.rowCount();
         ReplayResult.Columns out = new ReplayResult.Columns(rows);
-        Engine engine = new Engine(settings, measuredPeriod, false, trace.hasFeedforward(), trace.hasTrackValue());
+        ReplayEngine engine = new ReplayEngine(settings, measuredPeriod, false, trace.hasFeedforward(),
+                trace.hasTrackValue());
         for (int k = 0; k < rows; k++) {
             engine.step(trace.row(k));
             PidController c = engine.controller;
@@ -59,9 +62,11 @@ public final class Replay {
     }
 
     /**
-     * Replays a trace as it is read: each row is read, replayed and written to {@code out} (the
+     * Replays a trace as it is read: rows are read, replayed in order and written to {@code out} (the
      * trace's columns, the logged {@code output} renamed {@code logged_output}, then
-     * {@link TraceFile#OUTPUT_COLUMNS}) before the next is read.
+     * {@link TraceFile#OUTPUT_COLUMNS}) as UTF-8 a batch at a time, on threads of their own, so memory
+     * does not grow with the trace. On an error {@code out} holds a part of the result: write it to a file
+     * that is moved into place only when this returns.
      *
      * @param measuredPeriod      take each row's period from the {@code time} column
      * @param startFromLoggedOutput start the controller from the first row's logged output
@@ -69,24 +74,18 @@ public final class Replay {
      * @throws InputFileException for a bad row, an empty trace, or a start from a logged output the trace lacks
      */
     public static ReplaySummary stream(ControllerSettings settings, TraceReader trace, boolean measuredPeriod,
-            boolean startFromLoggedOutput, Appendable out) throws IOException {
+            boolean startFromLoggedOutput, OutputStream out) throws IOException {
         if (startFromLoggedOutput && !trace.hasLoggedOutput()) {
             throw InputFileException.inRow(trace.fileName(), 1, TraceFile.LOGGED_OUTPUT, "is needed to start from the"
                     + " logged output; the header has " + String.join(", ", trace.header()));
         }
-        Engine engine = new Engine(settings, measuredPeriod, startFromLoggedOutput, trace.hasFeedforward(),
+        ReplayEngine engine = new ReplayEngine(settings, measuredPeriod, startFromLoggedOutput, trace.hasFeedforward(),
                 trace.hasTrackValue());
         ReplaySummary.Accumulator summary = new ReplaySummary.Accumulator(settings, measuredPeriod);
-        printRow(out, resultHeader(trace.header()));
-        TraceRow row = new TraceRow();
-        StringBuilder line = new StringBuilder();
-        while (trace.next(row)) {
-            engine.step(row);
-            PidController c = engine.controller;
-            summary.add(row.number(), row.timeSeconds(), c.fault(), c.output(), c.position());
-            printResultRow(line, out, row.cells(), c.output(), c.proportionalTerm(), c.integralTerm(),
-                    c.derivativeTerm(), ReplayResult.statusWord(c.fault()));
-        }
+        StringBuilder header = new StringBuilder();
+        printRow(header, resultHeader(trace.header()));
+        out.write(header.toString().getBytes(StandardCharsets.UTF_8));
+        new ReplayPipeline(trace, engine, summary).run(out);
         if (summary.rows() == 0) {
             throw InputFileException.whole(trace.fileName(), "has a header but no data rows");
         }
@@ -104,19 +103,18 @@ public final class Replay {
     }
 
     /**
-     * One result row: the trace's cells as read, then the replay's columns, built in {@code line}
-     * (reused from row to row) and appended to {@code out} at once. Numbers in Java's shortest exact form.
+     * Appends one result row, line break included: the trace's cells as read, then the replay's
+     * columns, the numbers as {@link #number} writes them.
      */
-    static void printResultRow(StringBuilder line, Appendable out, List<String> cells, double output,
-            double proportional, double integral, double derivative, String status) throws IOException {
-        line.setLength(0);
+    static void appendResultRow(StringBuilder line, List<String> cells, String output, String proportional,
+            String integral, String derivative, String status) {
         for (int i = 0; i < cells.size(); i++) {
             CsvRows.appendCell(line, cells.get(i), i == 0);
         }
-        line.append(',').append(number(output)).append(',').append(number(proportional)).append(',')
-                .append(number(integral)).append(',').append(number(derivative));
+        line.append(',').append(output).append(',').append(proportional).append(',').append(integral).append(',')
+                .append(derivative);
         CsvRows.appendCell(line, status, false);
-        out.append(line.append('\n'));
+        line.append('\n');
     }
 
     /**
@@ -136,71 +134,5 @@ public final class Replay {
             CsvRows.appendCell(line, cells.get(i), i == 0);
         }
         out.append(line.append('\n'));
-    }
-
-    /** The controller and what one row's update needs from the rows before it. */
-    private static final class Engine {
-        final PidController controller;
-        final ControllerSettings settings;
-        final boolean measuredPeriod;
-        final boolean hasTrackValue;
-        final boolean hasFeedforward;
-        boolean startFromLoggedOutput;
-        boolean first = true;
-        double previousTime;
-        double period;
-
-        Engine(ControllerSettings settings, boolean measuredPeriod, boolean startFromLoggedOutput,
-                boolean hasFeedforward, boolean hasTrackValue) {
-            this.controller = new PidController(settings);
-            this.settings = settings;
-            this.measuredPeriod = measuredPeriod;
-            this.startFromLoggedOutput = startFromLoggedOutput;
-            this.hasTrackValue = hasTrackValue;
-            this.hasFeedforward = hasFeedforward;
-            controller.feedforwardOn(hasFeedforward);
-        }
-
-        void step(TraceRow row) {
-            applyInputs(row);
-            boolean fromLogged = startFromLoggedOutput && Double.isFinite(row.loggedOutput())
-                    && (row.mode() == null || row.mode() == Mode.AUTOMATIC);
-            if (fromLogged) {
-                controller.switchToTracking();
-                controller.trackValue(row.loggedOutput());
-            }
-            period = measuredPeriod && !first ? row.timeSeconds() - previousTime : settings.samplePeriodSeconds();
-            if (measuredPeriod) {
-                controller.update(row.setpoint(), row.measurement(), period);
-            } else {
-                controller.update(row.setpoint(), row.measurement());
-            }
-            if (fromLogged) {
-                controller.switchToAutomatic();
-                startFromLoggedOutput = false;
-            }
-            previousTime = row.timeSeconds();
-            first = false;
-        }
-
-        private void applyInputs(TraceRow row) {
-            Mode mode = row.mode();
-            if (mode != null) {
-                switch (mode) {
-                    case AUTOMATIC -> controller.switchToAutomatic();
-                    case MANUAL -> controller.switchToManual();
-                    case TRACKING -> controller.switchToTracking();
-                }
-            }
-            // a NaN manual output is refused by the controller, which keeps the last one
-            controller.manualOutput(row.manualOutput());
-            if (hasTrackValue) {
-                controller.trackValue(row.trackValue());
-                controller.actuatorPosition(row.trackValue());
-            }
-            if (hasFeedforward) {
-                controller.feedforward(row.feedforward());
-            }
-        }
     }
 }

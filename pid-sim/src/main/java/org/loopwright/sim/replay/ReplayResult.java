@@ -129,8 +129,11 @@ public final class ReplayResult {
         Replay.printRow(out, Replay.resultHeader(trace.header()));
         StringBuilder line = new StringBuilder();
         for (int k = 0; k < rowCount(); k++) {
-            Replay.printResultRow(line, out, trace.row(k).cells(), output(k), proportional(k), integral(k),
-                    derivative(k), statusWord(status(k)));
+            line.setLength(0);
+            Replay.appendResultRow(line, trace.row(k).cells(), Replay.number(output(k)),
+                    Replay.number(proportional(k)), Replay.number(integral(k)), Replay.number(derivative(k)),
+                    statusWord(status(k)));
+            out.append(line);
         }
     }
 }

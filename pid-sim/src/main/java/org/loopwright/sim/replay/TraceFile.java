@@ -126,10 +126,6 @@ public final class TraceFile {
     }
 
     /**
-     * The cell as a number: a decimal (with optional exponent), blank or {@code nan} as NaN, and
-     * {@code inf}/{@code infinity} with an optional sign; NaN for anything else.
-     */
-    /**
      * Whether a cell is a plain decimal number, {@code [+-]? (digits [. digits?] | . digits) ([eE] [+-]? digits)?}:
      * what {@link Double#parseDouble} reads, without its hexadecimal forms, type suffixes and words.
      * Scanned by hand, once per numeric cell of a trace of millions of rows.
@@ -170,6 +166,10 @@ public final class TraceFile {
         return i - from;
     }
 
+    /**
+     * The cell as a number: a decimal (with optional exponent), blank or {@code nan} as NaN, and
+     * {@code inf}/{@code infinity} with an optional sign; NaN for anything else.
+     */
     static double parseNumber(String cell) {
         if (isDecimal(cell)) {
             // Jackson's fast parser (FastDoubleParser) rounds correctly, as Double.parseDouble does

@@ -151,6 +151,28 @@ class ReplayCommandTest {
         assertThat(result).doesNotExist();
     }
 
+    /** The replay reads, updates and writes in batches on several threads: a bad row far on still leaves no file. */
+    @Test
+    void aBadRowAfterManyGoodOnesLeavesNoOutput() throws IOException {
+        Path controller = file("c.yaml", PI_CONTROLLER);
+        StringBuilder text = new StringBuilder("time,setpoint,measurement\n");
+        for (int k = 0; k < 20_000; k++) {
+            text.append(k * 0.5).append(",1,").append(k == 15_000 ? "x" : "0").append('\n');
+        }
+        Path trace = file("t.csv", text.toString());
+        Path result = dir.resolve("out.csv");
+
+        int exit = run("replay", "--controller", controller.toString(), "--trace", trace.toString(),
+                "--out", result.toString());
+
+        assertThat(exit).isEqualTo(2);
+        assertThat(err.toString()).isEqualTo(trace + ": row 15002, column 'measurement': must be a number, or blank,"
+                + " nan or inf for a bad sample: measurement=x\n");
+        try (Stream<Path> files = Files.list(dir)) {
+            assertThat(files.map(f -> f.getFileName().toString())).containsExactlyInAnyOrder("c.yaml", "t.csv");
+        }
+    }
+
     @Test
     void missingFileExitsWithTwo() throws IOException {
         Path trace = file("t.csv", "time,setpoint,measurement\n0,1,0\n");
