@@ -223,7 +223,7 @@ class RelayExperimentTest {
      * starts at e = 0 rising, peaks at a quarter of its period and bottoms at three quarters.
      * Stops when the relay finishes or the cycles run out.
      */
-    private static void feedTriangles(RelayExperiment relay, double h, double[] periods, double[] amplitudes) {
+    static void feedTriangles(RelayExperiment relay, double h, double[] periods, double[] amplitudes) {
         double start = 0.0;
         int cycle = 0;
         for (long k = 0; cycle < periods.length && !relay.status().finished(); k++) {
@@ -243,7 +243,7 @@ class RelayExperimentTest {
         }
     }
 
-    private static double[] repeated(double value, int count) {
+    static double[] repeated(double value, int count) {
         double[] values = new double[count];
         java.util.Arrays.fill(values, value);
         return values;

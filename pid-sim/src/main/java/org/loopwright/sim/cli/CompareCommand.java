@@ -46,12 +46,16 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "compare", mixinStandardHelpOptions = true,
         description = {"Compare every integral x derivative discretisation at each sample period with the continuous design.",
-                "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the",
-                "crossover, and how the period compares with the crossover. Needs a linear plant and a PID controller.",
+                "Columns: margins, Ms, set-point overshoot and IAE, load IAE, the controller's error at the"
+                        + " crossover, and how the period compares with the crossover. Needs a linear plant and a PID"
+                        + " controller.",
                 "The sampled loop includes the sensor's delay-samples. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
                         + "; " + NumberText.MISSING + " where the response did not settle or diverged.",
                 "Settled: " + ResponseMetrics.SETTLED_RULE + "."})
 public final class CompareCommand implements Callable<Integer> {
+
+    /** The periods studied when none are given (see {@link DiscretisationStudy#defaultPeriods}). */
+    private static final String DEFAULT_PERIODS = "omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own";
 
     @Spec
     private CommandSpec spec;
@@ -60,7 +64,8 @@ public final class CompareCommand implements Callable<Integer> {
     private Path scenarioFile;
 
     @Option(names = "--periods", split = ",", paramLabel = "H",
-            description = "Sample periods in seconds, comma-separated (default: omega_c*h = 0.02, 0.1, 0.3, 1).")
+            description = "Sample periods in seconds, comma-separated (default: "
+                    + DEFAULT_PERIODS + ").")
     private List<Double> periods;
 
     /** Without --out, compare prints its table and writes no plots. */
@@ -179,7 +184,7 @@ public final class CompareCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
         out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
                 result.crossoverRadPerSecond(), result.periodsSeconds(),
-                defaultPeriods ? " (default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)" : "");
+                defaultPeriods ? " (default: " + DEFAULT_PERIODS + ")" : "");
         out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
                 result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
                 SamplingVerdict.TYPICAL_HIGH);

@@ -87,7 +87,7 @@ public final class DesignCommand implements Callable<Integer> {
     private ModelOptions modelOptions;
 
     @Option(names = "--sample-period", paramLabel = "H", required = true,
-            description = "The controller's sample period on the device, s (required).")
+            description = "The controller's sample period on the device in seconds (required).")
     private double samplePeriod;
 
     @Option(names = "--output-slew", paramLabel = "S", description = "Output slew limit, units per second (default: none).")
@@ -131,20 +131,17 @@ public final class DesignCommand implements Callable<Integer> {
     @Mixin
     private OutputOptions output;
 
-    @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
-    private boolean noProgress;
+    @Mixin
+    private ProgressOption progressOption;
 
     @Override
     public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
         DesignSpec designSpec = specification();
         DesignModel model = model();
-        boolean json = output.json();
-        boolean bar = !json && !noProgress && System.console() != null;
         int threads = Runtime.getRuntime().availableProcessors();
         DesignResult result;
-        try (SweepProgress progress = bar ? SweepProgress.on(System.err, Design.progressSteps(designSpec))
-                : SweepProgress.off()) {
+        try (SweepProgress progress = progressOption.progress(output.json(), Design.progressSteps(designSpec))) {
             result = Design.run(model, designSpec, threads, progress);
         }
         // the report's record: the command line, the input files with their SHA-256, the recommended settings in full
@@ -158,7 +155,7 @@ public final class DesignCommand implements Callable<Integer> {
             files = DesignFiles.write(result, stage.directory(), record);
             stage.commit();
         }
-        if (json) {
+        if (output.json()) {
             out.println(JsonOutput.text(DesignFiles.json(result, files)));
         } else {
             DesignFiles.printText(out, result, files, output.directory());

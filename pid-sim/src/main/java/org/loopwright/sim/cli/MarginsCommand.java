@@ -40,8 +40,8 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "margins", mixinStandardHelpOptions = true,
         description = {"Gain, phase and delay margins, Ms and Mt of a scenario's loop, continuous and sampled.",
-                "The sampled loop has the controller at z = e^(jωh) and the plant by its zero-order-hold equivalent;",
-                "closed-loop stability is decided from the poles. Needs a linear plant and a PID controller.",
+                "The sampled loop has the controller at z = e^(jωh) and the plant by its zero-order-hold equivalent;"
+                        + " closed-loop stability is decided from the poles. Needs a linear plant and a PID controller.",
                 "A cascade (inner key) gives the inner loop alone and the outer loop with the inner loop closed.",
                 "JSON keys: continuous and sampled (for a cascade: inner and outer, each with both)."})
 public final class MarginsCommand implements Callable<Integer> {

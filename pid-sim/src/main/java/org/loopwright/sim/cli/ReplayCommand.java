@@ -35,8 +35,8 @@ import picocli.CommandLine.Spec;
                 "Without --controller and --trace, replays the built-in water bath demo (invented demo data)."})
 public final class ReplayCommand implements Callable<Integer> {
 
-    /** Where the output goes when --out is not given: this file in the current directory. */
-    public static final String DEFAULT_OUT = "replay-output.csv";
+    /** Where the output goes when --out is not given: a folder named after the command, as the others write into. */
+    private static final String DEFAULT_OUT = "loopwright-replay/replay-output.csv";
 
     @Spec
     private CommandSpec spec;
@@ -50,8 +50,8 @@ public final class ReplayCommand implements Callable<Integer> {
                     + " written back as logged_output); other columns are passed through.")
     private Path traceFile;
 
-    @Option(names = "--out", paramLabel = "OUT.csv", description = "Where to write the output CSV (default: "
-            + DEFAULT_OUT + " in the current directory).")
+    @Option(names = "--out", paramLabel = "OUT.csv", description = "Where to write the output CSV, its folder created if"
+            + " need be (default: " + DEFAULT_OUT + ").")
     private Path outFile;
 
     @Option(names = "--measured-period",

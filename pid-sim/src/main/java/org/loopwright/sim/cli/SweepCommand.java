@@ -138,8 +138,8 @@ public final class SweepCommand implements Callable<Integer> {
     @Mixin
     private OutputOptions output;
 
-    @Option(names = "--no-progress", description = "No progress bar (it is shown on standard error only at a console).")
-    private boolean noProgress;
+    @Mixin
+    private ProgressOption progressOption;
 
     @Override
     public Integer call() throws IOException {
@@ -175,8 +175,7 @@ public final class SweepCommand implements Callable<Integer> {
         boolean json = output.json();
         Path outDirectory = output.directory();
         SweepResult result;
-        try (SweepProgress progress = !json && !noProgress && System.console() != null
-                ? SweepProgress.on(System.err, runs) : SweepProgress.off()) {
+        try (SweepProgress progress = progressOption.progress(json, runs)) {
             result = sweep.run(runs, threadCount, progress);
         }
         String title = String.valueOf(scenarioFile.getFileName());

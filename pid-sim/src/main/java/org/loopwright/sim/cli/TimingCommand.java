@@ -38,8 +38,8 @@ import picocli.CommandLine.Spec;
  * with the file when given. Exit code 2 for bad input.
  */
 @Command(name = "timing", mixinStandardHelpOptions = true,
-        description = {"Times the loop runner on this machine: period error, overruns, CPU share and update cost,",
-                "beside a bare busy-wait loop at the same rate, with a verdict against a budget.",
+        description = {"Times the loop runner on this machine: period error, overruns, CPU share and update cost,"
+                + " beside a bare busy-wait loop at the same rate, with a verdict against a budget.",
                 "Without --controller, runs a built-in demo controller (numbers of our own invention)."})
 public final class TimingCommand implements Callable<Integer> {
 

@@ -8,8 +8,9 @@ import java.util.List;
 /**
  * Reads the harness's CSV dialect ({@link InputText}: RFC 4180 quoting, {@code #} comment lines,
  * spaces around cells and empty lines ignored) one record at a time, and writes cells so that it
- * reads them back as written. Hand-written rather than Apache Commons CSV for logs of millions of
- * rows, where a general parser's per-record objects were most of a replay's time; it keeps to that
+ * reads them back as written: the one reader of every CSV file the harness takes (traces, step
+ * tests, logged loops). Hand-written rather than Apache Commons CSV for logs of millions of rows,
+ * where a general parser's per-record objects were most of a replay's time; it keeps to that
  * dialect and nothing more. A quoted cell may span lines (the line break is read as {@code \n}).
  *
  * <p>Errors name the file, the line and the character. Not thread-safe; close the reader when done.

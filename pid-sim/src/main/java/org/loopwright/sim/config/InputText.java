@@ -9,25 +9,14 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 
-import org.apache.commons.csv.CSVFormat;
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
-
 /**
  * Reading the text of an input file, and splitting a CSV text into rows, with every failure as an
  * {@link InputFileException} that names the file. One CSV dialect for every table the harness reads:
- * RFC 4180, {@code #} comment lines, spaces around cells and empty lines ignored ({@link CsvRows} reads
- * the same dialect by hand for logs of millions of rows).
+ * RFC 4180, {@code #} comment lines, spaces around cells and empty lines ignored, read by {@link CsvRows}.
  *
  * <p>Thread-safe: stateless.
  */
 public final class InputText {
-
-    private static final CSVFormat CSV = CSVFormat.RFC4180.builder()
-            .setCommentMarker('#')
-            .setIgnoreSurroundingSpaces(true)
-            .setIgnoreEmptyLines(true)
-            .get();
 
     /** The largest input file read whole, in bytes (64 MiB): a bound on the memory a small command line can ask for. */
     public static final long MAX_FILE_BYTES = 64L << 20;
@@ -74,65 +63,25 @@ public final class InputText {
     }
 
     /**
-     * A parser of CSV text in the harness's one dialect, reading rows as they are asked for.
-     *
-     * @param fileName how messages name the source
-     * @throws InputFileException when the text cannot be read
-     */
-    public static CSVParser csvParser(String fileName, Reader reader) {
-        try {
-            return CSVParser.builder().setReader(reader).setFormat(CSV).get();
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(fileName, "cannot be read (" + IoWords.of(e) + ")", e);
-        }
-    }
-
-    /**
-     * The rows of a CSV text, the header first.
+     * The rows of a CSV text, the header first, read by {@link CsvRows}.
      *
      * @param fileName        how messages name the source
      * @param requiredColumns named in the message when there is no header row
-     * @throws InputFileException when the text is not valid CSV, has no header row, or has a row of
-     *                            more than {@link #MAX_CELLS_PER_ROW} cells or a cell of more than
-     *                            {@link #MAX_CELL_CHARS} characters
+     * @throws InputFileException when the text is not valid CSV (naming the line and character), has
+     *                            no header row, or has a row of more than {@link #MAX_CELLS_PER_ROW}
+     *                            cells or a cell of more than {@link #MAX_CELL_CHARS} characters
      */
     public static List<List<String>> csvRows(String fileName, String text, List<String> requiredColumns) {
         List<List<String>> rows = new ArrayList<>();
-        try (Reader reader = new StringReader(text);
-             CSVParser parser = CSVParser.builder().setReader(reader).setFormat(CSV).get()) {
-            for (CSVRecord record : parser) {
-                rows.add(withinLimits(fileName, rows.size() + 1, record.toList()));
-            }
-        } catch (InputFileException e) {
-            throw e;
-        } catch (IOException | RuntimeException e) {
-            throw InputFileException.whole(fileName, "not valid CSV (" + e.getMessage() + ")", e);
+        CsvRows reader = new CsvRows(fileName, new StringReader(text));
+        List<String> cells = new ArrayList<>();
+        while (reader.next(cells)) {
+            rows.add(List.copyOf(cells));
         }
         if (rows.isEmpty()) {
             throw InputFileException.whole(fileName, "has no header row; required columns: "
                     + String.join(", ", requiredColumns));
         }
         return rows;
-    }
-
-    /**
-     * The cells of a CSV row, checked against {@link #MAX_CELLS_PER_ROW} and {@link #MAX_CELL_CHARS}
-     * (for readers that take a file a row at a time).
-     *
-     * @param row the row's number, the header being row 1
-     * @throws InputFileException naming the row when a limit is passed
-     */
-    public static List<String> withinLimits(String fileName, long row, List<String> cells) {
-        if (cells.size() > MAX_CELLS_PER_ROW) {
-            throw InputFileException.whole(fileName, "row " + row + " has " + cells.size()
-                    + " cells; the limit is " + MAX_CELLS_PER_ROW);
-        }
-        for (int i = 0; i < cells.size(); i++) {
-            if (cells.get(i).length() > MAX_CELL_CHARS) {
-                throw InputFileException.whole(fileName, "row " + row + ", cell " + (i + 1) + " has "
-                        + cells.get(i).length() + " characters; the limit for a cell is " + MAX_CELL_CHARS);
-            }
-        }
-        return cells;
     }
 }

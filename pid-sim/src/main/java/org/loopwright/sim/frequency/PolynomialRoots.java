@@ -11,6 +11,7 @@ import org.hipparchus.linear.MatrixUtils;
 import org.hipparchus.linear.RealMatrix;
 import org.hipparchus.linear.SchurTransformer;
 import org.hipparchus.util.FastMath;
+import org.hipparchus.util.MathArrays;
 import org.hipparchus.util.Precision;
 
 /**
@@ -90,21 +91,34 @@ final class PolynomialRoots {
         return values;
     }
 
-    /** The largest |p(z)| over the candidates, relative to the size of the terms Σ|c_i|·|z|^i. */
-    private static double worstResidual(double[] ascending, Complex[] candidates) {
+    /**
+     * The largest |p(z)| over the candidates, relative to the size of the terms Σ|c_i|·|z|^i. Horner's rule in
+     * two doubles, each step as {@link Complex#multiply(Complex)} then {@link Complex#add(double)} take it (the
+     * same {@link MathArrays#linearCombination} products, so the same figure) without a {@link Complex} per step:
+     * a sweep asks for the poles of every run, and those were a sixth of a run's fixed cost. A value that is not
+     * finite, which {@link Complex} would carry as NaN or infinity, gives an infinite residual either way.
+     */
+    static double worstResidual(double[] ascending, Complex[] candidates) {
         double worst = 0.0;
         for (Complex z : candidates) {
-            Complex value = Complex.ZERO;
+            double x = z.getReal();
+            double y = z.getImaginary();
+            double re = 0.0;
+            double im = 0.0;
             for (int i = ascending.length - 1; i >= 0; i--) {
-                value = value.multiply(z).add(ascending[i]);
+                double product = MathArrays.linearCombination(re, x, -im, y);
+                im = MathArrays.linearCombination(re, y, im, x);
+                re = product + ascending[i];
             }
+            double size = z.norm();
             double scale = 0.0;
             double power = 1.0;
             for (double coefficient : ascending) {
                 scale += Math.abs(coefficient) * power;
-                power *= z.norm();
+                power *= size;
             }
-            double relative = value.norm() / scale;
+            double relative = Double.isFinite(re) && Double.isFinite(im) ? FastMath.hypot(re, im) / scale
+                    : Double.POSITIVE_INFINITY;
             worst = Double.isNaN(relative) ? Double.POSITIVE_INFINITY : Math.max(worst, relative);
         }
         return worst;

@@ -22,8 +22,8 @@ import org.loopwright.sim.config.InputFileException;
  *
  * <p>Parameters: gain, time constant(s), dead time and the output's baseline, all fitted to every
  * sample. The two-point start is taken on the output smoothed by a centred moving average over
- * 1 % of the record, so noise does not trigger the 28.3 % crossing early; the fit itself uses the
- * raw samples. The SOPDT start splits the two-point T as T2 = 0.3·T, T1 = T − T2/2 and L − T2/2
+ * 1 % of the record on each side of the step (never across it), so noise does not trigger the
+ * 28.3 % crossing early; the fit itself uses the raw samples. The SOPDT start splits the two-point T as T2 = 0.3·T, T1 = T − T2/2 and L − T2/2
  * (the half rule of Skogestad 2003 run backwards). Derivatives are central differences.
  *
  * <p>Thread-safe: stateless.
@@ -88,8 +88,10 @@ public final class StepIdentification {
         int half = Math.max(0, y.length / 200);
         double[] smoothed = new double[y.length];
         for (int i = 0; i < y.length; i++) {
-            int from = Math.max(0, i - half);
-            int to = Math.min(y.length, i + half + 1);
+            // never across the step: a response shorter than the window would be moved ahead of the step
+            boolean after = i >= step.index();
+            int from = Math.max(after ? step.index() : 0, i - half);
+            int to = Math.min(after ? y.length : step.index(), i + half + 1);
             smoothed[i] = mean(y, from, to);
         }
         try {

@@ -3,20 +3,19 @@ package org.loopwright.sim.identify;
 import java.io.IOException;
 import java.io.Reader;
 import java.io.StringReader;
-import java.io.UncheckedIOException;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Iterator;
 import java.util.List;
 
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
+import com.fasterxml.jackson.core.io.NumberInput;
+import org.loopwright.sim.config.CsvRows;
 import org.loopwright.sim.config.InputFileException;
 import org.loopwright.sim.config.InputText;
 import org.loopwright.sim.config.IoWords;
 
 /**
- * Reads a step test from CSV (Apache Commons CSV): a header row naming the columns {@code time}
+ * Reads a step test from CSV (the harness's dialect, {@link CsvRows}): a header row naming the columns {@code time}
  * (seconds), {@code input} and {@code output}, in any order, then one row per sample with a finite
  * number in each of them; other columns are ignored and {@code #} starts a comment line. Times must
  * increase from row to row. Errors name the file, the row (the header is row 1) and the column.
@@ -64,61 +63,55 @@ public final class StepTestFile {
     }
 
     private static StepTest read(String fileName, Reader reader) {
-        try (CSVParser parser = InputText.csvParser(fileName, reader)) {
-            Iterator<CSVRecord> records = parser.iterator();
-            if (!records.hasNext()) {
-                throw InputFileException.whole(fileName, "has no header row; required columns: "
+        CsvRows rows = new CsvRows(fileName, reader);
+        List<String> header = new ArrayList<>();
+        if (!rows.next(header)) {
+            throw InputFileException.whole(fileName, "has no header row; required columns: "
+                    + String.join(", ", COLUMNS));
+        }
+        int[] index = new int[COLUMNS.size()];
+        for (int c = 0; c < index.length; c++) {
+            index[c] = header.indexOf(COLUMNS.get(c));
+            if (index[c] < 0) {
+                throw InputFileException.inRow(fileName, 1, COLUMNS.get(c), "required column is missing; the"
+                        + " header has " + String.join(", ", header) + "; required columns: "
                         + String.join(", ", COLUMNS));
             }
-            List<String> header = InputText.withinLimits(fileName, 1, records.next().toList());
-            int[] index = new int[COLUMNS.size()];
-            for (int c = 0; c < index.length; c++) {
-                index[c] = header.indexOf(COLUMNS.get(c));
-                if (index[c] < 0) {
-                    throw InputFileException.inRow(fileName, 1, COLUMNS.get(c), "required column is missing; the"
-                            + " header has " + String.join(", ", header) + "; required columns: "
-                            + String.join(", ", COLUMNS));
-                }
-            }
-            Thinned kept = new Thinned();
-            double[] values = new double[index.length];
-            double previousTime = Double.NEGATIVE_INFINITY;
-            String previousCell = "";
-            while (records.hasNext()) {
-                CSVRecord row = records.next();
-                long number = row.getRecordNumber();
-                InputText.withinLimits(fileName, number, row.toList());
-                for (int c = 0; c < index.length; c++) {
-                    String name = COLUMNS.get(c);
-                    if (index[c] >= row.size()) {
-                        throw InputFileException.inRow(fileName, number, name, "the row has " + row.size()
-                                + " cells; the header has " + header.size() + " columns");
-                    }
-                    String cell = row.get(index[c]);
-                    double value = parse(cell);
-                    if (!Double.isFinite(value)) {
-                        throw InputFileException.inRow(fileName, number, name, "must be a finite number: " + name
-                                + "=" + cell);
-                    }
-                    if (c == 0 && value <= previousTime) {
-                        throw InputFileException.inRow(fileName, number, name, "must increase from row to row: time="
-                                + cell + " after " + previousCell);
-                    }
-                    values[c] = value;
-                }
-                previousTime = values[0];
-                previousCell = row.get(index[0]);
-                kept.add(values[0], values[1], values[2]);
-            }
-            if (kept.rows < MIN_ROWS) {
-                throw InputFileException.whole(fileName, "has " + kept.rows + " data rows; a step test needs at least "
-                        + MIN_ROWS);
-            }
-            return kept.toStepTest(fileName);
-        } catch (IOException | UncheckedIOException | IllegalStateException e) {
-            Throwable cause = e.getCause() != null ? e.getCause() : e;
-            throw InputFileException.whole(fileName, "not valid CSV (" + IoWords.of(cause) + ")", e);
         }
+        Thinned kept = new Thinned();
+        List<String> row = new ArrayList<>();
+        double[] values = new double[index.length];
+        double previousTime = Double.NEGATIVE_INFINITY;
+        String previousCell = "";
+        while (rows.next(row)) {
+            long number = rows.recordNumber();
+            for (int c = 0; c < index.length; c++) {
+                String name = COLUMNS.get(c);
+                if (index[c] >= row.size()) {
+                    throw InputFileException.inRow(fileName, number, name, "the row has " + row.size()
+                            + " cells; the header has " + header.size() + " columns");
+                }
+                String cell = row.get(index[c]);
+                double value = parse(cell);
+                if (!Double.isFinite(value)) {
+                    throw InputFileException.inRow(fileName, number, name, "must be a finite number: " + name
+                            + "=" + cell);
+                }
+                if (c == 0 && value <= previousTime) {
+                    throw InputFileException.inRow(fileName, number, name, "must increase from row to row: time="
+                            + cell + " after " + previousCell);
+                }
+                values[c] = value;
+            }
+            previousTime = values[0];
+            previousCell = row.get(index[0]);
+            kept.add(values[0], values[1], values[2]);
+        }
+        if (kept.rows < MIN_ROWS) {
+            throw InputFileException.whole(fileName, "has " + kept.rows + " data rows; a step test needs at least "
+                    + MIN_ROWS);
+        }
+        return kept.toStepTest(fileName);
     }
 
     /**
@@ -200,9 +193,10 @@ public final class StepTestFile {
         }
     }
 
+    /** What {@link Double#parseDouble} reads, by Jackson's fast parser (same grammar, correctly rounded); NaN otherwise. */
     private static double parse(String cell) {
         try {
-            return Double.parseDouble(cell);
+            return NumberInput.parseDouble(cell, true);
         } catch (NumberFormatException e) {
             return Double.NaN;
         }

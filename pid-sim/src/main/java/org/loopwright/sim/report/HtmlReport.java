@@ -49,6 +49,7 @@ public final class HtmlReport {
             .caution{border:2px solid #b00;background:#fff4f4;padding:.5em 1em}
             table{border-collapse:collapse;margin:.5em 0;font-size:.85em;max-width:100%}
             caption{text-align:left;font-weight:bold;padding:.3em 0}
+            p.note{font-size:.85em;margin:.3em 0 1em}
             th,td{border:1px solid #bbb;padding:.2em .4em;text-align:left;vertical-align:top;overflow-wrap:break-word}
             td.number{text-align:right;white-space:nowrap;font-variant-numeric:tabular-nums}
             thead th{background:#eee;font-weight:600}
@@ -197,7 +198,11 @@ public final class HtmlReport {
             }
             html.append("</tr>\n");
         }
-        html.append("</tbody>\n</table>\n</div>\n");
+        html.append("</tbody>\n</table>\n");
+        if (!table.note().isEmpty()) {
+            html.append("<p class=\"note\">").append(escape(table.note())).append("</p>\n");
+        }
+        html.append("</div>\n");
     }
 
     /**

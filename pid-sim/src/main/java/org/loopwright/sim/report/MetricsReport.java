@@ -80,11 +80,11 @@ public final class MetricsReport {
      * @return the table
      */
     public static ResultTable table(ResponseMetrics m, Optional<LimitCycle> cycle, Units units) {
-        ResultTable table = ResultTable.of("Response metrics (" + NumberText.MISSING + ": the figure does not apply)."
-                + " Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION + ". Step figures only once settled: "
-                + ResponseMetrics.SETTLED_RULE + ".",
+        ResultTable table = ResultTable.of("Response metrics",
                 ResultTable.Column.text("figure", "figure"), ResultTable.Column.number("value", "value", "", 4),
                 ResultTable.Column.text("unit", "unit"));
+        table.note(NumberText.MISSING + ": the figure does not apply. Overshoot: " + ResponseMetrics.OVERSHOOT_DEFINITION
+                + ". Step figures only once settled: " + ResponseMetrics.SETTLED_RULE + ".");
         boolean unsettled = m.state() == ResponseState.NOT_SETTLED || m.state() == ResponseState.DIVERGED;
         Object stepMissing = unsettled ? m.state().words() : null;
         Object runMissing = m.state() == ResponseState.DIVERGED ? m.state().words() : null;

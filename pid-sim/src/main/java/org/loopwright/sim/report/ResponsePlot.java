@@ -127,8 +127,21 @@ public final class ResponsePlot {
 
     /** Saves {@code baseName.png} and {@code baseName.svg} in the directory. */
     public static void save(XYChart chart, Path directory, String baseName) throws IOException {
+        savePng(chart, directory, baseName);
+        saveSvg(chart, directory, baseName);
+    }
+
+    /**
+     * Saves {@code baseName.png} in the directory. A chart keeps its layout while it is drawn: two threads that
+     * save at once draw two charts.
+     */
+    public static void savePng(XYChart chart, Path directory, String baseName) throws IOException {
         BitmapEncoder.saveBitmap(chart, directory.resolve(baseName + ".png").toString(),
                 BitmapEncoder.BitmapFormat.PNG);
+    }
+
+    /** Saves {@code baseName.svg} in the directory (see {@link #savePng} on threads). */
+    public static void saveSvg(XYChart chart, Path directory, String baseName) throws IOException {
         VectorGraphicsEncoder.saveVectorGraphic(chart, directory.resolve(baseName + ".svg").toString(),
                 VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
     }

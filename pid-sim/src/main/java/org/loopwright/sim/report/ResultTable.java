@@ -79,6 +79,7 @@ public final class ResultTable {
     private final String caption;
     private final List<Column> columns;
     private final List<List<Object>> rows = new ArrayList<>();
+    private String note = "";
 
     private ResultTable(String caption, List<Column> columns) {
         this.caption = caption;
@@ -94,6 +95,17 @@ public final class ResultTable {
      */
     public static ResultTable of(String caption, Column... columns) {
         return new ResultTable(caption, Arrays.asList(columns));
+    }
+
+    /**
+     * Sets the paragraph a report prints below the table: definitions too long for its caption.
+     *
+     * @param text the note
+     * @return this table
+     */
+    public ResultTable note(String text) {
+        note = text;
+        return this;
     }
 
     /**
@@ -171,7 +183,7 @@ public final class ResultTable {
             }
             body.add(line);
         }
-        return new HtmlTable(caption, columns.stream().map(Column::headerWithUnit).toList(), body);
+        return new HtmlTable(caption, columns.stream().map(Column::headerWithUnit).toList(), body, note);
     }
 
     /**

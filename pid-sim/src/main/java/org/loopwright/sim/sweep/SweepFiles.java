@@ -11,6 +11,10 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import java.util.stream.Collectors;
 
 import org.apache.commons.csv.CSVFormat;
@@ -69,9 +73,26 @@ public final class SweepFiles {
     public static List<Path> write(SweepResult result, Path directory, String title, Units units) throws IOException {
         Files.createDirectories(directory);
         Path csv = directory.resolve(CSV);
-        writeCsv(result, csv);
         System.setProperty("java.awt.headless", "true");
-        ResponsePlot.save(plot(result, title, units), directory, PLOT_NAME);
+        // the three files are independent: written side by side on the cores the runs used, the plot's figures
+        // worked out once; each picture draws a chart of its own (a chart keeps its layout while it is drawn)
+        ExecutorService pool = Executors.newFixedThreadPool(2);
+        try {
+            Future<?> rows = pool.submit(() -> {
+                writeCsv(result, csv);
+                return null;
+            });
+            PlotFigures figures = PlotFigures.of(result);
+            Future<?> vector = pool.submit(() -> {
+                ResponsePlot.saveSvg(chart(figures, title, units), directory, PLOT_NAME);
+                return null;
+            });
+            ResponsePlot.savePng(chart(figures, title, units), directory, PLOT_NAME);
+            awaitWriting(rows);
+            awaitWriting(vector);
+        } finally {
+            pool.shutdownNow();
+        }
         return List.of(csv, directory.resolve(PLOT_NAME + ".png"), directory.resolve(PLOT_NAME + ".svg"));
     }
 
@@ -93,6 +114,24 @@ public final class SweepFiles {
         header.add(nominal.linear().isPresent() ? "largest_pole_magnitude" : "decay_ratio");
         header.addAll(FIGURES);
         return header;
+    }
+
+    /** Waits for a file being written on another thread; its failure is thrown here. */
+    private static void awaitWriting(Future<?> writing) throws IOException {
+        try {
+            writing.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IOException("interrupted while the sweep's files were written", e);
+        } catch (ExecutionException e) {
+            if (e.getCause() instanceof IOException io) {
+                throw io;
+            }
+            if (e.getCause() instanceof RuntimeException runtime) {
+                throw runtime;
+            }
+            throw new IllegalStateException("writing a sweep file failed", e.getCause());
+        }
     }
 
     /** Writes one row per run. */
@@ -151,35 +190,57 @@ public final class SweepFiles {
 
     /** The envelope plot with the measurement's unit on its axis (the scenario's {@code units}). */
     public static XYChart plot(SweepResult result, String title, Units units) {
-        // a nonlinear plant's runs are judged by simulation: name what was seen, not a pole verdict
-        String unstableWord = result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating or diverged";
-        double[] times = result.nominal().plotTimes();
-        List<double[]> stable = new ArrayList<>();
-        List<SweepRun> unstable = new ArrayList<>();
-        for (SweepRun run : result.runs()) {
-            if (run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.OSCILLATING
-                    || run.stability() == LoopStability.DIVERGED) {
-                unstable.add(run);
-            } else if (run.plotMeasurements().length == times.length) {
-                stable.add(run.plotMeasurements());
+        return chart(PlotFigures.of(result), title, units);
+    }
+
+    /**
+     * What the plot shows, worked out from the runs once: the instants, the stable runs' envelope, the range
+     * the unstable runs are clipped to, and the runs drawn in red.
+     */
+    private record PlotFigures(SweepResult result, String unstableWord, double[] times, int stableRuns,
+            double[][] bands, double low, double high, List<SweepRun> unstable) {
+
+        static PlotFigures of(SweepResult result) {
+            // a nonlinear plant's runs are judged by simulation: name what was seen, not a pole verdict
+            String unstableWord = result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating or diverged";
+            double[] times = result.nominal().plotTimes();
+            List<double[]> stable = new ArrayList<>();
+            List<SweepRun> unstable = new ArrayList<>();
+            for (SweepRun run : result.runs()) {
+                if (run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.OSCILLATING
+                        || run.stability() == LoopStability.DIVERGED) {
+                    unstable.add(run);
+                } else if (run.plotMeasurements().length == times.length) {
+                    stable.add(run.plotMeasurements());
+                }
             }
-        }
-        double[][] envelope = envelope(stable, times.length);
-        double low = Double.POSITIVE_INFINITY;
-        double high = Double.NEGATIVE_INFINITY;
-        for (double y : concat(envelope[0], envelope[4], result.nominal().plotMeasurements())) {
-            if (Double.isFinite(y)) {
-                low = Math.min(low, y);
-                high = Math.max(high, y);
+            double[][] envelope = envelope(stable, times.length);
+            double low = Double.POSITIVE_INFINITY;
+            double high = Double.NEGATIVE_INFINITY;
+            for (double y : concat(envelope[0], envelope[4], result.nominal().plotMeasurements())) {
+                if (Double.isFinite(y)) {
+                    low = Math.min(low, y);
+                    high = Math.max(high, y);
+                }
             }
+            return new PlotFigures(result, unstableWord, times, stable.size(), envelope, low, high, unstable);
         }
+    }
+
+    private static XYChart chart(PlotFigures f, String title, Units units) {
+        SweepResult result = f.result();
+        List<SweepRun> unstable = f.unstable();
+        double[] times = f.times();
+        double[][] envelope = f.bands();
+        double low = f.low();
+        double high = f.high();
         int drawn = Math.min(UNSTABLE_DRAWN, unstable.size());
         XYChart chart = ResponsePlot.chart(title + ": " + result.runs().size() + " runs"
-                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " " + unstableWord + " ("
+                + (unstable.isEmpty() ? "" : ", " + unstable.size() + " " + f.unstableWord() + " ("
                         + (drawn < unstable.size() ? "first " + drawn + " shown" : "shown") + " in red, clipped)"),
                 "time (s)", Units.axis("measurement", units.process()));
-        if (!stable.isEmpty()) {
-            band(chart, stable.size() + " stable runs: min to max", times, envelope[0], envelope[4], OUTER_BAND);
+        if (f.stableRuns() > 0) {
+            band(chart, f.stableRuns() + " stable runs: min to max", times, envelope[0], envelope[4], OUTER_BAND);
             band(chart, "10th to 90th percentile", times, envelope[1], envelope[3], INNER_BAND);
             XYSeries median = line(chart, "median", times, envelope[2], low, high, false);
             if (median != null) {
@@ -192,8 +253,8 @@ public final class SweepFiles {
         double margin = CLIP_MARGIN * (high - low);
         for (int i = 0; i < drawn; i++) {
             SweepRun run = unstable.get(i);
-            XYSeries series = line(chart, i == 0 ? unstableWord + " runs" : "run " + run.index(), run.plotTimes(), run.plotMeasurements(), low - margin,
-                    high + margin, clip);
+            XYSeries series = line(chart, i == 0 ? f.unstableWord() + " runs" : "run " + run.index(), run.plotTimes(),
+                    run.plotMeasurements(), low - margin, high + margin, clip);
             if (series != null) {
                 series.setLineColor(UNSTABLE_COLOUR);
                 series.setLineStyle(new BasicStroke(1.0f));

@@ -121,9 +121,14 @@ class HtmlReportTest {
         assertSelfContained(page);
         assertThat(elements(page, XHTML, "title").get(0).getTextContent()).isEqualTo("Simulation of pump.yaml");
         Element metricsTable = table(page, "Response metrics");
-        // the verdict first, and the overshoot's definition with the table (ResponseMetrics' one constant)
-        assertThat(elements(metricsTable, XHTML, "caption").get(0).getTextContent())
-                .contains(ResponseMetrics.OVERSHOOT_DEFINITION);
+        // the verdict first, and the definitions in a paragraph below the table (ResponseMetrics' constants),
+        // not in its caption, which is as narrow as the table
+        assertThat(elements(metricsTable, XHTML, "caption").get(0).getTextContent()).isEqualTo("Response metrics");
+        List<Element> notes = elements((Element) metricsTable.getParentNode(), XHTML, "p");
+        assertThat(notes).hasSize(1);
+        assertThat(notes.get(0).getAttribute("class")).isEqualTo("note");
+        assertThat(notes.get(0).getTextContent()).contains(ResponseMetrics.OVERSHOOT_DEFINITION)
+                .contains(ResponseMetrics.SETTLED_RULE);
         assertThat(cell(metricsTable, "response")).isEqualTo("settled").isEqualTo(metrics.get("response").asText());
         assertThat(bodyRowFirstCells(metricsTable)).containsExactly("response", "rise time (10-90 %)", "settling time (2 %)",
                 "overshoot", "peak time", "steady-state error", "IAE", "ISE", "ITAE", "total variation of output",

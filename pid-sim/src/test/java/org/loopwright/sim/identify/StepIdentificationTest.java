@@ -72,6 +72,31 @@ class StepIdentificationTest {
         assertThat(model.rmse()).isCloseTo(0.15, within(0.02));
     }
 
+    /**
+     * A long record with a short response (a day's log around one bump): the two-point start's
+     * smoothing (1 % of the record, here 100 s) once averaged across the step, moved the response
+     * ahead of it and refused the record as showing no response. Analytic response of
+     * 2·e^(−5s)/(20s + 1) to a unit step at t = 5000 s, 1 s samples, no noise.
+     */
+    @Test
+    void aResponseShorterThanTheSmoothingWindowIsStillFound() {
+        int n = 20_001;
+        double[] t = new double[n];
+        double[] u = new double[n];
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = i;
+            u[i] = t[i] >= 5000.0 ? 1.0 : 0.0;
+            y[i] = 2.0 * IdentifiedModel.unitStep(new double[] {20.0}, t[i] - 5000.0 - 5.0);
+        }
+
+        IdentifiedModel model = StepIdentification.identify(new StepTest("day.csv", t, u, y), ModelKind.FOPDT);
+
+        assertThat(model.gain()).isCloseTo(2.0, within(1e-3));
+        assertThat(model.timeConstants()[0]).isCloseTo(20.0, within(0.05));
+        assertThat(model.deadTimeSeconds()).isCloseTo(5.0, within(0.05));
+    }
+
     @Test
     void secondOrderPlantFittedAsFirstOrderAgreesWithTheHalfRule() {
         // Skogestad (2003) half rule: 1·e^(−s)/((10s+1)(4s+1)) ≈ e^(−3s)/(12s+1), i.e. T = T1 + T2/2 = 12,
@@ -106,6 +131,11 @@ class StepIdentificationTest {
                         "bad.csv: has 2 data rows; a step test needs at least 10"),
                 Arguments.of(flat.toString().replace("\n3,5,1\n", "\n3,five,1\n"),
                         "bad.csv: row 5, column 'input': must be a finite number: input=five"),
+                // read by the harness's one CSV reader (CsvRows): broken quoting names line and character
+                Arguments.of(flat.toString().replace("\n3,5,1\n", "\n3,\"5\"x,1\n"),
+                        "bad.csv:5:6: not valid CSV: only a comma may follow a quoted cell's closing quote"),
+                Arguments.of(flat.toString().replace("\n3,5,1\n", "\n# a comment\n\n3 , 5 ,\"1\"\n4,5,x\n"),
+                        "bad.csv: row 6, column 'output': must be a finite number: output=x"),
                 Arguments.of(flat.toString().replace("\n3,5,1\n", "\n1,5,1\n"),
                         "bad.csv: row 5, column 'time': must increase from row to row: time=1 after 2"),
                 Arguments.of(flat.toString(),
