@@ -59,35 +59,6 @@ class SimcOtherModelsTest {
         assertThat(gains.derivativeTime()).isCloseTo(derivativeTime, within(1e-9));
     }
 
-    @org.junit.jupiter.api.Test
-    void eachSettingsNoteSaysWhatTheRuleAssumed() {
-        // the note names τc and says when it is the default τc = L (Skogestad 2003's recommendation), the
-        // half-rule model a PI setting was computed on, and λ with "(default)" only when it was not given
-        FopdtModel fopdt = new FopdtModel(2.0, 10.0, 1.0);
-        assertThat(((TunedGains) ModelRule.SIMC.tune(fopdt, ControllerType.PI)).note()).isEqualTo("tau_c = 1.000 s (= L)");
-        assertThat(((TunedGains) ModelRule.SIMC.tune(fopdt, ControllerType.PI, 3.0)).note()).isEqualTo("tau_c = 3.000 s");
-        // half rule of SECOND_ORDER (worked above): T = 10 + 3/2 = 11.5, L = 1 + 3/2 = 2.5
-        assertThat(((TunedGains) ModelRule.SIMC.tune(SECOND_ORDER, ControllerType.PI)).note())
-                .isEqualTo("tau_c = 2.500 s (= L); half rule: T = 11.50 s, L = 2.500 s");
-        // an integrator with lag 4: PI on L = 2 + 4/2 = 4; without a lag there is nothing to halve
-        assertThat(((TunedGains) ModelRule.SIMC.tune(LEVEL_WITH_LAG, ControllerType.PI)).note())
-                .isEqualTo("tau_c = 4.000 s (= L); half rule: L = 4.000 s");
-        assertThat(((TunedGains) ModelRule.SIMC.tune(LEVEL, ControllerType.PI)).note()).isEqualTo("tau_c = 2.000 s (= L)");
-        assertThat(((TunedGains) ModelRule.LAMBDA.tune(fopdt, ControllerType.PI)).note()).isEqualTo("lambda = 10.00 s (default)");
-        assertThat(((TunedGains) ModelRule.LAMBDA.tune(fopdt, ControllerType.PI, 12.0)).note()).isEqualTo("lambda = 12.00 s");
-    }
-
-    @org.junit.jupiter.api.Test
-    void aDelayDominantProcessIsRefusedWithItsRatioAndAZeroClosedLoopTimeIsNoTime() {
-        // L = 4, T = 2: L/T = 2 (L·T would be 8), beyond Cohen–Coon's L/T <= 1
-        assertThat(ModelRule.COHEN_COON.tune(new FopdtModel(1.0, 2.0, 4.0), ControllerType.PI)).isEqualTo(
-                new RuleNotApplicable(ModelRule.COHEN_COON, ControllerType.PI,
-                        "the process is delay-dominant, outside cohen-coon's range L/T <= 1.000: L/T=2.000"));
-        org.assertj.core.api.Assertions.assertThatThrownBy(() -> ModelRule.SIMC.tune(LEVEL, ControllerType.PI, 0.0))
-                .hasMessage("closedLoopTimeSeconds must be finite and > 0 (NaN for the rule's default):"
-                        + " closedLoopTimeSeconds=0.0");
-    }
-
     @ParameterizedTest
     @EnumSource(ControllerType.class)
     void simcTunesACoolerOnTheMagnitudeOfItsGain(ControllerType type) {
