@@ -61,7 +61,7 @@ class ControllerProperties {
         return Draws.between(-2.0, 2.0);
     }
 
-    @Property(tries = 1000)
+    @Property
     void equivalentFormsGiveEqualOutputs(@ForAll("idealLinear") ControllerSettings idealSettings,
             @ForAll("setpointsAndMeasurements") List<double[]> samples) {
         IdealGains ideal = (IdealGains) idealSettings.gains();
@@ -79,7 +79,7 @@ class ControllerProperties {
         }
     }
 
-    @Property(tries = 1000)
+    @Property
     void superpositionHoldsWhileNoLimitActs(@ForAll("linear") ControllerSettings s,
             @ForAll("weights") double alpha, @ForAll("weights") double beta,
             @ForAll("twoInputPairs") List<double[]> samples) {
@@ -119,7 +119,7 @@ class ControllerProperties {
                 .as((r, y, h) -> new double[] {r, y, h}).list().ofSize(STEPS);
     }
 
-    @Property(tries = 1000)
+    @Property
     void outputIsNeverNanAndNeverOutOfRangeForFiniteInputs(@ForAll("industrial") ControllerSettings s,
             @ForAll boolean variablePeriod, @ForAll("anyFiniteSamples") List<double[]> samples) {
         PidController c = new PidController(s);
@@ -141,7 +141,7 @@ class ControllerProperties {
         return Draws.between(-150.0, 150.0).injectNull(0.75).list().ofSize(STEPS);
     }
 
-    @Property(tries = 1000)
+    @Property
     void derivativeStaysZeroOnSetpointStepsWhenItsWeightIsZero(@ForAll("industrial") ControllerSettings base,
             @ForAll @DoubleRange(min = 0.0, max = 1.0) double b, @ForAll @DoubleRange(min = -30.0, max = 30.0) double y,
             @ForAll("setpointSteps") List<Double> steps) {

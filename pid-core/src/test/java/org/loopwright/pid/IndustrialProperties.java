@@ -297,7 +297,7 @@ class IndustrialProperties {
 
     // no jqwik edge cases: a whole scenario with every value at a bound at once says nothing that the
     // settings' own edges do not, and generating a thousand of them took a third of this property's time
-    @Property(tries = 1000, edgeCases = EdgeCasesMode.NONE)
+    @Property(edgeCases = EdgeCasesMode.NONE)
     void randomOperationKeepsEveryGuarantee(@ForAll("scenarios") Scenario scenario) {
         Run run = new Run(scenario);
         for (Step step : scenario.steps()) {

@@ -56,7 +56,7 @@ class StateSnapshotTest {
                 Arbitraries.integers().between(0, 4)).as((r, y, k) -> new double[] {r, y, k}).list().ofMaxSize(20);
     }
 
-    @Property(tries = 1000)
+    @Property
     void textFormRoundTripsExactly(@ForAll("settings") ControllerSettings s, @ForAll("samples") List<double[]> samples) {
         PidController c = new PidController(s);
         for (double[] sample : samples) {

@@ -134,19 +134,19 @@ class WindupProperties {
         return worst;
     }
 
-    @Property(tries = 1000)
+    @Property
     void integralBoundedUnderConditionalIntegration(@ForAll("clamping") ControllerSettings s,
             @ForAll boolean setpointAbove, @ForAll("samples") List<Sample> samples) {
         assertThat(worstExcess(s, setpointAbove, samples)).isLessThanOrEqualTo(0.0);
     }
 
-    @Property(tries = 1000)
+    @Property
     void integralBoundedUnderBackCalculation(@ForAll("backCalculation") ControllerSettings s,
             @ForAll boolean setpointAbove, @ForAll("samples") List<Sample> samples) {
         assertThat(worstExcess(s, setpointAbove, samples)).isLessThanOrEqualTo(0.0);
     }
 
-    @Property(tries = 1000)
+    @Property
     void integralBoundedUnderActuatorTracking(@ForAll("actuatorTracking") ControllerSettings s,
             @ForAll boolean setpointAbove, @ForAll("samples") List<Sample> samples) {
         // the actuator reads within ±0.2 of the output (so |u| in M is taken as at least 1.2)

@@ -53,7 +53,7 @@ class FormProperties {
                 Tuple.of(7, Draws.between(0.0, 1.0)));
     }
 
-    @Property(tries = 1000)
+    @Property
     void idealToParallelAndBackIsTheIdentity(@ForAll("gains") double gain,
             @ForAll("integralTimes") double integralTime, @ForAll("zeroOrGains") double derivativeTime) {
         IdealGains ideal = new IdealGains(gain, integralTime, derivativeTime);
@@ -63,7 +63,7 @@ class FormProperties {
         assertRelative(back.derivativeTime(), derivativeTime);
     }
 
-    @Property(tries = 1000)
+    @Property
     void parallelToIdealAndBackIsTheIdentity(@ForAll("gains") double kp, @ForAll("zeroOrGains") double ki,
             @ForAll("zeroOrGains") double kd) {
         ParallelGains back = new ParallelGains(kp, ki, kd).toIdeal().toParallel();
@@ -72,7 +72,7 @@ class FormProperties {
         assertRelative(back.derivativeGain(), kd);
     }
 
-    @Property(tries = 1000)
+    @Property
     void idealToSeriesAndBackIsTheIdentity(@ForAll("gains") double gain, @ForAll("integralTimes") double integralTime,
             @ForAll("seriesDerivativeFractions") double derivativeFraction) {
         IdealGains ideal = new IdealGains(gain, integralTime, derivativeFraction * integralTime);
@@ -82,7 +82,7 @@ class FormProperties {
         assertThat(back.derivativeTime()).isCloseTo(ideal.derivativeTime(), within(1e-10 * integralTime));
     }
 
-    @Property(tries = 1000)
+    @Property
     void seriesToIdealAndBackIsTheIdentityWhenTiIsAtLeastTd(@ForAll("gains") double gain,
             @ForAll("integralTimes") double integralTime, @ForAll("idealDerivativeFractions") double derivativeFraction) {
         // The series form with Ti' < Td' is the same controller as the one with Ti' and Td' swapped;
@@ -107,7 +107,7 @@ class FormProperties {
                 logUniform(1e-3, 1e2)).as((k, ti, td, w) -> new double[] {k, ti, td, w});
     }
 
-    @Property(tries = 1000)
+    @Property
     void equivalentFormsHaveTheSameFrequencyResponse(@ForAll("responseCases") double[] c) {
         double gain = c[0];
         double integralTime = c[1];

@@ -59,7 +59,14 @@ class LoopMonitorEdgeTest {
         }
         assertThat(summary(monitor).oscillationAmplitude()).isNaN();
         assertThat(summary(monitor).oscillationPeriodSeconds()).isNaN();
-        // ten more half cycles of amplitude 1, then eight of amplitude 0.5 (period 2 s throughout)
+        // the next crossing closes a second, and two are enough (e is 0 at k = 2048, positive after it)
+        for (; k <= 1024 * 2 + 1; k++) {
+            double e = triangle(k * h, 1.0, 2.0);
+            monitor.sample(1.0, 1.0 - e, 50.0, true);
+        }
+        assertThat(summary(monitor).oscillationAmplitude()).isEqualTo(1.0);
+        assertThat(summary(monitor).oscillationPeriodSeconds()).isCloseTo(2.0, within(1e-12));
+        // nine more half cycles of amplitude 1, then eight of amplitude 0.5 (period 2 s throughout)
         for (; k <= 1024 * 11; k++) {
             double e = triangle(k * h, 1.0, 2.0);
             monitor.sample(1.0, 1.0 - e, 50.0, true);
@@ -78,8 +85,9 @@ class LoopMonitorEdgeTest {
     void anOutputWithinAFewPartsInABillionOfALimitIsAtIt() {
         // the tolerance is 1e-9·max(1, |limit|): 1e-7 at 100, 1e-9 at 0 (our choice: the controller's
         // limits are exact, so only rounding in the caller's arithmetic can leave it a hair inside)
+        // limits with their tolerance are inclusive: 100 − 1e-9·100 and 0 + 1e-9 themselves are at the limit
         double[][] cases = {{100.0 - 5e-8, 1.0}, {100.0 - 2e-7, 0.0}, {5e-10, 1.0}, {2e-9, 0.0}, {100.0, 1.0},
-            {0.0, 1.0}, {50.0, 0.0}};
+            {0.0, 1.0}, {50.0, 0.0}, {100.0 - 1e-9 * 100.0, 1.0}, {1e-9, 1.0}};
         for (double[] c : cases) {
             LoopMonitor monitor = new LoopMonitor(settings(0.01).build());
             monitor.sample(1.0, 1.0, c[0], true);
@@ -135,6 +143,23 @@ class LoopMonitorEdgeTest {
             monitor.sample(1.0, k % 2 == 0 ? 1.25 : 1.0, 50.0, true);
         }
         assertThat(summary(monitor).noiseStdDev()).isCloseTo(sigma, within(1e-15));
+    }
+
+    @Test
+    void theNoiseLevelsAreStandardDeviationsNotMedians() {
+        // |Δy| = 0.25 every sample: σ = 0.25/(0.6745·√2) = 0.2621 (white Gaussian noise: median |Δy| =
+        // 0.67449·√2·σ). The levels are in σ: 0.2621 lies above 0.25 and below 0.27 (a warning), and above
+        // 0.25 with the alarm there; compared as medians (0.25 against the level) it would be neither
+        assertThat(noiseStatus(0.25, 0.27)).isEqualTo(ConditionStatus.WARN);
+        assertThat(noiseStatus(0.2, 0.25)).isEqualTo(ConditionStatus.ALARM);
+    }
+
+    private static ConditionStatus noiseStatus(double warn, double alarm) {
+        LoopMonitor monitor = new LoopMonitor(settings(0.01).noiseLevels(warn, alarm).build());
+        for (int k = 0; k < 300; k++) {
+            monitor.sample(1.0, k % 2 == 0 ? 1.0 : 1.25, 50.0, true);
+        }
+        return monitor.status(LoopCondition.NOISE);
     }
 
     @Test

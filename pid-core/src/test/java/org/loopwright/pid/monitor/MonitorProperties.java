@@ -40,7 +40,7 @@ class MonitorProperties {
                 .acceptableAmplitude(0.05).outputRange(-100.0, 100.0).frozenSamples(5).build());
     }
 
-    @Property(tries = 1000)
+    @Property
     void everyFigureStaysInItsRange(@ForAll("sequences") List<Sample> samples) {
         LoopMonitor monitor = monitor();
         MonitorSummary s = new MonitorSummary();
@@ -63,7 +63,7 @@ class MonitorProperties {
                 && (Double.isNaN(s.oscillationPeriodSeconds()) || s.oscillationPeriodSeconds() > 0.0);
     }
 
-    @Property(tries = 1000)
+    @Property
     void aBadSampleChangesNoFigure(@ForAll("sequences") List<Sample> samples) {
         LoopMonitor withBad = monitor();
         LoopMonitor without = monitor();

@@ -30,7 +30,7 @@ class CascadeProperties {
 
     private static final double ROUNDING = 1e-9;
 
-    @Property(tries = 1000)
+    @Property
     void innerSetpointNeverStepsAtASwitch(
             @ForAll @IntRange(min = 1, max = 6) int ratio,
             @ForAll @DoubleRange(min = 0.05, max = 5.0) double outerGain,

@@ -36,7 +36,7 @@ class GainScheduleProperties {
      * new settings, |Δu| ≤ (b0 + b1)·|e| + (1 − ad)·|D| (the retune rule: the proportional term's
      * change goes into the integral; D is the last derivative term).
      */
-    @Property(tries = 1000)
+    @Property
     void crossingTheScheduleIsBumpless(
             @ForAll @Size(min = 1, max = 4) List<@DoubleRange(min = 0.05, max = 20.0) Double> gains,
             @ForAll @Size(min = 1, max = 4) List<@DoubleRange(min = 0.5, max = 100.0) Double> integralTimes,
@@ -69,7 +69,7 @@ class GainScheduleProperties {
     }
 
     /** The gains in force are within half a step of the linear interpolation, and exact on a point. */
-    @Property(tries = 1000)
+    @Property
     void gainsInForceFollowTheInterpolation(
             @ForAll @Size(min = 1, max = 5) List<@DoubleRange(min = 0.05, max = 20.0) Double> gains,
             @ForAll @Size(min = 1, max = 5) List<@DoubleRange(min = 0.5, max = 100.0) Double> integralTimes,

@@ -60,7 +60,7 @@ class OperatorChannelProperties {
         return perThread.list().ofMinSize(1).ofMaxSize(THREADS).list().ofMinSize(1).ofMaxSize(6);
     }
 
-    @Property(tries = 1000)
+    @Property
     void commandsLandAtTheNextTickInOrderOnce(@ForAll("rounds") List<List<List<Command>>> rounds)
             throws InterruptedException, ExecutionException {
         GatedClock clock = new GatedClock();

@@ -32,7 +32,7 @@ class TuningRuleProperties {
         assertThat(result.citation()).isNotBlank();
     }
 
-    @Property(tries = 1000)
+    @Property
     void simcPiIsFinitePositiveForAnyDeadTime(@ForAll @DoubleRange(min = 0.01, max = 100) double k,
                                               @ForAll boolean negative,
                                               @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
@@ -40,7 +40,7 @@ class TuningRuleProperties {
         assertFinitePositive(ModelRule.SIMC.tune(model(k, negative, t, ratio), ControllerType.PI), ControllerType.PI);
     }
 
-    @Property(tries = 1000)
+    @Property
     void amigoIsFinitePositiveForAnyPositiveDeadTime(@ForAll @DoubleRange(min = 0.01, max = 100) double k,
                                                      @ForAll boolean negative,
                                                      @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
@@ -49,7 +49,7 @@ class TuningRuleProperties {
         assertFinitePositive(ModelRule.AMIGO.tune(model(k, negative, t, ratio), type), type);
     }
 
-    @Property(tries = 1000)
+    @Property
     void lambdaIsFinitePositiveWithItsDefault(@ForAll @DoubleRange(min = 0.01, max = 100) double k,
                                               @ForAll boolean negative,
                                               @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
@@ -58,7 +58,7 @@ class TuningRuleProperties {
         assertFinitePositive(ModelRule.LAMBDA.tune(model(k, negative, t, ratio), type), type);
     }
 
-    @Property(tries = 1000)
+    @Property
     void stepRulesAreFinitePositiveUpToLEqualsTAndInapplicableBeyond(
             @ForAll @DoubleRange(min = 0.01, max = 100) double k, @ForAll boolean negative,
             @ForAll @DoubleRange(min = 0.01, max = 1000) double t,
@@ -74,7 +74,7 @@ class TuningRuleProperties {
         }
     }
 
-    @Property(tries = 1000)
+    @Property
     void ultimateRulesAreFinitePositive(@ForAll @DoubleRange(min = 0.001, max = 1000) @Scale(4) double ku,
                                         @ForAll @DoubleRange(min = 0.001, max = 10000) @Scale(4) double pu,
                                         @ForAll ControllerType type) {

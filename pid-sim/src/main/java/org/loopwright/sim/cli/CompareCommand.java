@@ -55,7 +55,7 @@ import picocli.CommandLine.Spec;
 public final class CompareCommand implements Callable<Integer> {
 
     /** The periods studied when none are given (see {@link DiscretisationStudy#defaultPeriods}). */
-    private static final String DEFAULT_PERIODS = "omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own";
+    private static final String DEFAULT_PERIODS = "ωc·h = 0.02, 0.1, 0.3, 1 and the scenario's own";
 
     @Spec
     private CommandSpec spec;
@@ -182,10 +182,10 @@ public final class CompareCommand implements Callable<Integer> {
 
     private void table(PrintWriter out, StudyResult result, boolean defaultPeriods, Units units) {
         out.printf(Locale.ROOT, "Discretisation study of %s%n", scenarioFile);
-        out.printf(Locale.ROOT, "continuous gain crossover omega_c = %.4g rad/s; periods %s s%s%n",
+        out.printf(Locale.ROOT, "continuous gain crossover ωc = %.4g rad/s; periods %s s%s%n",
                 result.crossoverRadPerSecond(), result.periodsSeconds(),
                 defaultPeriods ? " (default: " + DEFAULT_PERIODS + ")" : "");
-        out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice omega_c*h %s-%s%n",
+        out.printf(Locale.ROOT, "set-point step %s, load step %s; common practice ωc·h %s-%s%n",
                 result.setpointStepSize(), result.loadStepSize(), SamplingVerdict.TYPICAL_LOW,
                 SamplingVerdict.TYPICAL_HIGH);
         out.print(StudyTable.of(result, units).text());

@@ -143,7 +143,7 @@ class FrequencyCommandsTest {
     void compareTableUsesDefaultPeriodsFromTheCrossover() {
         CommandRun run = run("compare", scenario("third-order-p.yaml"));
         assertThat(run.exitCode()).as(run.err()).isZero();
-        assertThat(run.out()).contains("(default: omega_c*h = 0.02, 0.1, 0.3, 1 and the scenario's own)",
+        assertThat(run.out()).contains("(default: ωc·h = 0.02, 0.1, 0.3, 1 and the scenario's own)",
                 "periods [0.01, 0.016, 0.081, 0.24, 0.81] s", "continuous", "finer than needed",
                 "typical", "coarse");
     }
