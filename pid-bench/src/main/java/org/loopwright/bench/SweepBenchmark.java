@@ -1,7 +1,15 @@
 package org.loopwright.bench;
 
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicInteger;
 
+import org.loopwright.pid.ControllerSettings;
 import org.loopwright.pid.PidController;
 import org.loopwright.sim.plant.LinearPlant;
 import org.loopwright.sim.plant.TransferFunction;
@@ -70,6 +78,73 @@ public class SweepBenchmark {
             controller = new PidController(pump.controller().orElseThrow());
             setpoint = pump.setpoint().get(0).value();
             period = pump.samplePeriodSeconds();
+        }
+    }
+
+    /**
+     * The machine's own ceiling for the speed-up: {@value #RUNS} + 1 runs of the bare plant + controller step
+     * ({@value #BARE_RUN_STEPS} steps each, run 0's plant and the scenario's controller), shared out exactly as
+     * {@link Sweep#run} shares its runs (a pool of {@code threads} made per call, indices taken from one counter,
+     * one plant and controller per thread), with nothing of the sweep's own work. A sweep cannot scale better
+     * than this; what the machine's other load takes from the second core shows here too.
+     */
+    @State(Scope.Thread)
+    public static class BareRunsState {
+        /** Threads of the pool. */
+        @Param({"1", "2"})
+        public int threads;
+
+        TransferFunction plant;
+        ControllerSettings settings;
+        double setpoint;
+        double period;
+
+        /** Reads run 0's plant and the controller. */
+        @Setup
+        public void setUp() {
+            Scenario pump = SweepWorkload.pump(SweepWorkload.LONG_RUN_SECONDS);
+            plant = (TransferFunction) new Sweep(pump, SweepWorkload.spread(), SweepWorkload.SEED).scenario(0).plant();
+            settings = pump.controller().orElseThrow();
+            setpoint = pump.setpoint().get(0).value();
+            period = pump.samplePeriodSeconds();
+        }
+    }
+
+    /** Steps of each bare run: as many as a long sweep run. */
+    public static final int BARE_RUN_STEPS = 10_000;
+
+    /** {@value #RUNS} + 1 bare runs on the sweep's pool pattern; the sum of the outputs, so the JIT keeps the work. */
+    @Benchmark
+    public double bareRuns(BareRunsState s) throws InterruptedException, ExecutionException {
+        ExecutorService pool = Executors.newFixedThreadPool(s.threads);
+        try {
+            AtomicInteger next = new AtomicInteger();
+            List<Future<Double>> sums = new ArrayList<>();
+            for (int w = 0; w < s.threads; w++) {
+                sums.add(pool.submit(() -> {
+                    LinearPlant plant = new LinearPlant(s.plant);
+                    PidController controller = new PidController(s.settings);
+                    double sum = 0.0;
+                    while (next.getAndIncrement() <= RUNS) {
+                        plant.reset();
+                        controller.reset();
+                        double output = 0.0;
+                        for (int k = 0; k < BARE_RUN_STEPS; k++) {
+                            plant.advance(output, s.period);
+                            output = controller.update(s.setpoint, plant.output());
+                        }
+                        sum += output;
+                    }
+                    return sum;
+                }));
+            }
+            double total = 0.0;
+            for (Future<Double> sum : sums) {
+                total += sum.get();
+            }
+            return total;
+        } finally {
+            pool.shutdownNow();
         }
     }
 

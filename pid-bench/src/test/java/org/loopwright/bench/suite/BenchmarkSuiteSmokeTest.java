@@ -24,9 +24,9 @@ class BenchmarkSuiteSmokeTest {
 
     /**
      * 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures,
-     * 2 replay figures, 2 × 2 sweeps and the sweep's step.
+     * 2 replay figures, 2 × 2 sweeps, the sweep's step and its bare runs on 1 and 2 threads.
      */
-    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2 + 4 + 1;
+    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2 + 4 + 1 + 2;
 
     @Test
     void everyBenchmarkAndLoopProducesAFiniteFigure(@TempDir Path out) throws Exception {
@@ -46,7 +46,8 @@ class BenchmarkSuiteSmokeTest {
         assertThat(names).hasSize(BENCHMARK_RUNS).doesNotHaveDuplicates()
                 .contains(SuiteSummary.BARE, SuiteSummary.FULL, SuiteSummary.BANK, SuiteSummary.SIMULATION_STEP,
                         "UpdateBenchmark.variablePeriod", "FormBenchmark.update[form=SERIES]",
-                        "DiscretisationBenchmark.update[derivativeMethod=RAMP_INVARIANT,integralMethod=TUSTIN]");
+                        "DiscretisationBenchmark.update[derivativeMethod=RAMP_INVARIANT,integralMethod=TUSTIN]",
+                        SuiteSummary.bareRuns(2));
 
         JsonNode timing = summary.get("timing");
         assertThat(timing).hasSize(8);

@@ -62,6 +62,9 @@ class SuiteSummaryTest {
         withSweep.add(new JmhFigure(SuiteSummary.sweep(10_000, 1), 1e6 + 48 * 9_000 * 30.0, 1e3, 0.0));
         withSweep.add(new JmhFigure(SuiteSummary.sweep(10_000, 2), (1e6 + 48 * 9_000 * 30.0) / 1.7, 1e3, 0.0));
         withSweep.add(new JmhFigure(SuiteSummary.SWEEP_STEP, 20.0, 0.5, 0.0));
+        // the machine's ceiling: bare runs on the same pool pattern, 1.75× from 1 to 2 threads
+        withSweep.add(new JmhFigure(SuiteSummary.bareRuns(1), 7e6, 1e3, 0.0));
+        withSweep.add(new JmhFigure(SuiteSummary.bareRuns(2), 4e6, 1e3, 0.0));
         CommandTiming sweep = new CommandTiming("CLI sweep", 5.0, "sweep pump.yaml --runs 10000", 4.2, 0, 1.5);
         CommandTiming design = new CommandTiming("design with its defaults", 10.0, "design ...", 12.5, 0, 1.5);
         SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, withSweep, List.of(), List.of(sweep, design), 48);
@@ -69,7 +72,7 @@ class SuiteSummaryTest {
         assertThat(targets).hasSize(8);
         assertThat(targets.get(4).measured()).startsWith("30.00 ns per step");
         assertThat(targets.get(4).met()).isTrue();
-        assertThat(targets.get(5).measured()).endsWith("1.70×");
+        assertThat(targets.get(5).measured()).endsWith(": 1.70×; bare plant + controller runs on the same pool: 1.75×");
         assertThat(targets.get(5).met()).isFalse();
         assertThat(targets.get(6).met()).isTrue();
         assertThat(targets.get(7).target()).isEqualTo("design with its defaults under 10.0 s wall time, JVM start included");

@@ -26,7 +26,8 @@ import picocli.CommandLine.Spec;
  * {@code replay}: runs a logged trace through a controller file, one update per row, writes the
  * trace's columns (a logged {@code output} renamed {@code logged_output}) plus {@code output,
  * proportional, integral, derivative, status} to a CSV file and prints a summary. The trace is
- * streamed: a row is read, replayed and written before the next, so memory does not grow with it. With neither {@code --controller} nor {@code --trace} it replays the built-in
+ * streamed in batches of rows ({@link Replay#stream}), so memory does not grow with it. With neither
+ * {@code --controller} nor {@code --trace} it replays the built-in
  * water bath demo. Exit code 0 on success, 2 with a file:line:column (or file: row, column)
  * message for bad input.
  */

@@ -28,7 +28,7 @@ import org.loopwright.sim.config.InputFileException;
  * bumplessly: its first output is the logged one, not the 0 of a controller at rest.
  *
  * <p>{@link #stream} reads, replays and writes the trace in batches of rows, so memory does not grow
- * with the trace; reading and writing run on threads of their own beside the controller's one.
+ * with the trace; reading and formatting run on threads of their own beside the controller's one.
  * Thread-safe: stateless.
  */
 public final class Replay {
@@ -64,8 +64,8 @@ public final class Replay {
     /**
      * Replays a trace as it is read: rows are read, replayed in order and written to {@code out} (the
      * trace's columns, the logged {@code output} renamed {@code logged_output}, then
-     * {@link TraceFile#OUTPUT_COLUMNS}) as UTF-8 a batch at a time, on threads of their own, so memory
-     * does not grow with the trace. On an error {@code out} holds a part of the result: write it to a file
+     * {@link TraceFile#OUTPUT_COLUMNS}) as UTF-8 a batch at a time, reading and formatting on threads of
+     * their own, so memory does not grow with the trace. On an error {@code out} holds a part of the result: write it to a file
      * that is moved into place only when this returns.
      *
      * @param measuredPeriod      take each row's period from the {@code time} column

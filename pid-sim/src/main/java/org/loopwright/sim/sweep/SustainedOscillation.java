@@ -35,6 +35,12 @@ import org.loopwright.sim.simulate.Trajectory;
  * cycle. The limit itself is our choice (common practice is "the swings do not die out").
  * A growing oscillation (ratio above 1) that does not reach the divergence bound counts too.
  *
+ * <p>The rule's limit: with S the stretch after the last event, two whole cycles must fit in the final half
+ * (S/2), after the first turn there, which comes up to half a period after the half starts. An oscillation of
+ * period P &gt; S/4 is therefore never caught (a slow hunt reads as stable here; it shows as never settled
+ * when it leaves the band), and one of P ≤ S/6 always is, whatever its phase (2.5 periods and the hysteresis's
+ * delay fit); between the two it depends on the phase. Lengthen the run to judge a slower loop.
+ *
  * <p>Not thread-safe: one run feeds it.
  */
 public final class SustainedOscillation {
@@ -49,7 +55,10 @@ public final class SustainedOscillation {
     public static final String RULE = "sustained oscillation: over the final half of the run after its last setpoint"
             + " change or load step, the process error makes at least two whole cycles whose swings leave the 2 %"
             + " settling band, the last swing is at least " + DECAY_RATIO_LIMIT + " of the swing a cycle before"
-            + " (decay ratio; Ziegler-Nichols' quarter decay is 0.25), and the oscillation lasts to the end";
+            + " (decay ratio; Ziegler-Nichols' quarter decay is 0.25), and the oscillation lasts to the end. Its limit:"
+            + " two whole cycles must fit in that final half, so an oscillation whose period is longer than a quarter"
+            + " of the stretch after the last event is never caught, and one at most a sixth of it always is;"
+            + " lengthen duration to judge a slow loop";
 
     private double tailStartSeconds;
     private double swingFloor;

@@ -3,10 +3,14 @@ package org.loopwright.sim.sweep;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 
 import org.hipparchus.complex.Complex;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.loopwright.pid.ControllerSettings;
@@ -14,6 +18,8 @@ import org.loopwright.pid.form.IdealGains;
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.LoopAnalysis;
 import org.loopwright.sim.metrics.ResponseMetrics;
+import org.loopwright.sim.metrics.ResponseState;
+import org.loopwright.sim.plant.DcMotorModel;
 import org.loopwright.sim.plant.PlantParameters;
 import org.loopwright.sim.plant.PlantType;
 import org.loopwright.sim.plant.TankModel;
@@ -110,6 +116,78 @@ class NonlinearSweepTest {
         assertThat(stable).as("runs that settle").isBetween(3, 37);
         assertThat(result.unstableShare()).isEqualTo(oscillating / 40.0);
         assertThat(result.worst().stability()).isEqualTo(LoopStability.OSCILLATING);
+    }
+
+    /**
+     * A motor's speed loop, Coulomb friction and a 4-sample sensor delay, PI tuned near the edge, its inertia
+     * spread ±50 %: a lighter rotor raises the loop gain and, past some inertia, the loop grows without bound.
+     * While the speed keeps its sign the friction is a constant torque, so each run is the frictionless motor's
+     * linear loop plus a bounded input: its largest closed-loop pole (computed on the same motor with the
+     * friction removed, a linear model) says whether it grows. A pole beyond 1.015 grows by 10⁶ within ~930
+     * samples (4.6 s of the 10 s run), past the divergence bound (10⁶ × the 50 rad/s setpoint, from 50 rad/s of
+     * error): the run must be stopped as diverged. A pole below 0.99 decays: the run must settle, stable.
+     * Diverged runs are counted as unstable and kept out of every distribution.
+     */
+    @Test
+    void aNonlinearLoopThatGrowsWithoutBoundIsStoppedCountedAndKeptOutOfTheDistributions(@TempDir Path dir)
+            throws Exception {
+        Path file = dir.resolve("motor-speed.yaml");
+        Files.writeString(file, """
+                controller: {form: ideal, gain: 0.6, integral-time: 0.1, sample-period: 0.005}
+                plant:
+                  type: dc-motor
+                  resistance: 1.0
+                  inductance: 0.001
+                  torque-constant: 0.1
+                  back-emf-constant: 0.1
+                  inertia: 0.001
+                  viscous-friction: 0.0001
+                  coulomb-friction: 0.01
+                  static-friction: 0.01
+                  output: speed
+                  integration-step: 0.0005
+                setpoint: [{at: 0.1, value: 50.0}]
+                sensor: {delay-samples: 4}
+                duration: 10
+                """);
+        Scenario nominal = ScenarioFile.read(file);
+        SweepResult result = new Sweep(nominal, Spread.parse("inertia=50%"), 11L).run(40, 2, index -> { });
+
+        assertThat(result.stabilityBasis()).isEqualTo(StabilityBasis.SIMULATION);
+        int diverged = 0;
+        List<SweepRun> kept = new ArrayList<>();
+        for (SweepRun run : result.runs()) {
+            DcMotorModel motor = (DcMotorModel) run.plant();
+            DcMotorModel frictionless = new DcMotorModel(motor.resistanceOhms(), motor.inductanceHenries(),
+                    motor.torqueConstant(), motor.backEmfConstant(), motor.inertia(), motor.viscousFriction(), 0.0,
+                    0.0, 0.0, motor.output(), motor.integrationStepSeconds());
+            double pole = Sweep.largestPoleMagnitude(nominal.withPlant(frictionless));
+            String why = "inertia " + motor.inertia() + ", pole " + pole;
+            if (pole > 1.015) {
+                assertThat(run.stability()).as(why).isEqualTo(LoopStability.DIVERGED);
+            } else if (pole < 0.99) {
+                assertThat(run.stability()).as(why).isEqualTo(LoopStability.STABLE);
+                assertThat(run.settled()).as(why).isTrue();
+            }
+            if (run.stability() == LoopStability.DIVERGED) {
+                assertThat(run.metrics().state()).as(why).isEqualTo(ResponseState.DIVERGED);
+                assertThat(run.metrics().overshootPercent()).as(why).isNaN();
+                assertThat(run.metrics().iae()).as(why).isNaN();
+                diverged++;
+            } else {
+                kept.add(run);
+            }
+        }
+        assertThat(diverged).as("runs stopped as diverged").isBetween(5, 35);
+        assertThat(result.divergedShare()).isEqualTo(diverged / 40.0);
+        assertThat(result.unstableShare()).isGreaterThanOrEqualTo(diverged / 40.0);
+        assertThat(result.worst().stability()).isEqualTo(LoopStability.DIVERGED);
+        assertThat(result.nominal().stability()).isEqualTo(LoopStability.STABLE);
+        // the distributions are those of the runs that were not stopped, as if the diverged ones were never drawn
+        assertThat(result.iae()).isEqualTo(Distribution.of(kept.stream().mapToDouble(r -> r.metrics().iae()).toArray()));
+        assertThat(result.iae().count()).isEqualTo(kept.size());
+        assertThat(result.overshootPercent()).isEqualTo(Distribution.of(
+                kept.stream().mapToDouble(r -> r.metrics().overshootPercent()).toArray()));
     }
 
     private static double largestPoleMagnitude(Scenario linear) {

@@ -55,6 +55,42 @@ class SustainedOscillationTest {
         }
     }
 
+    /**
+     * The rule's stated limit (see {@link SustainedOscillation}): an undamped oscillation of any phase, amplitude
+     * and offset, over a stretch S = 100 s after the last event (floor 0.04, a unit setpoint step), is caught
+     * whenever its period is at most S/6, and never when it is longer than S/4: two whole cycles must fit in the
+     * final half after its first turn.
+     */
+    @Property(tries = 1000)
+    void catchesEveryOscillationOfAtMostASixthOfTheStretch(
+            @ForAll @DoubleRange(min = 6.0, max = 50.0) double periodsInStretch,
+            @ForAll @DoubleRange(min = 0.0, max = 6.3) double phase,
+            @ForAll @DoubleRange(min = 0.1, max = 10.0) double amplitude,
+            @ForAll @DoubleRange(min = -5.0, max = 5.0) double offset) {
+        assertThat(undamped(periodsInStretch, phase, amplitude, offset).sustained()).isTrue();
+    }
+
+    @Property(tries = 1000)
+    void missesEveryOscillationSlowerThanAQuarterOfTheStretch(
+            @ForAll @DoubleRange(min = 0.5, max = 4.0, maxIncluded = false) double periodsInStretch,
+            @ForAll @DoubleRange(min = 0.0, max = 6.3) double phase,
+            @ForAll @DoubleRange(min = 0.1, max = 10.0) double amplitude,
+            @ForAll @DoubleRange(min = -5.0, max = 5.0) double offset) {
+        assertThat(undamped(periodsInStretch, phase, amplitude, offset).sustained()).isFalse();
+    }
+
+    /** offset + A·sin(2πt/P + phase) over S = 100 s after the last event at t = 0 (P = S / periods), every 10 ms. */
+    private static SustainedOscillation undamped(double periods, double phase, double amplitude, double offset) {
+        double stretch = 100.0;
+        double period = stretch / periods;
+        SustainedOscillation check = new SustainedOscillation(0.5 * stretch, 2.0 * 0.02 * 1.0);
+        for (int k = 0; k <= 10_000; k++) {
+            double t = 0.01 * k;
+            check.sample(t, offset + amplitude * Math.sin(2.0 * Math.PI * t / period + phase));
+        }
+        return check;
+    }
+
     /** Noise and quantisation whose peak to peak (0.036) is within the floor (0.04) make no swings: not an oscillation. */
     @Test
     void ripplesWithinTheFloorAreNotAnOscillation() {
