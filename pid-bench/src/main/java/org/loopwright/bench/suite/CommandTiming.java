@@ -1,10 +1,13 @@
 package org.loopwright.bench.suite;
 
+import java.io.File;
 import java.io.IOException;
 import java.lang.management.ManagementFactory;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.Collectors;
+import java.util.stream.Stream;
 
 /**
  * The wall time of one command-line run of the harness in a JVM of its own, start-up included, as a
@@ -34,8 +37,7 @@ public record CommandTiming(String what, double limitSeconds, String command, do
      */
     public static CommandTiming measure(String what, double limitSeconds, List<String> arguments, Path workDirectory)
             throws IOException, InterruptedException {
-        List<String> command = new ArrayList<>(List.of(javaBinary(), "-cp", System.getProperty("java.class.path"),
-                MAIN));
+        List<String> command = new ArrayList<>(List.of(javaBinary(), "-cp", absoluteClassPath(), MAIN));
         command.addAll(arguments);
         double load = ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
         ProcessBuilder builder = new ProcessBuilder(command).directory(workDirectory.toFile())
@@ -45,6 +47,13 @@ public record CommandTiming(String what, double limitSeconds, String command, do
         int exit = process.waitFor();
         double seconds = (System.nanoTime() - start) / 1e9;
         return new CommandTiming(what, limitSeconds, String.join(" ", arguments), seconds, exit, load);
+    }
+
+    /** This JVM's class path with every entry absolute: the run starts in another directory. */
+    private static String absoluteClassPath() {
+        return Stream.of(System.getProperty("java.class.path").split(File.pathSeparator))
+                .map(entry -> Path.of(entry).toAbsolutePath().toString())
+                .collect(Collectors.joining(File.pathSeparator));
     }
 
     private static String javaBinary() {

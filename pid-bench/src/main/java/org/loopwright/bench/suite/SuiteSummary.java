@@ -217,9 +217,10 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
     }
 
     private static TargetCheck commandTarget(CommandTiming c) {
+        String outcome = c.exitCode() == 0 ? "" : "FAILED with exit " + c.exitCode() + ", so not a timing; ";
         return new TargetCheck(c.what() + " under " + c.limitSeconds() + " s wall time, JVM start included",
-                String.format("%.2f s (load average %.2f before; exit %d): %s", c.wallSeconds(), c.loadAverageBefore(),
-                        c.exitCode(), c.command()), c.exitCode() == 0 && c.wallSeconds() < c.limitSeconds());
+                String.format("%s%.2f s (load average %.2f before): %s", outcome, c.wallSeconds(),
+                        c.loadAverageBefore(), c.command()), c.exitCode() == 0 && c.wallSeconds() < c.limitSeconds());
     }
 
     private static double finiteOrZero(double value) {

@@ -81,4 +81,14 @@ class SuiteSummaryTest {
                 .singleElement().extracting(Comparison::baseline).extracting(JmhFigure::name)
                 .isEqualTo(SuiteSummary.sweep(10_000, 1));
     }
+
+    @Test
+    void aCommandThatFailsReadsAsFailedNotAsATiming() {
+        CommandTiming broken = new CommandTiming("CLI sweep", 5.0, "sweep pump.yaml --runs 10000", 0.15, 1, 1.1);
+        SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, figures(12.0, 11.0, 20.0, 0.0), List.of(),
+                List.of(broken), 48);
+        TargetCheck sweep = s.targets().stream().filter(t -> t.target().startsWith("CLI sweep")).findFirst().orElseThrow();
+        assertThat(sweep.measured()).startsWith("FAILED with exit 1, so not a timing; 0.15 s");
+        assertThat(sweep.met()).isFalse();
+    }
 }
