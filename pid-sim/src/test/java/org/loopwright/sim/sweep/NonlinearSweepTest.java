@@ -57,18 +57,8 @@ class NonlinearSweepTest {
 
         assertThat(result.stabilityBasis()).isEqualTo(StabilityBasis.SIMULATION);
         for (SweepRun run : result.runs()) {
-            assertThat(run.draw()).isEqualTo(PlantDraw.NOMINAL);
-            assertThat(run.plant()).isEqualTo(nominal.plant());
-            assertThat(run.metrics()).as("run %d", run.index()).isEqualTo(expectedMetrics);
+            SweepTest.assertRepeatsTheNominal(run, nominal, expected, expectedMetrics);
             assertThat(run.stability()).isEqualTo(result.nominal().stability());
-            double[] times = run.plotTimes();
-            double[] measured = run.plotMeasurements();
-            int stride = (expected.length() + Sweep.PLOT_POINTS - 1) / Sweep.PLOT_POINTS;
-            for (int i = 0; i < times.length; i++) {
-                int k = Math.min(i * stride, expected.length() - 1);
-                assertThat(times[i]).isEqualTo(expected.time(k));
-                assertThat(measured[i]).isEqualTo(expected.measurement(k));
-            }
         }
         assertThat(result.nominal().metrics()).isEqualTo(expectedMetrics);
     }

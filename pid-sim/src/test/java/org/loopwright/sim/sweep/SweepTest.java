@@ -40,18 +40,8 @@ class SweepTest {
 
         assertThat(result.runs()).hasSize(6);
         for (SweepRun run : result.runs()) {
-            assertThat(run.draw()).isEqualTo(PlantDraw.NOMINAL);
-            assertThat(run.plant()).isEqualTo(nominal.plant());
-            assertThat(run.metrics()).as("run %d", run.index()).isEqualTo(expectedMetrics);
-            double[] times = run.plotTimes();
-            double[] measured = run.plotMeasurements();
-            int stride = (expected.length() + Sweep.PLOT_POINTS - 1) / Sweep.PLOT_POINTS;
-            for (int i = 0; i < times.length; i++) {
-                int k = Math.min(i * stride, expected.length() - 1);
-                assertThat(times[i]).isEqualTo(expected.time(k));
-                assertThat(measured[i]).isEqualTo(expected.measurement(k));
-            }
-            assertThat(times[times.length - 1]).isEqualTo(expected.time(expected.length() - 1));
+            assertRepeatsTheNominal(run, nominal, expected, expectedMetrics);
+            assertThat(run.plotTimes()[run.plotTimes().length - 1]).isEqualTo(expected.time(expected.length() - 1));
         }
         assertThat(result.nominal().metrics()).isEqualTo(expectedMetrics);
     }
@@ -203,5 +193,21 @@ class SweepTest {
         double largestIae = stable.runs().stream().mapToDouble(r -> r.metrics().iae()).max().orElseThrow();
         assertThat(stable.worst().metrics().iae()).isEqualTo(largestIae);
         assertThat(stable.iae().max()).isEqualTo(largestIae);
+    }
+
+    /** A run at zero spread: the nominal plant, its metrics, and its plot the nominal trajectory thinned. */
+    static void assertRepeatsTheNominal(SweepRun run, Scenario nominal, Trajectory expected,
+            ResponseMetrics expectedMetrics) {
+        assertThat(run.draw()).isEqualTo(PlantDraw.NOMINAL);
+        assertThat(run.plant()).isEqualTo(nominal.plant());
+        assertThat(run.metrics()).as("run %d", run.index()).isEqualTo(expectedMetrics);
+        double[] times = run.plotTimes();
+        double[] measured = run.plotMeasurements();
+        int stride = (expected.length() + Sweep.PLOT_POINTS - 1) / Sweep.PLOT_POINTS;
+        for (int i = 0; i < times.length; i++) {
+            int k = Math.min(i * stride, expected.length() - 1);
+            assertThat(times[i]).isEqualTo(expected.time(k));
+            assertThat(measured[i]).isEqualTo(expected.measurement(k));
+        }
     }
 }
