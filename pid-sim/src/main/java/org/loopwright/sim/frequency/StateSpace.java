@@ -1,9 +1,5 @@
 package org.loopwright.sim.frequency;
 
-import org.hipparchus.linear.ArrayRealVector;
-import org.hipparchus.linear.MatrixUtils;
-import org.hipparchus.linear.RealMatrix;
-import org.hipparchus.linear.RealVector;
 import org.loopwright.sim.plant.TransferFunction;
 
 /**
@@ -11,8 +7,16 @@ import org.loopwright.sim.plant.TransferFunction;
  * (dead time left out): A has −a1…−an in its first row and ones below the diagonal, B = e1,
  * C_i = b_i − a_i·b0, D = b0, with a and b the coefficients divided by D's leading one
  * (Åström &amp; Murray, <i>Feedback Systems</i>, 2nd ed., §6.3, reachable canonical form).
+ * A is held row-major in plain arrays, for the exact sampling's array arithmetic; a static gain has
+ * order 0 and empty arrays.
+ *
+ * @param order       n, the number of states
+ * @param dynamics    A, n×n row-major
+ * @param input       B
+ * @param output      C
+ * @param feedthrough D
  */
-record StateSpace(RealMatrix dynamics, RealVector input, RealVector output, double feedthrough) {
+record StateSpace(int order, double[] dynamics, double[] input, double[] output, double feedthrough) {
 
     static StateSpace of(TransferFunction plant) {
         double[] den = plant.denominator();
@@ -22,25 +26,20 @@ record StateSpace(RealMatrix dynamics, RealVector input, RealVector output, doub
         double[] b = new double[n + 1];
         System.arraycopy(num, 0, b, n + 1 - num.length, num.length);
         double b0 = b[0] / lead;
-        if (n == 0) {
-            return new StateSpace(null, null, null, b0);
-        }
-        RealMatrix a = MatrixUtils.createRealMatrix(n, n);
-        RealVector c = new ArrayRealVector(n);
+        double[] a = new double[n * n];
+        double[] c = new double[n];
         for (int i = 1; i <= n; i++) {
             double ai = den[i] / lead;
-            a.setEntry(0, i - 1, -ai);
-            c.setEntry(i - 1, b[i] / lead - ai * b0);
+            a[i - 1] = -ai;
+            c[i - 1] = b[i] / lead - ai * b0;
             if (i < n) {
-                a.setEntry(i, i - 1, 1.0);
+                a[i * n + i - 1] = 1.0;
             }
         }
-        RealVector bVector = new ArrayRealVector(n);
-        bVector.setEntry(0, 1.0);
-        return new StateSpace(a, bVector, c, b0);
-    }
-
-    int order() {
-        return dynamics == null ? 0 : dynamics.getRowDimension();
+        double[] bVector = new double[n];
+        if (n > 0) {
+            bVector[0] = 1.0;
+        }
+        return new StateSpace(n, a, bVector, c, b0);
     }
 }

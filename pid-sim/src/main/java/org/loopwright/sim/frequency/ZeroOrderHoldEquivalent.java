@@ -1,9 +1,8 @@
 package org.loopwright.sim.frequency;
 
 import org.hipparchus.analysis.polynomials.PolynomialFunction;
-import org.hipparchus.linear.MatrixUtils;
-import org.hipparchus.linear.RealMatrix;
-import org.hipparchus.linear.RealVector;
+import org.loopwright.sim.plant.HipparchusArithmetic;
+import org.loopwright.sim.plant.MatrixExponential;
 import org.loopwright.sim.plant.TransferFunction;
 
 /**
@@ -59,26 +58,33 @@ public final class ZeroOrderHoldEquivalent {
             return new PulseTransferFunction(PulseTransferFunction.constant(model.feedthrough()), den, wholeDelay,
                     periodSeconds);
         }
-        RealMatrix afterSwitch = holdIntegral(model, periodSeconds - tau);
-        RealMatrix beforeSwitch = holdIntegral(model, tau);
-        RealMatrix phiLate = afterSwitch.getSubMatrix(0, n - 1, 0, n - 1);
-        RealVector gammaNow = afterSwitch.getColumnVector(n).getSubVector(0, n);
-        RealMatrix phi = phiLate.multiply(beforeSwitch.getSubMatrix(0, n - 1, 0, n - 1));
-        RealVector gammaPrevious = phiLate.operate(beforeSwitch.getColumnVector(n).getSubVector(0, n));
+        double[] afterSwitch = holdIntegral(model, periodSeconds - tau);
+        double[] beforeSwitch = holdIntegral(model, tau);
+        double[] phiLate = stateBlock(afterSwitch, n);
+        double[] gammaNow = inputColumn(afterSwitch, n);
+        // the exponentials are BlockRealMatrix objects in Hipparchus, so their products sum in block order
+        double[] phi = HipparchusArithmetic.blockTimesBlock(phiLate, stateBlock(beforeSwitch, n), n);
+        double[] gammaPrevious = HipparchusArithmetic.blockTimesVector(phiLate, inputColumn(beforeSwitch, n), n);
 
         // adj(zI − Φ) = Σ_{k=0}^{n−1} M_k·z^(n−1−k);  det(zI − Φ) = Σ_{k=0}^{n} c_k·z^(n−k)
         double[] characteristic = new double[n + 1]; // ascending powers
         double[] nowTerms = new double[n];           // C·adj·Γ0, ascending powers
         double[] previousTerms = new double[n];      // C·adj·Γ1, ascending powers
-        RealMatrix m = MatrixUtils.createRealIdentityMatrix(n);
+        double[] m = identity(n);
         characteristic[n] = 1.0;
         for (int k = 1; k <= n; k++) {
-            nowTerms[n - k] = model.output().dotProduct(m.operate(gammaNow));
-            previousTerms[n - k] = model.output().dotProduct(m.operate(gammaPrevious));
-            RealMatrix phiM = phi.multiply(m);
-            double c = -phiM.getTrace() / k;
+            // M_0 = I was an Array2DRowRealMatrix, each later M_k the BlockRealMatrix of Φ·M + c·I:
+            // the two kinds sum their products in different orders
+            boolean blockM = k > 1;
+            nowTerms[n - k] = HipparchusArithmetic.dotProduct(model.output(), times(m, gammaNow, n, blockM));
+            previousTerms[n - k] = HipparchusArithmetic.dotProduct(model.output(),
+                    times(m, gammaPrevious, n, blockM));
+            double[] phiM = blockM ? HipparchusArithmetic.blockTimesBlock(phi, m, n)
+                    : HipparchusArithmetic.blockTimesRows(phi, m, n);
+            double c = -HipparchusArithmetic.trace(phiM, n) / k;
             characteristic[n - k] = c;
-            m = phiM.add(MatrixUtils.createRealIdentityMatrix(n).scalarMultiply(c));
+            HipparchusArithmetic.addScaledIdentity(phiM, n, c);
+            m = phiM;
         }
         PolynomialFunction det = new PolynomialFunction(characteristic);
         PolynomialFunction now = new PolynomialFunction(nowTerms);
@@ -94,12 +100,48 @@ public final class ZeroOrderHoldEquivalent {
                 wholeDelay, periodSeconds);
     }
 
-    /** exp([[A, B], [0, 0]]·t) = [[e^(At), ∫₀^t e^(As) ds·B], [0, 1]]. */
-    private static RealMatrix holdIntegral(StateSpace model, double seconds) {
+    private static double[] identity(int n) {
+        double[] identity = new double[n * n];
+        for (int i = 0; i < n; i++) {
+            identity[i * n + i] = 1.0;
+        }
+        return identity;
+    }
+
+    private static double[] times(double[] matrix, double[] vector, int n, boolean blockOrder) {
+        return blockOrder ? HipparchusArithmetic.blockTimesVector(matrix, vector, n)
+                : HipparchusArithmetic.rowsTimesVector(matrix, vector, n);
+    }
+
+    /** exp([[A, B], [0, 0]]·t) = [[e^(At), ∫₀^t e^(As) ds·B], [0, 1]], row-major (n+1)×(n+1). */
+    private static double[] holdIntegral(StateSpace model, double seconds) {
         int n = model.order();
-        RealMatrix augmented = MatrixUtils.createRealMatrix(n + 1, n + 1);
-        augmented.setSubMatrix(model.dynamics().scalarMultiply(seconds).getData(), 0, 0);
-        augmented.setColumnVector(n, model.input().mapMultiply(seconds).append(0.0));
-        return MatrixUtils.matrixExponential(augmented);
+        int size = n + 1;
+        double[] augmented = new double[size * size];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                augmented[i * size + j] = model.dynamics()[i * n + j] * seconds;
+            }
+            augmented[i * size + n] = model.input()[i] * seconds;
+        }
+        return MatrixExponential.of(augmented, size);
+    }
+
+    /** The top-left n×n of an (n+1)×(n+1) hold integral: e^(At). */
+    private static double[] stateBlock(double[] holdIntegral, int n) {
+        double[] block = new double[n * n];
+        for (int i = 0; i < n; i++) {
+            System.arraycopy(holdIntegral, i * (n + 1), block, i * n, n);
+        }
+        return block;
+    }
+
+    /** The last column's first n entries of an (n+1)×(n+1) hold integral: ∫₀^t e^(As) ds·B. */
+    private static double[] inputColumn(double[] holdIntegral, int n) {
+        double[] column = new double[n];
+        for (int i = 0; i < n; i++) {
+            column[i] = holdIntegral[i * (n + 1) + n];
+        }
+        return column;
     }
 }

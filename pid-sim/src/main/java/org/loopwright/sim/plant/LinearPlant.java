@@ -2,9 +2,6 @@ package org.loopwright.sim.plant;
 
 import java.util.Arrays;
 
-import org.hipparchus.linear.MatrixUtils;
-import org.hipparchus.linear.RealMatrix;
-
 /**
  * A linear plant stepped exactly: between two instants the input is constant, so the state moves by
  * x ← Φ(τ)·x + Γ(τ)·u with Φ(τ) = e^(Aτ) and Γ(τ) = ∫₀^τ e^(As)·B ds, both read from one matrix
@@ -268,19 +265,18 @@ public final class LinearPlant implements Plant {
 
     /** e^([[A, B], [0, 0]]·τ) = [[Φ(τ), Γ(τ)], [0, 1]] (Van Loan's block form). */
     private void discretise(double seconds, double[] transition, double[] inputResponse) {
-        RealMatrix augmented = MatrixUtils.createRealMatrix(order + 1, order + 1);
+        int size = order + 1;
+        double[] augmented = new double[size * size];
         for (int i = 0; i < order; i++) {
             for (int j = 0; j < order; j++) {
-                augmented.setEntry(i, j, stateMatrix[i * order + j] * seconds);
+                augmented[i * size + j] = stateMatrix[i * order + j] * seconds;
             }
-            augmented.setEntry(i, order, inputVector[i] * seconds);
+            augmented[i * size + order] = inputVector[i] * seconds;
         }
-        RealMatrix exponential = MatrixUtils.matrixExponential(augmented);
+        double[] exponential = MatrixExponential.of(augmented, size);
         for (int i = 0; i < order; i++) {
-            for (int j = 0; j < order; j++) {
-                transition[i * order + j] = exponential.getEntry(i, j);
-            }
-            inputResponse[i] = exponential.getEntry(i, order);
+            System.arraycopy(exponential, i * size, transition, i * order, order);
+            inputResponse[i] = exponential[i * size + order];
         }
     }
 
