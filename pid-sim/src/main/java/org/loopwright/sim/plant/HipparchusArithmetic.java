@@ -7,8 +7,9 @@ package org.loopwright.sim.plant;
  * <p>Hipparchus sums a matrix product in one of two orders, by the storage of the matrix on the left:
  * an {@code Array2DRowRealMatrix} (what {@code MatrixUtils.createRealMatrix} makes for small sizes) sums
  * the products of a row and a column one by one from zero; a {@code BlockRealMatrix} (what a QR solve
- * returns) sums them four at a time and adds the sum into a zeroed result, which turns −0 into +0. The
- * methods here are named after that storage. The block ones hold for a matrix within one block
+ * returns) sums them four at a time and adds the sum into a zeroed result. (That last addition, like
+ * adding the zeros of c·I off the diagonal, changes no bit of a sum begun at +0, which is never −0, but
+ * is done here too, so the operations are Hipparchus' own.) The methods here are named after that storage. The block ones hold for a matrix within one block
  * ({@link #MAX_BLOCK_DIMENSION} rows and columns); past it Hipparchus tiles the matrix and sums differently.
  *
  * <p>The sums are written as Hipparchus writes them: Java evaluates each {@code +} and {@code *} in
@@ -57,7 +58,7 @@ public final class HipparchusArithmetic {
                     sum += a[rowStart + i] * b[i * n + col];
                     i++;
                 }
-                product[rowStart + col] = 0.0 + sum; // added into the zeroed block
+                product[rowStart + col] = 0.0 + sum; // into the zeroed block
             }
         }
         return product;
@@ -75,7 +76,7 @@ public final class HipparchusArithmetic {
                 for (int i = 0; i < n; i++) {
                     sum += a[row * n + i] * b[i * n + col];
                 }
-                product[row * n + col] = 0.0 + sum; // added into the zeroed block
+                product[row * n + col] = 0.0 + sum; // into the zeroed block
             }
         }
         return product;
@@ -109,7 +110,7 @@ public final class HipparchusArithmetic {
             while (i < n) {
                 sum += a[k++] * v[i++];
             }
-            product[row] = 0.0 + sum; // added into the zeroed result
+            product[row] = 0.0 + sum; // into the zeroed result
         }
         return product;
     }
