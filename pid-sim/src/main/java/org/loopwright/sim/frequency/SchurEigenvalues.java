@@ -22,7 +22,7 @@ import org.hipparchus.util.Precision;
  * SchurEigenvaluesProperties checks. What it leaves out is the orthogonal P of both transforms, which only
  * eigenvectors need: Hipparchus computes P from the Householder vectors and updates it beside T, but no update
  * of T reads it. Plain arrays instead of matrix objects and no P: a sweep asks for the poles of every run, and
- * Hipparchus' transformers were half of a run's fixed cost, most of it in compiling them.
+ * Hipparchus' transformers were half of a run's fixed cost, much of it the JIT compiling their matrix objects.
  */
 final class SchurEigenvalues {
 
@@ -38,7 +38,7 @@ final class SchurEigenvalues {
     /** The L1 norm of the Hessenberg form (entries on and above the sub-diagonal), fixed for the iteration. */
     private final double norm;
 
-    /** Shift figures of the current step; {@link SchurTransformer}'s ShiftInfo x, y, w and exShift. */
+    // shift figures of the current step: SchurTransformer's ShiftInfo x, y, w and exShift
     private double shiftX;
     private double shiftY;
     private double shiftW;

@@ -47,7 +47,8 @@ class PolynomialRootsTest {
      */
     @Test
     void rootsOfAQuarticWithKnownRoots() {
-        List<Complex> roots = PolynomialRoots.of(new PolynomialFunction(new double[] {-0.0625, 0.0, 0.625, -1.25, 1.0}));
+        List<Complex> roots = PolynomialRoots.of(
+                new PolynomialFunction(new double[] {-0.0625, 0.0, 0.625, -1.25, 1.0}));
 
         assertThat(roots).hasSize(4);
         for (Complex known : List.of(new Complex(0.5), new Complex(-0.25), new Complex(0.5, 0.5),

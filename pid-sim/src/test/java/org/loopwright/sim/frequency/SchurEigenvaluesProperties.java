@@ -89,7 +89,8 @@ class SchurEigenvaluesProperties {
                 Arbitraries.of(0.0, 0.5, -1.0, 2.0).list().ofSize(3), Arbitraries.longs())
                 .as(SchurEigenvaluesProperties::triangularWithRepeatsPermuted);
         Arbitrary<double[][]> repeatedRoot = Combinators.combine(coefficients(),
-                Arbitraries.doubles().between(-2.0, 2.0), Arbitraries.integers().between(2, 4), Arbitraries.of(true, false))
+                Arbitraries.doubles().between(-2.0, 2.0), Arbitraries.integers().between(2, 4),
+                Arbitraries.of(true, false))
                 .as(SchurEigenvaluesProperties::companionWithRepeatedRoot)
                 .filter(c -> c.length <= 16);
         return Arbitraries.oneOf(dense, integers, repeatedDiagonal, repeatedRoot);
