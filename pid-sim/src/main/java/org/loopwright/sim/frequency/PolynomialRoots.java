@@ -6,18 +6,13 @@ import java.util.List;
 
 import org.hipparchus.analysis.polynomials.PolynomialFunction;
 import org.hipparchus.complex.Complex;
-import org.hipparchus.linear.EigenDecompositionNonSymmetric;
-import org.hipparchus.linear.MatrixUtils;
-import org.hipparchus.linear.RealMatrix;
-import org.hipparchus.linear.SchurTransformer;
 import org.hipparchus.util.FastMath;
 import org.hipparchus.util.MathArrays;
-import org.hipparchus.util.Precision;
 
 /**
- * All roots of a real polynomial, as the eigenvalues of its companion matrix (read from Hipparchus'
- * real Schur form as its non-symmetric eigen-decomposition reads them). Exact zero roots (vanishing low-order coefficients, as a pure
- * delay z^d gives) are split off first, exactly.
+ * All roots of a real polynomial, as the eigenvalues of its companion matrix ({@link SchurEigenvalues}: to the
+ * bit those of Hipparchus' non-symmetric eigen-decomposition). Exact zero roots (vanishing low-order
+ * coefficients, as a pure delay z^d gives) are split off first, exactly.
  */
 final class PolynomialRoots {
 
@@ -41,11 +36,11 @@ final class PolynomialRoots {
         if (m == 0) {
             return roots;
         }
-        RealMatrix companion = MatrixUtils.createRealMatrix(m, m);
+        double[][] companion = new double[m][m];
         for (int j = 0; j < m; j++) {
-            companion.setEntry(0, j, -c[degree - 1 - j] / c[degree]);
+            companion[0][j] = -c[degree - 1 - j] / c[degree];
             if (j > 0) {
-                companion.setEntry(j, j - 1, 1.0);
+                companion[j][j - 1] = 1.0;
             }
         }
         double[] reduced = new double[m + 1];
@@ -54,10 +49,10 @@ final class PolynomialRoots {
         // a cubic with roots -1, 0.689, -0.205 came out as -0.156 +/- 0.844i, -0.205); the candidates
         // are checked against the polynomial itself, and when they fail the transpose (same eigenvalues,
         // another path through the iteration) is tried and the better of the two kept
-        Complex[] found = eigenvalues(companion);
+        Complex[] found = SchurEigenvalues.of(companion);
         double residual = worstResidual(reduced, found);
         if (residual > ROOT_RESIDUAL) {
-            Complex[] again = eigenvalues(companion.transpose());
+            Complex[] again = SchurEigenvalues.of(transpose(companion));
             if (worstResidual(reduced, again) < residual) {
                 found = again;
             }
@@ -66,29 +61,16 @@ final class PolynomialRoots {
         return roots;
     }
 
-    /**
-     * The eigenvalues of a square matrix, exactly as {@link EigenDecompositionNonSymmetric#getEigenvalues()}
-     * gives them (its default epsilon; a 1×1 block of the real Schur form T is a real eigenvalue, a 2×2
-     * block a complex pair), without the eigenvectors that decomposition also computes: a sweep asks for
-     * the poles of every run, and the eigenvectors were a sixth of a run's fixed cost.
-     */
-    static Complex[] eigenvalues(RealMatrix matrix) {
-        double epsilon = EigenDecompositionNonSymmetric.DEFAULT_EPSILON;
-        double[][] t = new SchurTransformer(matrix, epsilon).getT().getData();
-        double negligible = matrix.getNorm1() * epsilon;
-        Complex[] values = new Complex[t.length];
-        for (int i = 0; i < t.length; i++) {
-            if (i == t.length - 1 || Precision.equals(t[i + 1][i], 0.0, negligible)) {
-                values[i] = new Complex(t[i][i]);
-            } else {
-                double x = t[i + 1][i + 1];
-                double p = 0.5 * (t[i][i] - x);
-                double z = FastMath.sqrt(FastMath.abs(p * p + t[i + 1][i] * t[i][i + 1]));
-                values[i] = new Complex(x + p, z);
-                values[++i] = new Complex(x + p, -z);
+    /** The transpose of a square matrix: the same eigenvalues, another path through the iteration. */
+    private static double[][] transpose(double[][] matrix) {
+        int n = matrix.length;
+        double[][] transposed = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                transposed[j][i] = matrix[i][j];
             }
         }
-        return values;
+        return transposed;
     }
 
     /**

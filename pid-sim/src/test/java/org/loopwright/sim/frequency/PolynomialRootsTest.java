@@ -40,4 +40,20 @@ class PolynomialRootsTest {
         assertThat(roots.subList(0, 2)).containsOnly(Complex.ZERO);
         assertThat(roots.get(2).subtract(new Complex(0.5)).norm()).isLessThan(1e-12);
     }
+
+    /**
+     * Source: analytic. (z − 0.5)(z + 0.25)(z² − z + 0.5) = z⁴ − 1.25z³ + 0.625z² − 0.0625 has the roots 0.5,
+     * −0.25 and 0.5 ± 0.5i.
+     */
+    @Test
+    void rootsOfAQuarticWithKnownRoots() {
+        List<Complex> roots = PolynomialRoots.of(
+                new PolynomialFunction(new double[] {-0.0625, 0.0, 0.625, -1.25, 1.0}));
+
+        assertThat(roots).hasSize(4);
+        for (Complex known : List.of(new Complex(0.5), new Complex(-0.25), new Complex(0.5, 0.5),
+                new Complex(0.5, -0.5))) {
+            assertThat(roots).anySatisfy(root -> assertThat(root.subtract(known).norm()).isLessThan(1e-14));
+        }
+    }
 }

@@ -41,7 +41,8 @@ class RootResidualProperties {
         try {
             roots = PolynomialRoots.of(new PolynomialFunction(c)).toArray(Complex[]::new);
         } catch (MathIllegalStateException noConvergence) {
-            // Hipparchus' Schur iteration gives up on a few random polynomials: no roots to check at
+            // the Schur iteration (Hipparchus' and its port alike) gives up on a few random polynomials:
+            // no roots to check at
             roots = null;
         }
         Assume.that(roots != null);
