@@ -5,9 +5,9 @@ import org.loopwright.sim.scenario.Scenario;
 import org.loopwright.sim.simulate.ClosedLoop;
 
 /**
- * One thread's share of a sweep: one closed loop and one {@link RunRecorder}, built once and rewound onto
- * each run's drawn plant ({@link ClosedLoop#rewind(PlantModel)}), so a run allocates nothing per step after
- * the thread's first run and keeps no trajectory. What a run still allocates, once per run: the drawn
+ * A thread's share of a sweep (up to {@value Sweep#RUNS_PER_RUNNER} runs): one closed loop and one
+ * {@link RunRecorder}, built once and rewound onto each run's drawn plant ({@link ClosedLoop#rewind(PlantModel)}),
+ * so a run allocates nothing per step after the runner's first run and keeps no trajectory. What a run still allocates, once per run: the drawn
  * plant and its scenario, the plant's discretisation for each new interval length, the stability verdict
  * and the result.
  *

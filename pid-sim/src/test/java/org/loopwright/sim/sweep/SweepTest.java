@@ -70,6 +70,23 @@ class SweepTest {
     }
 
     @Test
+    void aThreadsFreshRunnersGiveTheSameRunsAsOneThread() throws Exception {
+        // 2.5 runners' worth of runs on one thread, against three threads that renew their runners at other indices
+        Scenario nominal = shipped("booster-pump.yaml").withDuration(20.0);
+        Spread spread = Spread.parse("gain=30%,time-constant=20%,dead-time=40%");
+        int runs = Sweep.RUNS_PER_RUNNER * 5 / 2;
+        SweepResult one = new Sweep(nominal, spread, 5L).run(runs, 1, index -> { });
+        SweepResult three = new Sweep(nominal, spread, 5L).run(runs, 3, index -> { });
+        for (int i = 0; i < runs; i++) {
+            SweepRun a = one.runs().get(i);
+            SweepRun b = three.runs().get(i);
+            assertThat(b.metrics()).isEqualTo(a.metrics());
+            assertThat(b.largestPoleMagnitude()).isEqualTo(a.largestPoleMagnitude());
+            assertThat(b.plotMeasurements()).isEqualTo(a.plotMeasurements());
+        }
+    }
+
+    @Test
     void drawsStayWithinTheSpreadAndCoverIt() {
         Scenario nominal = Scenario.setpointStep(TransferFunction.fopdt(2.0, 10.0, 1.0), proportional(0.5, 0.1),
                 1.0, 10.0);
