@@ -8,8 +8,8 @@ package org.loopwright.sim.plant;
  * an {@code Array2DRowRealMatrix} (what {@code MatrixUtils.createRealMatrix} makes for small sizes) sums
  * the products of a row and a column one by one from zero; a {@code BlockRealMatrix} (what a QR solve
  * returns) sums them four at a time and adds the sum into a zeroed result. (That last addition, like
- * adding the zeros of c·I off the diagonal, changes no bit of a sum begun at +0, which is never −0, but
- * is done here too, so the operations are Hipparchus' own.) The methods here are named after that storage. The block ones hold for a matrix within one block
+ * adding the zeros of c·I off the diagonal, changes no bit of a sum begun at +0, which is never −0.) The
+ * methods here are named after that storage. The block ones hold for a matrix within one block
  * ({@link #MAX_BLOCK_DIMENSION} rows and columns); past it Hipparchus tiles the matrix and sums differently.
  *
  * <p>The sums are written as Hipparchus writes them: Java evaluates each {@code +} and {@code *} in
@@ -66,20 +66,11 @@ public final class HipparchusArithmetic {
 
     /**
      * a·b with a a {@code BlockRealMatrix} and b an {@code Array2DRowRealMatrix}
-     * ({@code BlockRealMatrix.multiply(RealMatrix)}: one by one, then into the zeroed block).
+     * ({@code BlockRealMatrix.multiply(RealMatrix)}): the sums of {@link #rowsTimes}, one by one, which Hipparchus
+     * then adds into a zeroed block, a step that changes no bit of a sum begun at +0.
      */
     public static double[] blockTimesRows(double[] a, double[] b, int n) {
-        double[] product = new double[n * n];
-        for (int row = 0; row < n; row++) {
-            for (int col = 0; col < n; col++) {
-                double sum = 0;
-                for (int i = 0; i < n; i++) {
-                    sum += a[row * n + i] * b[i * n + col];
-                }
-                product[row * n + col] = 0.0 + sum; // into the zeroed block
-            }
-        }
-        return product;
+        return rowsTimes(a, b, n);
     }
 
     /** a·v with a an {@code Array2DRowRealMatrix} ({@code Array2DRowRealMatrix.operate}). */
