@@ -115,16 +115,7 @@ public final class ZeroOrderHoldEquivalent {
 
     /** exp([[A, B], [0, 0]]·t) = [[e^(At), ∫₀^t e^(As) ds·B], [0, 1]], row-major (n+1)×(n+1). */
     private static double[] holdIntegral(StateSpace model, double seconds) {
-        int n = model.order();
-        int size = n + 1;
-        double[] augmented = new double[size * size];
-        for (int i = 0; i < n; i++) {
-            for (int j = 0; j < n; j++) {
-                augmented[i * size + j] = model.dynamics()[i * n + j] * seconds;
-            }
-            augmented[i * size + n] = model.input()[i] * seconds;
-        }
-        return MatrixExponential.of(augmented, size);
+        return MatrixExponential.ofHold(model.dynamics(), model.input(), model.order(), seconds);
     }
 
     /** The top-left n×n of an (n+1)×(n+1) hold integral: e^(At). */

@@ -263,17 +263,10 @@ public final class LinearPlant implements Plant {
         currentInputResponse = cachedInputResponse[slot];
     }
 
-    /** e^([[A, B], [0, 0]]·τ) = [[Φ(τ), Γ(τ)], [0, 1]] (Van Loan's block form). */
+    /** Φ(τ) and Γ(τ) from e^([[A, B], [0, 0]]·τ) = [[Φ(τ), Γ(τ)], [0, 1]]. */
     private void discretise(double seconds, double[] transition, double[] inputResponse) {
         int size = order + 1;
-        double[] augmented = new double[size * size];
-        for (int i = 0; i < order; i++) {
-            for (int j = 0; j < order; j++) {
-                augmented[i * size + j] = stateMatrix[i * order + j] * seconds;
-            }
-            augmented[i * size + order] = inputVector[i] * seconds;
-        }
-        double[] exponential = MatrixExponential.of(augmented, size);
+        double[] exponential = MatrixExponential.ofHold(stateMatrix, inputVector, order, seconds);
         for (int i = 0; i < order; i++) {
             System.arraycopy(exponential, i * size, transition, i * order, order);
             inputResponse[i] = exponential[i * size + order];

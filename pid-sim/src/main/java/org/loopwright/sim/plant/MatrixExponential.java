@@ -98,6 +98,25 @@ public final class MatrixExponential {
         return result;
     }
 
+    /**
+     * The zero-order-hold integrals of ẋ = Ax + Bu over {@code seconds}, both from one exponential (Van Loan's
+     * block form): e^([[A, B], [0, 0]]·t) = [[e^(At), ∫₀^t e^(As) ds·B], [0, 1]], row-major (n+1)×(n+1).
+     *
+     * @param dynamics A, row-major n×n
+     * @param input    B, n entries
+     */
+    public static double[] ofHold(double[] dynamics, double[] input, int n, double seconds) {
+        int size = n + 1;
+        double[] augmented = new double[size * size];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                augmented[i * size + j] = dynamics[i * n + j] * seconds;
+            }
+            augmented[i * size + n] = input[i] * seconds;
+        }
+        return of(augmented, size);
+    }
+
     /** The largest column sum of absolute values, summed down each column as Hipparchus' getNorm1 walks. */
     private static double norm1(double[] matrix, int n) {
         double largest = 0;
