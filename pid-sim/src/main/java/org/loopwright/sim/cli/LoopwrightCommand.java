@@ -3,6 +3,7 @@ package org.loopwright.sim.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
+import java.util.List;
 
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.config.IoWords;
@@ -17,11 +18,13 @@ import picocli.CommandLine.TypeConversionException;
  * 1 an internal error, 2 bad input (a file, an option or a value).
  */
 @Command(name = "loopwright", mixinStandardHelpOptions = true, versionProvider = BuildVersion.class,
-        description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.",
-        subcommands = {CommandLine.HelpCommand.class, SimulateCommand.class, ReplayCommand.class,
-                MarginsCommand.class, CompareCommand.class, TuneCommand.class, DesignCommand.class, IdentifyCommand.class,
-                AutotuneCommand.class, SweepCommand.class, TimingCommand.class, AssessCommand.class})
+        description = "Verify a PID controller before it drives hardware: replay, simulate, analyse, tune.")
 public final class LoopwrightCommand implements Runnable {
+
+    /** The commands after {@code help}, in the order the usage lists them. */
+    private static final List<Class<?>> COMMANDS = List.of(SimulateCommand.class, ReplayCommand.class,
+            MarginsCommand.class, CompareCommand.class, TuneCommand.class, DesignCommand.class, IdentifyCommand.class,
+            AutotuneCommand.class, SweepCommand.class, TimingCommand.class, AssessCommand.class);
 
     /** Exit code for bad input. */
     public static final int BAD_INPUT = 2;
@@ -38,9 +41,31 @@ public final class LoopwrightCommand implements Runnable {
         throw new CommandLine.ParameterException(spec.commandLine(), "a command is required");
     }
 
-    /** A command line with this project's exit codes and error handling. */
+    /** A command line with every command, this project's exit codes and error handling. */
     public static CommandLine commandLine() {
-        CommandLine cli = new CommandLine(new LoopwrightCommand());
+        CommandLine cli = withHandlers(new CommandLine(new LoopwrightCommand()));
+        cli.addSubcommand(new CommandLine.HelpCommand());
+        COMMANDS.forEach(command -> cli.addSubcommand(new CommandLine(command)));
+        return cli;
+    }
+
+    /**
+     * The command line that runs {@code args}: when the first argument names a command, with that command
+     * alone (picocli reads every command's annotations when it builds it, about a third of a second at a
+     * JVM's start for all of them); otherwise, for {@code help}, usage or an unknown name, with every command.
+     */
+    public static CommandLine forArguments(String... args) {
+        for (Class<?> command : COMMANDS) {
+            if (args.length > 0 && command.getAnnotation(Command.class).name().equals(args[0])) {
+                CommandLine cli = withHandlers(new CommandLine(new LoopwrightCommand()));
+                cli.addSubcommand(new CommandLine(command));
+                return cli;
+            }
+        }
+        return commandLine();
+    }
+
+    private static CommandLine withHandlers(CommandLine cli) {
         // the one path from bad input to exit 2: commands throw, never catch, their input errors (an
         // InputException, or a file-system error on a file named on the command line); anything else
         // is a defect of ours: exit 1 with the stack trace
@@ -76,6 +101,6 @@ public final class LoopwrightCommand implements Runnable {
 
     /** Entry point of the shaded jar. */
     public static void main(String[] args) {
-        System.exit(commandLine().execute(args));
+        System.exit(forArguments(args).execute(args));
     }
 }

@@ -276,17 +276,22 @@ public final class SweepFiles {
      * run has a value: a dropout in every run), percentiles as {@link Distribution} defines them.
      */
     private static double[][] envelope(List<double[]> runs, int instants) {
-        double[][] envelope = new double[5][instants];
-        double[] column = new double[runs.size()];
-        for (int i = 0; i < instants; i++) {
-            int n = 0;
-            for (double[] run : runs) {
+        // the runs' values gathered instant by instant, reading each run once from start to end (gathering
+        // one instant across 10^4 runs at a time would touch a different run's memory at every value)
+        double[][] columns = new double[instants][runs.size()];
+        int[] counts = new int[instants];
+        for (double[] run : runs) {
+            for (int i = 0; i < instants; i++) {
                 if (!Double.isNaN(run[i])) {
-                    column[n++] = run[i];
+                    columns[i][counts[i]++] = run[i];
                 }
             }
-            Arrays.sort(column, 0, n);
-            double[] sorted = Arrays.copyOf(column, n);
+        }
+        double[][] envelope = new double[5][instants];
+        for (int i = 0; i < instants; i++) {
+            int n = counts[i];
+            double[] sorted = Arrays.copyOf(columns[i], n);
+            Arrays.sort(sorted);
             envelope[0][i] = n == 0 ? Double.NaN : sorted[0];
             envelope[1][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 10.0);
             envelope[2][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 50.0);

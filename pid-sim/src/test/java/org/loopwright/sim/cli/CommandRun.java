@@ -11,7 +11,7 @@ import picocli.CommandLine;
 record CommandRun(int exitCode, String out, String err) {
 
     static CommandRun of(String... args) {
-        CommandLine cli = LoopwrightCommand.commandLine();
+        CommandLine cli = LoopwrightCommand.forArguments(args);
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
         cli.setOut(new PrintWriter(out));
