@@ -1,6 +1,7 @@
 package org.loopwright.sim.sweep;
 
 import java.util.Arrays;
+import java.util.function.IntToDoubleFunction;
 
 /**
  * The spread of one figure over the runs where it has a value (NaN values, figures that do not
@@ -28,12 +29,21 @@ public record Distribution(int count, double min, double median, double p90, dou
 
     /** The p-th percentile (0 ≤ p ≤ 100) of sorted values, interpolated linearly. */
     static double percentile(double[] sorted, double p) {
-        double rank = (sorted.length - 1) * p / 100.0;
+        return percentile(k -> sorted[k], sorted.length, p);
+    }
+
+    /**
+     * The p-th percentile (0 ≤ p ≤ 100) of n values, interpolated linearly, given the k-th smallest of them for
+     * any k from 0 (so a caller can select the two ranks it needs instead of sorting them all).
+     */
+    static double percentile(IntToDoubleFunction kthSmallest, int n, double p) {
+        double rank = (n - 1) * p / 100.0;
         int below = (int) Math.floor(rank);
-        if (below + 1 >= sorted.length) {
-            return sorted[sorted.length - 1];
+        if (below + 1 >= n) {
+            return kthSmallest.applyAsDouble(n - 1);
         }
         double fraction = rank - below;
-        return fraction == 0.0 ? sorted[below] : sorted[below] + fraction * (sorted[below + 1] - sorted[below]);
+        double low = kthSmallest.applyAsDouble(below);
+        return fraction == 0.0 ? low : low + fraction * (kthSmallest.applyAsDouble(below + 1) - low);
     }
 }

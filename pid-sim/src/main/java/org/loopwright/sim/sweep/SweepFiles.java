@@ -15,10 +15,13 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.function.IntToDoubleFunction;
 import java.util.stream.Collectors;
 
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
+import org.hipparchus.util.KthSelector;
+import org.hipparchus.util.PivotingStrategy;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.loopwright.sim.config.FileKey;
@@ -61,6 +64,8 @@ public final class SweepFiles {
     private static final double CLIP_MARGIN = 0.25;
     /** The most unstable or diverged runs drawn one by one. */
     private static final int UNSTABLE_DRAWN = 20;
+    /** The pivots a selection keeps for the next rank (KthSelector's heap: its first 10 levels). */
+    private static final int PIVOTS = (1 << 10) - 1;
 
     private SweepFiles() {
     }
@@ -275,7 +280,7 @@ public final class SweepFiles {
      * Min, 10th percentile, median, 90th percentile and max at each instant over the runs (NaN where no
      * run has a value: a dropout in every run), percentiles as {@link Distribution} defines them.
      */
-    private static double[][] envelope(List<double[]> runs, int instants) {
+    static double[][] envelope(List<double[]> runs, int instants) {
         // the runs' values gathered instant by instant, reading each run once from start to end (gathering
         // one instant across 10^4 runs at a time would touch a different run's memory at every value)
         double[][] columns = new double[instants][runs.size()];
@@ -288,17 +293,32 @@ public final class SweepFiles {
             }
         }
         double[][] envelope = new double[5][instants];
+        // the three percentiles by selection (Hoare's, median-of-3 pivots, the pivots kept for the next rank):
+        // about half the time of sorting 10^4 values at each instant
+        KthSelector selector = new KthSelector(PivotingStrategy.MEDIAN_OF_3);
+        int[] pivots = new int[PIVOTS];
         for (int i = 0; i < instants; i++) {
             int n = counts[i];
-            double[] sorted = Arrays.copyOf(columns[i], n);
-            Arrays.sort(sorted);
-            envelope[0][i] = n == 0 ? Double.NaN : sorted[0];
-            envelope[1][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 10.0);
-            envelope[2][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 50.0);
-            envelope[3][i] = n == 0 ? Double.NaN : Distribution.percentile(sorted, 90.0);
-            envelope[4][i] = n == 0 ? Double.NaN : sorted[n - 1];
+            double[] values = columns[i];
+            double min = n == 0 ? Double.NaN : Double.POSITIVE_INFINITY;
+            double max = n == 0 ? Double.NaN : Double.NEGATIVE_INFINITY;
+            for (int r = 0; r < n; r++) {
+                min = Math.min(min, values[r]);
+                max = Math.max(max, values[r]);
+            }
+            Arrays.fill(pivots, -1);
+            IntToDoubleFunction kthSmallest = selectorOf(selector, Arrays.copyOf(values, n), pivots);
+            envelope[0][i] = min;
+            envelope[1][i] = n == 0 ? Double.NaN : Distribution.percentile(kthSmallest, n, 10.0);
+            envelope[2][i] = n == 0 ? Double.NaN : Distribution.percentile(kthSmallest, n, 50.0);
+            envelope[3][i] = n == 0 ? Double.NaN : Distribution.percentile(kthSmallest, n, 90.0);
+            envelope[4][i] = max;
         }
         return envelope;
+    }
+
+    private static IntToDoubleFunction selectorOf(KthSelector selector, double[] values, int[] pivots) {
+        return k -> selector.select(values, pivots, k);
     }
 
     /** A filled band between two curves: one polygon, along the upper curve and back along the lower. */
