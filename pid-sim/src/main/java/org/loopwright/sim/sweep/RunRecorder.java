@@ -28,6 +28,8 @@ final class RunRecorder implements SampleRecorder {
     private double lastTime;
     private double lastMeasurement;
     private boolean diverged;
+    /** The instants of the last trace handed out, shared by the next when they are the same. */
+    private double[] sharedTimes = new double[0];
 
     /** A recorder for runs of the scenario (any plant: the window and the sample count are the plant's own). */
     RunRecorder(Scenario scenario) {
@@ -84,14 +86,16 @@ final class RunRecorder implements SampleRecorder {
         return metrics.finish(diverged);
     }
 
-    /** The thinned instants, the last sample's included. */
-    double[] plotTimes() {
-        return thinned(plotTimes, lastTime);
-    }
-
-    /** The thinned measurement at those instants. */
-    double[] plotMeasurements() {
-        return thinned(plotMeasurements, lastMeasurement);
+    /**
+     * This run's thinned measurement, the last sample's included, on the instants of the previous run's trace
+     * when they are the same.
+     */
+    PlotTrace plot() {
+        double[] times = thinned(plotTimes, lastTime);
+        if (!Arrays.equals(times, sharedTimes)) {
+            sharedTimes = times;
+        }
+        return new PlotTrace(sharedTimes, thinned(plotMeasurements, lastMeasurement));
     }
 
     private double[] thinned(double[] kept, double last) {

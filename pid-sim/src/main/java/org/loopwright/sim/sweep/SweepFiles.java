@@ -208,21 +208,21 @@ public final class SweepFiles {
         static PlotFigures of(SweepResult result) {
             // a nonlinear plant's runs are judged by simulation: name what was seen, not a pole verdict
             String unstableWord = result.stabilityBasis() == StabilityBasis.POLES ? "unstable" : "oscillating or diverged";
-            double[] times = result.nominal().plotTimes();
-            List<double[]> stable = new ArrayList<>();
+            double[] times = result.nominal().plot().times();
+            List<PlotTrace> stable = new ArrayList<>();
             List<SweepRun> unstable = new ArrayList<>();
             for (SweepRun run : result.runs()) {
                 if (run.stability() == LoopStability.UNSTABLE || run.stability() == LoopStability.OSCILLATING
                         || run.stability() == LoopStability.DIVERGED) {
                     unstable.add(run);
-                } else if (run.plotMeasurements().length == times.length) {
-                    stable.add(run.plotMeasurements());
+                } else if (run.plot().length() == times.length) {
+                    stable.add(run.plot());
                 }
             }
             double[][] envelope = envelope(stable, times.length);
             double low = Double.POSITIVE_INFINITY;
             double high = Double.NEGATIVE_INFINITY;
-            for (double y : concat(envelope[0], envelope[4], result.nominal().plotMeasurements())) {
+            for (double y : concat(envelope[0], envelope[4], result.nominal().plot().measurements())) {
                 if (Double.isFinite(y)) {
                     low = Math.min(low, y);
                     high = Math.max(high, y);
@@ -258,15 +258,15 @@ public final class SweepFiles {
         double margin = CLIP_MARGIN * (high - low);
         for (int i = 0; i < drawn; i++) {
             SweepRun run = unstable.get(i);
-            XYSeries series = line(chart, i == 0 ? f.unstableWord() + " runs" : "run " + run.index(), run.plotTimes(),
-                    run.plotMeasurements(), low - margin, high + margin, clip);
+            XYSeries series = line(chart, i == 0 ? f.unstableWord() + " runs" : "run " + run.index(), run.plot().times(),
+                    run.plot().measurements(), low - margin, high + margin, clip);
             if (series != null) {
                 series.setLineColor(UNSTABLE_COLOUR);
                 series.setLineStyle(new BasicStroke(1.0f));
                 series.setShowInLegend(i == 0);
             }
         }
-        XYSeries nominal = line(chart, "nominal plant", times, result.nominal().plotMeasurements(), low - margin,
+        XYSeries nominal = line(chart, "nominal plant", times, result.nominal().plot().measurements(), low - margin,
                 high + margin, clip);
         if (nominal != null) {
             nominal.setLineColor(Color.BLACK);
@@ -280,15 +280,16 @@ public final class SweepFiles {
      * Min, 10th percentile, median, 90th percentile and max at each instant over the runs (NaN where no
      * run has a value: a dropout in every run), percentiles as {@link Distribution} defines them.
      */
-    static double[][] envelope(List<double[]> runs, int instants) {
+    static double[][] envelope(List<PlotTrace> runs, int instants) {
         // the runs' values gathered instant by instant, reading each run once from start to end (gathering
         // one instant across 10^4 runs at a time would touch a different run's memory at every value)
         double[][] columns = new double[instants][runs.size()];
         int[] counts = new int[instants];
-        for (double[] run : runs) {
+        for (PlotTrace run : runs) {
             for (int i = 0; i < instants; i++) {
-                if (!Double.isNaN(run[i])) {
-                    columns[i][counts[i]++] = run[i];
+                double y = run.measurement(i);
+                if (!Double.isNaN(y)) {
+                    columns[i][counts[i]++] = y;
                 }
             }
         }

@@ -80,6 +80,6 @@ public final class SweepRunner {
                     : oscillation.sustained() ? LoopStability.OSCILLATING : LoopStability.STABLE;
         }
         return new SweepRun(index, draw, plant, recorder.metrics(), stability, poleMagnitude, decayRatio,
-                recorder.plotTimes(), recorder.plotMeasurements());
+                recorder.plot());
     }
 }

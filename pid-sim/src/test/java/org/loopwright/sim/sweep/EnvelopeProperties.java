@@ -22,7 +22,9 @@ class EnvelopeProperties {
     @Property(tries = 1000)
     void selectedPercentilesEqualSortedOnes(@ForAll("runs") List<double[]> runs) {
         int instants = runs.get(0).length;
-        double[][] envelope = SweepFiles.envelope(runs, instants);
+        double[] times = new double[instants];
+        double[][] envelope = SweepFiles.envelope(runs.stream().map(run -> new PlotTrace(times, run)).toList(),
+                instants);
         for (int i = 0; i < instants; i++) {
             int instant = i;
             double[] sorted = runs.stream().mapToDouble(run -> run[instant]).filter(v -> !Double.isNaN(v)).sorted()

@@ -5,6 +5,8 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Map;
 
 import org.junit.jupiter.api.Test;
@@ -41,7 +43,7 @@ class SweepTest {
         assertThat(result.runs()).hasSize(6);
         for (SweepRun run : result.runs()) {
             assertRepeatsTheNominal(run, nominal, expected, expectedMetrics);
-            assertThat(run.plotTimes()[run.plotTimes().length - 1]).isEqualTo(expected.time(expected.length() - 1));
+            assertThat(run.plot().time(run.plot().length() - 1)).isEqualTo(expected.time(expected.length() - 1));
         }
         assertThat(result.nominal().metrics()).isEqualTo(expectedMetrics);
     }
@@ -61,12 +63,30 @@ class SweepTest {
             assertThat(b.metrics()).isEqualTo(a.metrics());
             assertThat(b.stability()).isEqualTo(a.stability());
             assertThat(b.largestPoleMagnitude()).isEqualTo(a.largestPoleMagnitude());
-            assertThat(b.plotMeasurements()).isEqualTo(a.plotMeasurements());
+            assertThat(b.plot().measurements()).isEqualTo(a.plot().measurements());
         }
         assertThat(one.runs().stream().map(SweepRun::draw).distinct()).as("the draws differ from run to run")
                 .hasSize(24);
         SweepResult otherSeed = new Sweep(nominal, spread, 43L).run(1, 1, index -> { });
         assertThat(otherSeed.runs().get(0).draw()).isNotEqualTo(one.runs().get(0).draw());
+    }
+
+    @Test
+    void runsOfOneRunnerShareTheirPlotInstants() throws Exception {
+        Scenario nominal = shipped("booster-pump.yaml").withDuration(20.0);
+        SweepResult result = new Sweep(nominal, Spread.parse("gain=30%,dead-time=40%"), 5L)
+                .run(2 * Sweep.RUNS_PER_RUNNER - 1, 1, index -> { });
+        List<PlotTrace> plots = new ArrayList<>();
+        plots.add(result.nominal().plot());
+        result.runs().forEach(run -> plots.add(run.plot()));
+        for (int i = 0; i < plots.size(); i++) {
+            assertThat(plots.get(i).times()).isEqualTo(plots.get(0).times());
+            // the nominal run and the next 49 on the first runner, the rest on the second
+            assertThat(plots.get(i).sharesTimesWith(plots.get(0))).as("run %d", i - 1)
+                    .isEqualTo(i < Sweep.RUNS_PER_RUNNER);
+            assertThat(plots.get(i).sharesTimesWith(plots.get(plots.size() - 1))).as("run %d", i - 1)
+                    .isEqualTo(i >= Sweep.RUNS_PER_RUNNER);
+        }
     }
 
     @Test
@@ -82,7 +102,7 @@ class SweepTest {
             SweepRun b = three.runs().get(i);
             assertThat(b.metrics()).isEqualTo(a.metrics());
             assertThat(b.largestPoleMagnitude()).isEqualTo(a.largestPoleMagnitude());
-            assertThat(b.plotMeasurements()).isEqualTo(a.plotMeasurements());
+            assertThat(b.plot().measurements()).isEqualTo(a.plot().measurements());
         }
     }
 
@@ -218,8 +238,8 @@ class SweepTest {
         assertThat(run.draw()).isEqualTo(PlantDraw.NOMINAL);
         assertThat(run.plant()).isEqualTo(nominal.plant());
         assertThat(run.metrics()).as("run %d", run.index()).isEqualTo(expectedMetrics);
-        double[] times = run.plotTimes();
-        double[] measured = run.plotMeasurements();
+        double[] times = run.plot().times();
+        double[] measured = run.plot().measurements();
         int stride = (expected.length() + Sweep.PLOT_POINTS - 1) / Sweep.PLOT_POINTS;
         for (int i = 0; i < times.length; i++) {
             int k = Math.min(i * stride, expected.length() - 1);
