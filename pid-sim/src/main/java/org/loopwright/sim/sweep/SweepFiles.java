@@ -308,7 +308,9 @@ public final class SweepFiles {
                 max = Math.max(max, values[r]);
             }
             Arrays.fill(pivots, -1);
-            IntToDoubleFunction kthSmallest = selectorOf(selector, Arrays.copyOf(values, n), pivots);
+            // the column is this method's own scratch: selected in place unless dropouts left it short
+            IntToDoubleFunction kthSmallest = selectorOf(selector, n == values.length ? values : Arrays.copyOf(values, n),
+                    pivots);
             envelope[0][i] = min;
             envelope[1][i] = n == 0 ? Double.NaN : Distribution.percentile(kthSmallest, n, 10.0);
             envelope[2][i] = n == 0 ? Double.NaN : Distribution.percentile(kthSmallest, n, 50.0);
