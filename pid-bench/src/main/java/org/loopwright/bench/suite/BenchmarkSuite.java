@@ -4,12 +4,12 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
-import java.util.Collection;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
 import org.loopwright.bench.SweepBenchmark;
+import org.loopwright.bench.SweepFilesBenchmark;
 import org.loopwright.bench.SweepWorkload;
 import org.loopwright.sim.timing.TimingResult;
 import org.openjdk.jmh.infra.BenchmarkParams;
@@ -31,7 +31,7 @@ import picocli.CommandLine.Spec;
 
 /**
  * The short benchmark suite in one command: every JMH benchmark (one fork, 2 × 1 s warm-up,
- * 3 × 1 s measurement, GC profiler), then the loop timing at 1 kHz and 10 kHz for each loop, then
+ * 3 × 1 s measurement, GC profiler) and the sweep's files (three forks, one cold shot each), then the loop timing at 1 kHz and 10 kHz for each loop, then
  * the timed command-line runs (a sweep of 10⁴ runs × 10⁴ steps, design with its defaults), then the
  * summary. About five minutes on two cores. The JMH runner itself stays available as
  * {@code java -cp <jar> org.openjdk.jmh.Main}.
@@ -39,6 +39,9 @@ import picocli.CommandLine.Spec;
 @Command(name = "loopwright-bench", mixinStandardHelpOptions = true,
         description = "Runs the benchmark suite and writes summary.md and summary.json.")
 public final class BenchmarkSuite implements Callable<Integer> {
+
+    /** JVMs the sweep's files are written in, one cold shot each. */
+    private static final int SWEEP_FILES_FORKS = 3;
 
     /** The run length of the smoke run's timed sweep command, seconds of the pump. */
     private static final double SMOKE_RUN_SECONDS = 20.0;
@@ -86,15 +89,21 @@ public final class BenchmarkSuite implements Callable<Integer> {
 
     private List<JmhFigure> runJmh() throws RunnerException {
         ChainedOptionsBuilder options = new OptionsBuilder().include("org\\.loopwright\\.bench\\..*Benchmark\\..*")
-                .shouldFailOnError(true);
+                .exclude(SweepFilesBenchmark.class.getName()).shouldFailOnError(true);
+        // the sweep's files: one cold shot per JVM, as the CLI writes them (a smoke run: in this JVM, 10 runs)
+        ChainedOptionsBuilder files = new OptionsBuilder().include(SweepFilesBenchmark.class.getName())
+                .shouldFailOnError(true).warmupIterations(0).measurementIterations(1);
         if (smoke) {
             options.forks(0).warmupIterations(0).measurementIterations(1)
                     .measurementTime(TimeValue.milliseconds(20)).verbosity(VerboseMode.SILENT);
+            files.forks(0).param("runs", "10").verbosity(VerboseMode.SILENT);
         } else {
             options.forks(1).warmupIterations(2).warmupTime(TimeValue.seconds(1)).measurementIterations(3)
                     .measurementTime(TimeValue.seconds(1)).addProfiler(GCProfiler.class);
+            files.forks(SWEEP_FILES_FORKS);
         }
-        Collection<RunResult> results = new Runner(options.build()).run();
+        List<RunResult> results = new ArrayList<>(new Runner(options.build()).run());
+        results.addAll(new Runner(files.build()).run());
         return results.stream().map(BenchmarkSuite::figure).collect(Collectors.toList());
     }
 

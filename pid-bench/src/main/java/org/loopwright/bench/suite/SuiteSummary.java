@@ -41,6 +41,10 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
     }
     /** The two run lengths of the sweep benchmark. */
     static final int SHORT_RUN_STEPS = 1_000;
+    /** The files of the CLI figure's sweep, written cold: {@code SweepFilesBenchmark.write[runs=10000]}. */
+    static final String SWEEP_FILES = "SweepFilesBenchmark.write[runs=10000]";
+    /** Target: a sweep's files "well under a second" (our reading: half of one), cold, as the CLI writes them. */
+    static final double SWEEP_FILES_SECONDS = 0.5;
     static final int LONG_RUN_STEPS = 10_000;
     /** Target: a sweep's marginal cost per step within this factor of its plant + controller step. */
     static final double SWEEP_STEP_LIMIT = 2.0;
@@ -88,6 +92,9 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
             targets.add(sweepSpeedUp(longOne, required(byName, sweep(LONG_RUN_STEPS, 2)), byName.get(bareRuns(1)),
                     byName.get(bareRuns(2))));
         }
+        if (byName.containsKey(SWEEP_FILES)) {
+            targets.add(sweepFiles(byName.get(SWEEP_FILES)));
+        }
         for (CommandTiming c : commands) {
             targets.add(commandTarget(c));
         }
@@ -126,6 +133,9 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
         String name = f.name();
         if (name.equals(BARE)) {
             return bare;
+        }
+        if (name.startsWith("SweepFilesBenchmark")) {
+            return f; // a wall time of its own, read in its target
         }
         if (name.startsWith("SweepBenchmark.sweep") || name.startsWith("SweepBenchmark.bareRuns")) {
             // each sweep beside the same sweep on one thread; the figures are read in the targets
@@ -214,6 +224,13 @@ public record SuiteSummary(String command, String mode, Machine machine, List<Co
         return new TargetCheck("sweep: 2 threads at least " + TWO_THREAD_SPEED_UP + "× as fast as 1",
                 String.format("%.2f ms on 1 thread, %.2f ms on 2: %.2f×%s", one.nsPerOp() / 1e6, two.nsPerOp() / 1e6,
                         speedUp, ceiling), speedUp >= TWO_THREAD_SPEED_UP);
+    }
+
+    private static TargetCheck sweepFiles(JmhFigure files) {
+        double seconds = files.nsPerOp() / 1e9;
+        return new TargetCheck("sweep: CSV, PNG and SVG of 10⁴ runs, cold, under " + SWEEP_FILES_SECONDS + " s",
+                String.format("%.3f s ± %.3f s (one shot in each of three JVMs)", seconds, files.errorNs() / 1e9),
+                seconds < SWEEP_FILES_SECONDS);
     }
 
     private static TargetCheck commandTarget(CommandTiming c) {

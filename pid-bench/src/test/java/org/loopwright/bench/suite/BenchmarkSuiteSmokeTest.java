@@ -24,9 +24,9 @@ class BenchmarkSuiteSmokeTest {
 
     /**
      * 3 forms, 3 × 5 discretisations, 3 update variants, the bank, 2 simulation steps, 3 monitor figures,
-     * 2 replay figures, 2 × 2 sweeps, the sweep's step and its bare runs on 1 and 2 threads.
+     * 2 replay figures, 2 × 2 sweeps, the sweep's step and its bare runs on 1 and 2 threads, the sweep's files.
      */
-    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2 + 4 + 1 + 2;
+    private static final int BENCHMARK_RUNS = 3 + 15 + 3 + 1 + 2 + 3 + 2 + 4 + 1 + 2 + 1;
 
     @Test
     void everyBenchmarkAndLoopProducesAFiniteFigure(@TempDir Path out) throws Exception {
@@ -47,7 +47,7 @@ class BenchmarkSuiteSmokeTest {
                 .contains(SuiteSummary.BARE, SuiteSummary.FULL, SuiteSummary.BANK, SuiteSummary.SIMULATION_STEP,
                         "UpdateBenchmark.variablePeriod", "FormBenchmark.update[form=SERIES]",
                         "DiscretisationBenchmark.update[derivativeMethod=RAMP_INVARIANT,integralMethod=TUSTIN]",
-                        SuiteSummary.bareRuns(2));
+                        SuiteSummary.bareRuns(2), "SweepFilesBenchmark.write[runs=10]");
 
         JsonNode timing = summary.get("timing");
         assertThat(timing).hasSize(8);

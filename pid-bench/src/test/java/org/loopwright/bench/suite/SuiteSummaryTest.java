@@ -91,4 +91,19 @@ class SuiteSummaryTest {
         assertThat(sweep.measured()).startsWith("FAILED with exit 1, so not a timing; 0.15 s");
         assertThat(sweep.met()).isFalse();
     }
+
+    @Test
+    void theSweepsFilesStandAloneAndAreReadInSeconds() {
+        for (double seconds : new double[] {0.4, 1.1}) {
+            List<JmhFigure> withFiles = new java.util.ArrayList<>(figures(12.0, 11.0, 20.0, 0.0));
+            withFiles.add(new JmhFigure(SuiteSummary.SWEEP_FILES, seconds * 1e9, 0.05e9, Double.NaN));
+            SuiteSummary s = SuiteSummary.of("cmd", "full", MACHINE, withFiles, List.of(), List.of(), 48);
+            assertThat(s.benchmarks()).filteredOn(c -> c.figure().name().equals(SuiteSummary.SWEEP_FILES))
+                    .singleElement().satisfies(c -> assertThat(c.ratio()).isEqualTo(1.0));
+            TargetCheck files = s.targets().stream().filter(t -> t.target().startsWith("sweep: CSV, PNG and SVG"))
+                    .findFirst().orElseThrow();
+            assertThat(files.measured()).startsWith(String.format("%.3f s ± 0.050 s", seconds));
+            assertThat(files.met()).isEqualTo(seconds < SuiteSummary.SWEEP_FILES_SECONDS);
+        }
+    }
 }
