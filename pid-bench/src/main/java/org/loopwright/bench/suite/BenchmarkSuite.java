@@ -31,7 +31,8 @@ import picocli.CommandLine.Spec;
 
 /**
  * The short benchmark suite in one command: every JMH benchmark (one fork, 2 × 1 s warm-up,
- * 3 × 1 s measurement, GC profiler) and the sweep's files (three forks, one cold shot each), then the loop timing at 1 kHz and 10 kHz for each loop, then
+ * 3 × 1 s measurement, GC profiler) and the sweep's files (one cold shot in each of
+ * {@value SuiteSummary#SWEEP_FILES_FORKS} forks), then the loop timing at 1 kHz and 10 kHz for each loop, then
  * the timed command-line runs (a sweep of 10⁴ runs × 10⁴ steps, design with its defaults), then the
  * summary. About five minutes on two cores. The JMH runner itself stays available as
  * {@code java -cp <jar> org.openjdk.jmh.Main}.
@@ -39,9 +40,6 @@ import picocli.CommandLine.Spec;
 @Command(name = "loopwright-bench", mixinStandardHelpOptions = true,
         description = "Runs the benchmark suite and writes summary.md and summary.json.")
 public final class BenchmarkSuite implements Callable<Integer> {
-
-    /** JVMs the sweep's files are written in, one cold shot each. */
-    private static final int SWEEP_FILES_FORKS = 3;
 
     /** The run length of the smoke run's timed sweep command, seconds of the pump. */
     private static final double SMOKE_RUN_SECONDS = 20.0;
@@ -100,7 +98,7 @@ public final class BenchmarkSuite implements Callable<Integer> {
         } else {
             options.forks(1).warmupIterations(2).warmupTime(TimeValue.seconds(1)).measurementIterations(3)
                     .measurementTime(TimeValue.seconds(1)).addProfiler(GCProfiler.class);
-            files.forks(SWEEP_FILES_FORKS);
+            files.forks(SuiteSummary.SWEEP_FILES_FORKS);
         }
         List<RunResult> results = new ArrayList<>(new Runner(options.build()).run());
         results.addAll(new Runner(files.build()).run());
