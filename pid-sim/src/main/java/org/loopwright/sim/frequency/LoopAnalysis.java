@@ -160,19 +160,34 @@ public final class LoopAnalysis {
      * @throws IllegalArgumentException if the loop has more than {@link SampledLoop#MAX_DELAY_SAMPLES} of delay
      */
     public static PulseTransferFunction sampledLoop(SampledLoop loop) {
+        requireAnalysableDelay(loop);
+        return sampledLoop(loop, discreteController(loop.controller(), loop.periodSeconds()));
+    }
+
+    /**
+     * The sampled loop σ·C(z)·P_zoh(z)·z^(−N) with the controller's C(z) given, as {@link #discreteController}
+     * makes it for the loop's settings and period: a sweep makes it once for all the plants it draws.
+     *
+     * @throws IllegalArgumentException if the loop has more than {@link SampledLoop#MAX_DELAY_SAMPLES} of delay
+     */
+    public static PulseTransferFunction sampledLoop(SampledLoop loop, PulseTransferFunction controller) {
+        requireAnalysableDelay(loop);
         double h = loop.periodSeconds();
-        if (loop.delaySamples() > SampledLoop.MAX_DELAY_SAMPLES) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "the sampled loop's delay must be at most %d"
-                    + " samples for analysis: dead time %s s and %d sensor samples at h = %s s give %.4g",
-                    SampledLoop.MAX_DELAY_SAMPLES, loop.plant().deadTimeSeconds(), loop.sensorDelaySamples(), h,
-                    loop.delaySamples()));
-        }
         PulseTransferFunction sensor = new PulseTransferFunction(PulseTransferFunction.constant(1.0),
                 PulseTransferFunction.constant(1.0), loop.sensorDelaySamples(), h);
-        return discreteController(loop.controller(), h)
+        return controller
                 .times(ZeroOrderHoldEquivalent.of(loop.plant(), h))
                 .times(sensor)
                 .times(loop.controller().action().sign());
+    }
+
+    private static void requireAnalysableDelay(SampledLoop loop) {
+        if (loop.delaySamples() > SampledLoop.MAX_DELAY_SAMPLES) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "the sampled loop's delay must be at most %d"
+                    + " samples for analysis: dead time %s s and %d sensor samples at h = %s s give %.4g",
+                    SampledLoop.MAX_DELAY_SAMPLES, loop.plant().deadTimeSeconds(), loop.sensorDelaySamples(),
+                    loop.periodSeconds(), loop.delaySamples()));
+        }
     }
 
     /** The closed-loop poles of unity negative feedback around {@code loop}: roots of A(z)·z^d + B(z). */

@@ -19,6 +19,7 @@ import org.loopwright.sim.config.FileKey;
 import org.loopwright.sim.config.InputException;
 import org.loopwright.sim.frequency.CascadeAnalysis;
 import org.loopwright.sim.frequency.LoopAnalysis;
+import org.loopwright.sim.frequency.PulseTransferFunction;
 import org.loopwright.sim.frequency.SampledLoop;
 import org.loopwright.sim.plant.PlantModel;
 import org.loopwright.sim.plant.PlantParameters;
@@ -70,6 +71,8 @@ public final class Sweep {
     private final PlantModel nominalPlant;
     private final Spread spread;
     private final long seed;
+    /** C(z), the same in every run, made once; null without a sampled loop or for a controller the analysis rejects. */
+    private final PulseTransferFunction controllerPulse;
 
     /**
      * A sweep around the scenario's plant.
@@ -86,6 +89,7 @@ public final class Sweep {
         this.spread = Objects.requireNonNull(spread, "spread");
         this.nominalPlant = scenario.plant();
         this.seed = seed;
+        this.controllerPulse = scenario.sampledLoop().map(Sweep::controllerPulseOf).orElse(null);
         spread.requireKeysOf(nominalPlant.type());
         if (!(nominalPlant instanceof TransferFunction)) {
             requireDrawable(nominalPlant, spread);
@@ -231,6 +235,15 @@ public final class Sweep {
      * controller, too long a delay, or a controller the analysis rejects.
      */
     static double largestPoleMagnitude(Scenario drawn) {
+        return largestPoleMagnitude(drawn, drawn.sampledLoop().map(Sweep::controllerPulseOf).orElse(null));
+    }
+
+    /**
+     * The same with the controller's pulse transfer function given (null when the analysis rejects the
+     * controller): every run of a sweep has the nominal scenario's controller and period, so a sweep makes it
+     * once ({@link #controllerPulse()}), and each run adds only its plant.
+     */
+    static double largestPoleMagnitude(Scenario drawn, PulseTransferFunction controller) {
         SampledLoop loop = drawn.sampledLoop().orElse(null);
         if (loop == null || loop.totalDelaySeconds() > MAX_DELAY_PERIODS * loop.periodSeconds()) {
             return Double.NaN;
@@ -242,13 +255,30 @@ public final class Sweep {
                 return CascadeAnalysis.outerSampled(loop.plant(), loop.controller(), inner.plant().linear().orElseThrow(),
                         inner.controller(), loop.sensorDelaySamples()).largestPoleMagnitude();
             }
+            if (controller == null) {
+                return Double.NaN;
+            }
             double largest = 0.0;
-            for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(loop))) {
+            for (Complex pole : LoopAnalysis.closedLoopPoles(LoopAnalysis.sampledLoop(loop, controller))) {
                 largest = Math.max(largest, pole.norm());
             }
             return largest;
         } catch (IllegalArgumentException notAnalysable) {
             return Double.NaN;
+        }
+    }
+
+    /** The controller's pulse transfer function C(z) of this sweep's runs; null when there is none to analyse. */
+    PulseTransferFunction controllerPulse() {
+        return controllerPulse;
+    }
+
+    /** C(z) of a sampled loop's controller at its period; null when the analysis rejects it. */
+    private static PulseTransferFunction controllerPulseOf(SampledLoop loop) {
+        try {
+            return LoopAnalysis.discreteController(loop.controller(), loop.periodSeconds());
+        } catch (IllegalArgumentException notAnalysable) {
+            return null;
         }
     }
 

@@ -68,7 +68,7 @@ public final class SweepRunner {
         double decayRatio = Double.NaN;
         LoopStability stability;
         if (oscillation == null) {
-            poleMagnitude = Sweep.largestPoleMagnitude(drawn);
+            poleMagnitude = Sweep.largestPoleMagnitude(drawn, sweep.controllerPulse());
             stability = recorder.diverged() ? LoopStability.DIVERGED
                     : poleMagnitude >= 1.0 ? LoopStability.UNSTABLE
                     : Double.isNaN(poleMagnitude) ? LoopStability.NOT_ASSESSED : LoopStability.STABLE;

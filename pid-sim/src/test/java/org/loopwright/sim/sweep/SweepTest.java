@@ -72,6 +72,19 @@ class SweepTest {
     }
 
     @Test
+    void theSweepsControllerMadeOnceGivesEachRunThePolesOfItsOwnScenario() throws Exception {
+        // a sweep makes C(z) once for all its runs; a run's figure must be the one its scenario alone gives
+        Scenario nominal = shipped("booster-pump.yaml").withDuration(20.0);
+        Sweep sweep = new Sweep(nominal, Spread.parse("gain=30%,time-constant=20%,dead-time=40%"), 11L);
+        SweepResult result = sweep.run(20, 2, index -> { });
+        for (SweepRun run : result.runs()) {
+            assertThat(run.largestPoleMagnitude()).as("run %d", run.index())
+                    .isEqualTo(Sweep.largestPoleMagnitude(sweep.scenario(run.index()))).isBetween(0.0, 1.0);
+        }
+        assertThat(result.nominal().largestPoleMagnitude()).isEqualTo(Sweep.largestPoleMagnitude(nominal));
+    }
+
+    @Test
     void runsOfOneRunnerShareTheirPlotInstants() throws Exception {
         Scenario nominal = shipped("booster-pump.yaml").withDuration(20.0);
         SweepResult result = new Sweep(nominal, Spread.parse("gain=30%,dead-time=40%"), 5L)
