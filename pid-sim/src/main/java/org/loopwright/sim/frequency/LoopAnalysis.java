@@ -160,7 +160,7 @@ public final class LoopAnalysis {
      * @throws IllegalArgumentException if the loop has more than {@link SampledLoop#MAX_DELAY_SAMPLES} of delay
      */
     public static PulseTransferFunction sampledLoop(SampledLoop loop) {
-        requireAnalysableDelay(loop);
+        requireAnalysableDelay(loop); // before C(z) is made, so a too-long delay is the error reported first
         return sampledLoop(loop, discreteController(loop.controller(), loop.periodSeconds()));
     }
 

@@ -17,6 +17,7 @@ import org.hipparchus.linear.ArrayRealVector;
 import org.hipparchus.linear.MatrixUtils;
 import org.hipparchus.linear.RealMatrix;
 import org.hipparchus.linear.RealVector;
+import org.loopwright.sim.plant.DescendingPolynomials;
 import org.loopwright.sim.plant.TransferFunction;
 
 /**
@@ -34,7 +35,7 @@ class ZeroOrderHoldEquivalentProperties {
         TransferFunction plant() {
             double[] denominator = {lead};
             for (double pole : poles) {
-                denominator = timesLinear(denominator, pole);
+                denominator = DescendingPolynomials.timesLinear(denominator, pole);
             }
             return new TransferFunction(numerator, denominator, (wholePeriods + fraction) * periodSeconds);
         }
@@ -90,16 +91,6 @@ class ZeroOrderHoldEquivalentProperties {
             bits[i] = Double.doubleToRawLongBits(coefficients[i]);
         }
         return bits;
-    }
-
-    /** The descending coefficients of p(s)·(s − root). */
-    private static double[] timesLinear(double[] p, double root) {
-        double[] product = new double[p.length + 1];
-        for (int i = 0; i < p.length; i++) {
-            product[i] += p[i];
-            product[i + 1] -= root * p[i];
-        }
-        return product;
     }
 
     /**

@@ -67,7 +67,7 @@ class MatrixExponentialProperties {
             double[] a = new double[order * order];
             double[] coefficients = {1.0};
             for (int i = 0; i < order; i++) {
-                coefficients = timesLinear(coefficients, -3.0 + 4.0 * random.nextDouble());
+                coefficients = DescendingPolynomials.timesLinear(coefficients, -3.0 + 4.0 * random.nextDouble());
             }
             for (int j = 0; j + 1 < order; j++) {
                 a[j * order + j + 1] = 1.0;
@@ -142,16 +142,6 @@ class MatrixExponentialProperties {
             largest = Math.max(largest, sum);
         }
         return largest;
-    }
-
-    /** The descending coefficients of p(s)·(s − root). */
-    private static double[] timesLinear(double[] p, double root) {
-        double[] product = new double[p.length + 1];
-        for (int i = 0; i < p.length; i++) {
-            product[i] += p[i];
-            product[i + 1] -= root * p[i];
-        }
-        return product;
     }
 
     private static long[] rawBits(double[] values) {
